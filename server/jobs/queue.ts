@@ -1,0 +1,12 @@
+import PgBoss from 'pg-boss';
+import type { Logger } from '../lib/logger';
+
+export type Queue = PgBoss;
+
+// pg-boss keeps its jobs in the same PostgreSQL database, in its own schema.
+export async function startQueue(databaseUrl: string, logger: Logger): Promise<Queue> {
+  const boss = new PgBoss({ connectionString: databaseUrl, max: 4 });
+  boss.on('error', (err) => logger.error({ err }, 'job queue error'));
+  await boss.start();
+  return boss;
+}

@@ -1,0 +1,15 @@
+import type { Config } from '../config/env';
+import type { Db } from '../db/knex';
+import type { Logger } from '../lib/logger';
+import type { Queue } from './queue';
+
+export interface WorkerDeps {
+  queue: Queue;
+  db: Db;
+  logger: Logger;
+  config: Config;
+}
+
+// Each feature's job handlers are registered here, once, for both the in-process
+// worker and `npm run worker`.
+export async function registerWorkers(_deps: WorkerDeps): Promise<void> {}

@@ -1,0 +1,40 @@
+import type { Server } from 'node:http';
+import { createApp } from './app';
+import { type Config, publicUrl } from './config/env';
+import { createDb } from './db/knex';
+import { startQueue } from './jobs/queue';
+import { registerWorkers } from './jobs/workers';
+import { createLogger } from './lib/logger';
+
+export interface RunningServer {
+  url: string;
+  server: Server;
+  close(): Promise<void>;
+}
+
+// Wires the process together: database, job queue (+ in-process worker unless
+// RUN_WORKER=false), HTTP app. Used by server/index.ts, npm start and the e2e tests.
+export async function startServer(config: Config): Promise<RunningServer> {
+  const logger = createLogger(config);
+  const db = createDb(config.DATABASE_URL);
+  const queue = await startQueue(config.DATABASE_URL, logger);
+  if (config.RUN_WORKER) await registerWorkers({ queue, db, logger, config });
+  const app = createApp({ config, db, logger, queue });
+  const server = await new Promise<Server>((resolve, reject) => {
+    const s = app.listen(config.PORT, config.HOST, () => resolve(s));
+    s.once('error', reject);
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  const url = config.PUBLIC_URL ?? publicUrl({ ...config, PORT: port });
+  return {
+    url,
+    server,
+    async close() {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      server.closeAllConnections();
+      await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
+      await db.destroy();
+    },
+  };
+}

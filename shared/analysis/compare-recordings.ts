@@ -1,0 +1,121 @@
+import { agreementOf, matchedBlocks } from './agreement';
+import { findClockOffset } from './alignment';
+import { cadenceBands, powerBands } from './bands';
+import { biasOverMatched, matchedSeconds } from './bias';
+import { findCadenceLag } from './cadence-lag';
+import { assertRecordingUsable, decodeFit } from './decode-fit';
+import { differenceSeries } from './difference-series';
+import { analyseDropouts } from './dropouts';
+import { AnalysisError, attributeToSide, formatDuration } from './errors';
+import { qualityFlags } from './flags';
+import { comparablePower } from './like-for-like';
+import { METHOD_VERSION, MIN_OVERLAP_SECONDS } from './method';
+import { analysePeaks } from './peaks';
+import { smoothingSignature } from './smoothing';
+import { findSteadySegments } from './steady-segments';
+import { sharedTimeline, toSecondGrid } from './timeline';
+import type { CompareOptions, ComparisonResult, RideStream, Side } from './types';
+
+export { METHOD_VERSION };
+
+/** A is the device being judged, B its partner on the same ride. */
+export function compareRecordings(a: RideStream, b: RideStream, options: CompareOptions): ComparisonResult {
+  forEachSide({ a, b }, (stream) => assertRecordingUsable(stream));
+  const grids = { a: toSecondGrid(a), b: toSecondGrid(b) };
+
+  const { clockOffsetSeconds, correlation } = findClockOffset(grids.a, grids.b);
+  const timeline = sharedTimeline(grids.a, grids.b, clockOffsetSeconds);
+  const overlapSeconds = countBothReporting(timeline.aPower, timeline.bPower);
+  if (overlapSeconds === 0) {
+    throw new AnalysisError('no_overlap', 'These recordings do not overlap in time. Were they recorded on the same ride?');
+  }
+  if (overlapSeconds < MIN_OVERLAP_SECONDS) {
+    throw new AnalysisError(
+      'short_overlap',
+      `These recordings overlap for only ${formatDuration(overlapSeconds)}; a comparison needs at least ${formatDuration(MIN_OVERLAP_SECONDS)} of riding recorded by both.`,
+    );
+  }
+  const alignment = { clockOffsetSeconds, overlapSeconds, correlation, startTime: timeline.start, endTime: timeline.start + timeline.length };
+
+  const { dropouts, aPowerDropout, bPowerDropout } = analyseDropouts(timeline);
+  const comparable = comparablePower(timeline, options);
+  const matched = matchedSeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout);
+  const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, matched);
+  const naive = biasOverMatched(timeline.aPower, timeline.bPower, matchedSeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout));
+  const likeForLike = {
+    mode: comparable.mode,
+    percent: bias.percent,
+    naivePercent: naive.percent,
+    leg: comparable.leg,
+    expectedDrivetrainPercent: comparable.expectedDrivetrainPercent,
+  };
+  const cadenceLag = findCadenceLag(timeline.aCadence, timeline.bCadence);
+  const smoothing = smoothingSignature(comparable.a, comparable.b, matched);
+
+  return {
+    methodVersion: METHOD_VERSION,
+    positions: { a: options.aPosition, b: options.bPosition },
+    devices: { a: a.device, b: b.device },
+    recordings: { a: a.recording, b: b.recording },
+    alignment,
+    bias,
+    sums: { a: sumA, b: sumB },
+    pedallingSeconds: dropouts.pedallingSeconds,
+    agreement: agreementOf(matchedBlocks(comparable.a, comparable.b, matched)),
+    dropouts,
+    cadenceLagSeconds: cadenceLag?.lagSeconds ?? null,
+    cadenceLagCorrelation: cadenceLag?.correlation ?? null,
+    peaks: analysePeaks(comparable.a, comparable.b),
+    powerBands: powerBands(comparable.a, comparable.b, matched),
+    cadenceBands: cadenceBands(comparable.a, comparable.b, matched, timeline.aCadence, timeline.bCadence),
+    steadySegments: findSteadySegments(comparable.a, comparable.b, matched),
+    likeForLike,
+    smoothing,
+    flags: qualityFlags({
+      alignment,
+      bias,
+      likeForLike,
+      smoothing,
+      grids,
+      gaps: {
+        a: { ...a.recording, durationSeconds: a.recording.endTime - a.recording.startTime },
+        b: { ...b.recording, durationSeconds: b.recording.endTime - b.recording.startTime },
+      },
+      identicalStreams: sameOnMatchedSeconds(comparable.a, comparable.b, matched),
+    }),
+    series: differenceSeries(comparable.a, comparable.b, matched),
+  };
+}
+
+/** Decodes both files and compares them; errors name the file they concern. */
+export function compareFitFiles(aBytes: Uint8Array | ArrayBuffer, bBytes: Uint8Array | ArrayBuffer, options: CompareOptions): ComparisonResult {
+  const streams = forEachSide({ a: aBytes, b: bBytes }, (bytes) => decodeFit(bytes));
+  return compareRecordings(streams.a, streams.b, options);
+}
+
+function forEachSide<T, R>(inputs: Record<Side, T>, work: (input: T) => R): Record<Side, R> {
+  const run = (side: Side): R => {
+    try {
+      return work(inputs[side]);
+    } catch (error) {
+      throw attributeToSide(error, side);
+    }
+  };
+  return { a: run('a'), b: run('b') };
+}
+
+function countBothReporting(a: Float64Array, b: Float64Array): number {
+  let count = 0;
+  for (let i = 0; i < a.length; i++) if (a[i] === a[i] && b[i] === b[i]) count++;
+  return count;
+}
+
+function sameOnMatchedSeconds(a: Float64Array, b: Float64Array, matched: Uint8Array): boolean {
+  let compared = 0;
+  for (let i = 0; i < a.length; i++) {
+    if (matched[i] === 0) continue;
+    if (a[i] !== b[i]) return false;
+    compared++;
+  }
+  return compared > 0;
+}

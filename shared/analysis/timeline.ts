@@ -1,0 +1,86 @@
+import { MAX_CARRY_SECONDS } from './method';
+import type { RideStream } from './types';
+
+/** One device's recording on a 1 Hz grid; NaN marks seconds with no data. */
+export interface SecondGrid {
+  /** UTC second of index 0, on the device's own clock. */
+  start: number;
+  length: number;
+  power: Float64Array;
+  cadence: Float64Array;
+  rightBalance: Float64Array;
+}
+
+export function toSecondGrid(stream: RideStream): SecondGrid {
+  const start = Math.floor(stream.recording.startTime);
+  const length = stream.timestamps.length === 0 ? 0 : Math.floor(stream.recording.endTime) - start + 1;
+  return {
+    start,
+    length,
+    power: resample(stream.timestamps, stream.powerWatts, start, length),
+    cadence: resample(stream.timestamps, stream.cadenceRpm, start, length),
+    rightBalance: resample(stream.timestamps, stream.rightBalancePercent, start, length),
+  };
+}
+
+/**
+ * Mean of the samples within each second, then each value carried across a gap of
+ * up to MAX_CARRY_SECONDS to the device's next sample of that field (change-only
+ * recording is normal); longer gaps stay NaN.
+ */
+export function resample(times: Float64Array, values: Float64Array, start: number, length: number): Float64Array {
+  const sums = new Float64Array(length);
+  const counts = new Uint16Array(length);
+  for (let i = 0; i < times.length; i++) {
+    const value = values[i];
+    if (Number.isNaN(value)) continue;
+    const second = Math.floor(times[i]) - start;
+    sums[second] += value;
+    counts[second]++;
+  }
+  const grid = new Float64Array(length);
+  let last = -1;
+  for (let s = 0; s < length; s++) {
+    if (counts[s] === 0) {
+      grid[s] = NaN;
+      continue;
+    }
+    grid[s] = sums[s] / counts[s];
+    if (last >= 0 && s - last > 1 && s - last <= MAX_CARRY_SECONDS) grid.fill(grid[last], last + 1, s);
+    last = s;
+  }
+  return grid;
+}
+
+/** Both devices on one shared span of B's clock; index i is the same moment for both. */
+export interface SharedTimeline {
+  /** UTC second, on B's clock, of index 0. */
+  start: number;
+  length: number;
+  aPower: Float64Array;
+  bPower: Float64Array;
+  aCadence: Float64Array;
+  bCadence: Float64Array;
+  aRightBalance: Float64Array;
+  bRightBalance: Float64Array;
+}
+
+/** A's second tA is B's second tA − offset (offset: how far A's clock runs ahead). */
+export function sharedTimeline(a: SecondGrid, b: SecondGrid, clockOffsetSeconds: number): SharedTimeline {
+  const aStartOnB = a.start - clockOffsetSeconds;
+  const start = Math.max(aStartOnB, b.start);
+  const end = Math.min(aStartOnB + a.length, b.start + b.length);
+  const length = Math.max(0, end - start);
+  const aFrom = start - aStartOnB;
+  const bFrom = start - b.start;
+  return {
+    start,
+    length,
+    aPower: a.power.subarray(aFrom, aFrom + length),
+    bPower: b.power.subarray(bFrom, bFrom + length),
+    aCadence: a.cadence.subarray(aFrom, aFrom + length),
+    bCadence: b.cadence.subarray(bFrom, bFrom + length),
+    aRightBalance: a.rightBalance.subarray(aFrom, aFrom + length),
+    bRightBalance: b.rightBalance.subarray(bFrom, bFrom + length),
+  };
+}

@@ -1,0 +1,39 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { type Browser, chromium, type Page } from 'playwright-core';
+
+export const SCREENSHOT_DIR = path.resolve('test-output/screenshots');
+
+// Debian's Chromium, headless, with nothing reaching out to the network.
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+    ],
+  });
+}
+
+/** Collects console errors and uncaught page errors for a test to assert on. */
+export function watchConsole(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (msg) => {
+    if (msg.type() === 'error') errors.push(msg.text());
+  });
+  page.on('pageerror', (err) => errors.push(err.message));
+  return errors;
+}
+
+export async function saveScreenshot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}

@@ -1,0 +1,48 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const alias = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@server': fileURLToPath(new URL('./server', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+};
+
+// One run, three projects: pure unit tests, API tests over HTTP against a real
+// PostgreSQL, and browser end-to-end tests. The database projects share one
+// throwaway cluster started by tests/global-setup.ts.
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    reporters: ['default', 'json'],
+    outputFile: { json: 'test-output/results.json' },
+    projects: [
+      {
+        resolve: { alias },
+        test: { name: 'unit', include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/server/**/*.test.ts'],
+          globalSetup: ['tests/global-setup.ts'],
+          setupFiles: ['tests/server/setup-database.ts'],
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        resolve: { alias },
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          globalSetup: ['tests/global-setup.ts'],
+          setupFiles: ['tests/server/setup-database.ts'],
+          testTimeout: 90_000,
+          hookTimeout: 90_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});
