@@ -16,8 +16,8 @@ export interface SdkDecodedRecords {
 const FIT_EPOCH_UNIX_SECONDS = 631065600; // FIT SDK profile: Unix = FIT + 631065600
 
 export function decodeWithSdk(bytes: Uint8Array): SdkDecodedRecords {
-  const integrity = new Decoder(Stream.fromByteArray(Array.from(bytes))).checkIntegrity();
-  const { messages, errors } = new Decoder(Stream.fromByteArray(Array.from(bytes))).read({
+  const integrity = new Decoder(Stream.fromArrayBuffer(bytes.slice().buffer)).checkIntegrity();
+  const { messages, errors } = new Decoder(Stream.fromArrayBuffer(bytes.slice().buffer)).read({
     convertTypesToStrings: false,
     convertDateTimesToDates: false,
   });
