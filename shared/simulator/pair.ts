@@ -42,6 +42,12 @@ export interface PairTruth {
   cadenceLagSeconds: number;
   /** Each recording's trailing smoothing delays its power by (n − 1) / 2 s, which looks like extra clock offset. */
   powerDelaySeconds: { a: number; b: number };
+  /**
+   * What aligning by power correlation should find: the clock offset plus A's extra
+   * smoothing delay; and the cadence lag measured after that alignment. Fractional
+   * (x.5) when the smoothing windows differ by an odd number of seconds.
+   */
+  apparent: { clockOffsetSeconds: number; cadenceLagSeconds: number };
   dropouts: { a: DropoutCounts; b: DropoutCounts };
   /** Seconds of the ride both devices recorded. */
   overlapSeconds: number;
@@ -91,6 +97,9 @@ export function simulatePair(options: PairOptions): SimulatedPair {
       indoor,
     });
 
+  const clockOffsetSeconds = Math.round(options.a.clockOffsetSeconds ?? 0) - Math.round(options.b.clockOffsetSeconds ?? 0);
+  const cadenceLagSeconds = Math.round(options.a.cadenceLagSeconds ?? 0) - Math.round(options.b.cadenceLagSeconds ?? 0);
+  const extraDelay = smoothingDelay(options.a) - smoothingDelay(options.b);
   const expected = expectedSums(ride, options, firstSecond, lastSecond, [...dropoutsA, ...dropoutsB]);
   return {
     a: write(recordingA, options.a, 'device-a'),
@@ -100,9 +109,10 @@ export function simulatePair(options: PairOptions): SimulatedPair {
     truth: {
       biasPercent: 100 * (expected.a / expected.b - 1),
       instrumentBiasPercent: 100 * (gain(options.a) / gain(options.b) - 1),
-      clockOffsetSeconds: Math.round(options.a.clockOffsetSeconds ?? 0) - Math.round(options.b.clockOffsetSeconds ?? 0),
-      cadenceLagSeconds: Math.round(options.a.cadenceLagSeconds ?? 0) - Math.round(options.b.cadenceLagSeconds ?? 0),
+      clockOffsetSeconds,
+      cadenceLagSeconds,
       powerDelaySeconds: { a: smoothingDelay(options.a), b: smoothingDelay(options.b) },
+      apparent: { clockOffsetSeconds: clockOffsetSeconds + extraDelay, cadenceLagSeconds: cadenceLagSeconds - extraDelay },
       dropouts: { a: countDropouts(dropoutsA), b: countDropouts(dropoutsB) },
       overlapSeconds: Math.max(0, lastSecond - firstSecond + 1),
       pedallingSeconds: expected.pedallingSeconds,

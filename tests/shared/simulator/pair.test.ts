@@ -96,6 +96,8 @@ describe('simulatePair', () => {
     expect(pair.truth.clockOffsetSeconds).toBe(16);
     expect(pair.truth.cadenceLagSeconds).toBe(2);
     expect(pair.truth.powerDelaySeconds).toEqual({ a: 1, b: 0 });
+    // A's 3 s trailing average delays its power by 1 s: alignment by power sees 17 s, and cadence 1 s behind.
+    expect(pair.truth.apparent).toEqual({ clockOffsetSeconds: 17, cadenceLagSeconds: 1 });
     expect(pair.truth.overlapSeconds).toBe(3600 - 120 - 300);
     expect(pair.truth.dropouts.a.power).toBe(pair.recordings.a.events.filter((e) => e.kind === 'power').length);
     expect(pair.truth.dropouts.a.power + pair.truth.dropouts.b.power).toBeGreaterThan(3);
