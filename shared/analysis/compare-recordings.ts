@@ -90,7 +90,19 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
 /** Decodes both files and compares them; errors name the file they concern. */
 export function compareFitFiles(aBytes: Uint8Array | ArrayBuffer, bBytes: Uint8Array | ArrayBuffer, options: CompareOptions): ComparisonResult {
   const streams = forEachSide({ a: aBytes, b: bBytes }, (bytes) => decodeFit(bytes));
-  return compareRecordings(streams.a, streams.b, options);
+  const result = compareRecordings(streams.a, streams.b, options);
+  if (!sameBytes(aBytes, bBytes)) return result;
+  const flags = result.flags.filter((flag) => flag.code !== 'identical_streams');
+  flags.unshift({ code: 'identical_files', severity: 'severe', message: 'Both uploads are the same file: a meter cannot be compared with itself.' });
+  return { ...result, flags };
+}
+
+function sameBytes(a: Uint8Array | ArrayBuffer, b: Uint8Array | ArrayBuffer): boolean {
+  const x = a instanceof Uint8Array ? a : new Uint8Array(a);
+  const y = b instanceof Uint8Array ? b : new Uint8Array(b);
+  if (x.length !== y.length) return false;
+  for (let i = 0; i < x.length; i++) if (x[i] !== y[i]) return false;
+  return true;
 }
 
 function forEachSide<T, R>(inputs: Record<Side, T>, work: (input: T) => R): Record<Side, R> {

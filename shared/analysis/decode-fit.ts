@@ -1,5 +1,5 @@
-import { FitMessageReaderError, readFitMessages } from 'fit-file-parser';
-import type { FitRawField, FitRawMessage } from 'fit-file-parser';
+import { FitMessageReaderError, readFitMessages } from 'fit-file-parser/raw';
+import type { FitRawField, FitRawMessage } from 'fit-file-parser/raw';
 import { AnalysisError, formatDuration } from './errors';
 import { crc16Arc } from './fit-crc';
 import { MAX_CARRY_SECONDS, MIN_OVERLAP_SECONDS } from './method';

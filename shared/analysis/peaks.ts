@@ -44,12 +44,17 @@ export function normalisedPower(values: Float64Array): number | null {
   if (values.length < NORMALISED_WINDOW_SECONDS) return null;
   let sum = 0;
   for (let i = 0; i < NORMALISED_WINDOW_SECONDS; i++) sum += values[i];
-  let total = (sum / NORMALISED_WINDOW_SECONDS) ** 4;
+  let total = fourthPower(sum / NORMALISED_WINDOW_SECONDS);
   for (let i = NORMALISED_WINDOW_SECONDS; i < values.length; i++) {
     sum += values[i] - values[i - NORMALISED_WINDOW_SECONDS];
-    total += (sum / NORMALISED_WINDOW_SECONDS) ** 4;
+    total += fourthPower(sum / NORMALISED_WINDOW_SECONDS);
   }
   return (total / (values.length - NORMALISED_WINDOW_SECONDS + 1)) ** 0.25;
+}
+
+function fourthPower(x: number): number {
+  const square = x * x;
+  return square * square;
 }
 
 function percentDifference(a: number | null, b: number | null): number | null {

@@ -190,3 +190,23 @@ describe('compareRecordings errors', () => {
     expect(error.message).toMatch(/8 min/);
   });
 });
+
+describe('compareRecordings recording-quality flags', () => {
+  it('when A has twelve 10 s gaps, then many long gaps are flagged for A', () => {
+    const ride = effort(HOUR);
+    const gappy = rideStream({ power: ride.power, skip: (i) => i % 300 > 290 });
+
+    const result = compareRecordings(gappy, rideStream({ power: ride.power }), DIRECT);
+
+    expect(result.flags).toContainEqual(expect.objectContaining({ code: 'many_gaps', message: expect.stringMatching(/^Device A/) }));
+  });
+
+  it('when B reports a cadence of 255 rpm, then implausible cadence is flagged', () => {
+    const ride = effort(HOUR);
+    const cadence = Float64Array.from(ride.cadence, (rpm, i) => (i === 2000 ? 255 : rpm));
+
+    const result = compareRecordings(rideStream({ power: ride.power, cadence: ride.cadence }), rideStream({ power: ride.power, cadence }), DIRECT);
+
+    expect(result.flags).toContainEqual(expect.objectContaining({ code: 'implausible_cadence', message: expect.stringMatching(/^Device B/) }));
+  });
+});

@@ -123,12 +123,13 @@ describe('synthetic pairs: what the engine recovers', () => {
     expect(result.flags.map((flag) => flag.code)).toContain('smoothing_mismatch');
   });
 
-  it('when the same file is uploaded as A and B, then identical streams are flagged', () => {
+  it('when the same file is uploaded as A and B, then identical files are flagged severe', () => {
     const { a } = pair({ a: { position: 'total' }, b: { position: 'total' } });
 
-    const result = compareFitFiles(a, a, DIRECT);
+    const result = compareFitFiles(a, a.slice(), DIRECT);
 
-    expect(result.flags.map((flag) => flag.code)).toContain('identical_streams');
+    expect(result.flags).toContainEqual(expect.objectContaining({ code: 'identical_files', severity: 'severe' }));
+    expect(result.flags.map((flag) => flag.code)).not.toContain('identical_streams');
   });
 });
 
