@@ -1,15 +1,22 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import cookieParser from 'cookie-parser';
 import express from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
+import { authApiRouter, authRouter } from './auth/auth.routes';
+import { createCsrf } from './auth/csrf';
+import { createPassport } from './auth/passport';
+import { sessionMiddleware } from './auth/session';
 import type { Config } from './config/env';
 import type { Db } from './db/knex';
+import { adminRouter } from './features/admin/admin.routes';
 import { healthRouter } from './features/health/health.routes';
+import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
 import { errorHandler, notFound } from './middleware/error-handler';
-
+import { writeLimiter } from './middleware/rate-limit';
 import type { Queue } from './jobs/queue';
 
 export interface AppDeps {
@@ -39,6 +46,18 @@ export function createApp(deps: AppDeps) {
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(express.json({ limit: '200kb' }));
   app.use(express.urlencoded({ extended: false, limit: '50kb' }));
+
+  // Sign-in: cookies → session → passport → write rate limit → CSRF check on
+  // every state-changing request (GETs and the OAuth callbacks are exempt).
+  const passport = createPassport({ config: deps.config, db });
+  const csrf = createCsrf(deps.config);
+  app.use(['/api', '/auth'], cookieParser(), sessionMiddleware({ config: deps.config, db }), passport.initialize(), passport.session());
+  app.use(['/api', '/auth'], writeLimiter(deps.config));
+  app.use(['/api', '/auth/logout'], csrf.requireCsrfToken);
+  app.use('/auth', authRouter({ config: deps.config, db, passport, csrf }));
+  app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));
+  app.use('/api/account', accountRouter({ db }));
+  app.use('/api/admin', adminRouter({ db }));
 
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);

@@ -5,12 +5,16 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { register } from 'tsx/esm/api';
 import { createDb } from '../server/db/knex';
 import { runMigrations } from '../server/db/migrate';
 import { startQueue } from '../server/jobs/queue';
 import { createLogger } from '../server/lib/logger';
 import { freePort } from '../scripts/lib/port';
 import { ensureDatabase, startCluster } from '../scripts/lib/postgres-cluster';
+
+// Knex imports the TypeScript migrations natively; teach this process to load them.
+register();
 
 export const TEMPLATE_DATABASE = 'crosswatt_template';
 

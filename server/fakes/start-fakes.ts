@@ -1,5 +1,7 @@
 import type { Db } from '../db/knex';
 import type { Logger } from '../lib/logger';
+import { ensureDemoPeople } from './demo-identities';
+import { startFakeOAuth } from './fake-oauth';
 
 export interface LocalFakes {
   /** Environment overrides that point the app at the fakes. */
@@ -9,9 +11,15 @@ export interface LocalFakes {
 
 // Starts the loopback stand-ins for hosted services (OAuth provider, SMTP) and
 // returns the settings that point the app at them. Used by npm start and tests.
-export async function startLocalFakes(_options: { db: Db; logger: Logger; host?: string }): Promise<LocalFakes> {
+export async function startLocalFakes(options: { db: Db; logger: Logger; host?: string }): Promise<LocalFakes> {
   const stops: Array<() => Promise<void>> = [];
   const env: Record<string, string> = {};
+
+  // OAuth: its page offers the demo people (demo-admin, demo-moderator, demo-rider).
+  await ensureDemoPeople(options.db);
+  const oauth = await startFakeOAuth({ db: options.db, host: options.host });
+  stops.push(oauth.stop);
+  Object.assign(env, oauth.env);
   return {
     env,
     async stop() {

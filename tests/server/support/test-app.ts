@@ -2,6 +2,7 @@ import { afterAll } from 'vitest';
 import { createApp } from '../../../server/app';
 import { type Config, loadConfig } from '../../../server/config/env';
 import { createDb, type Db } from '../../../server/db/knex';
+import { type LocalFakes, startLocalFakes } from '../../../server/fakes/start-fakes';
 import { type Queue, startQueue } from '../../../server/jobs/queue';
 import { createLogger } from '../../../server/lib/logger';
 
@@ -10,22 +11,47 @@ export interface TestContext {
   db: Db;
   config: Config;
   queue?: Queue;
+  /** With `fakes: true`: the local fake OAuth provider (and other fakes). */
+  fakes?: LocalFakes;
+}
+
+// signedInAgent(app, …) finds the database of an app made here.
+const contexts = new WeakMap<object, TestContext>();
+export function testContextOf(app: object): TestContext {
+  const context = contexts.get(app);
+  if (!context) throw new Error('This app was not made by createTestContext()');
+  return context;
 }
 
 export function testConfig(overrides: Record<string, string> = {}): Config {
-  return loadConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: process.env.DATABASE_URL, ...overrides });
+  return loadConfig({
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'silent',
+    DATABASE_URL: process.env.DATABASE_URL,
+    // Tests sign in and write far faster than people; rate-limit tests lower these.
+    RATE_LIMIT_WRITES_PER_WINDOW: '10000',
+    RATE_LIMIT_SIGNINS_PER_WINDOW: '10000',
+    ...overrides,
+  });
 }
 
 // The real app over the real database of this test file; closed after the file.
-export async function createTestContext(options: { queue?: boolean; env?: Record<string, string> } = {}): Promise<TestContext> {
-  const config = testConfig(options.env);
-  const logger = createLogger(config);
-  const db = createDb(config.DATABASE_URL);
+export async function createTestContext(
+  options: { queue?: boolean; fakes?: boolean; env?: Record<string, string> } = {},
+): Promise<TestContext> {
+  const bootConfig = testConfig(options.env);
+  const logger = createLogger(bootConfig);
+  const db = createDb(bootConfig.DATABASE_URL);
+  const fakes = options.fakes ? await startLocalFakes({ db, logger }) : undefined;
+  const config = fakes ? testConfig({ ...fakes.env, ...options.env }) : bootConfig;
   const queue = options.queue ? await startQueue(config.DATABASE_URL, logger) : undefined;
   const app = createApp({ config, db, logger, queue });
   afterAll(async () => {
     await queue?.stop({ graceful: false, wait: true });
+    await fakes?.stop();
     await db.destroy();
   });
-  return { app, db, config, queue };
+  const context = { app, db, config, queue, fakes };
+  contexts.set(app, context);
+  return context;
 }
