@@ -12,7 +12,7 @@ import { type Cluster, ClusterError, ensureDatabase, startCluster } from './lib/
 import { seedDemoIfEmpty } from './lib/demo-seed';
 
 // Captured before the Vite build, which sets NODE_ENV=production in this process.
-const env = { NODE_ENV: 'development', ...process.env };
+const env: Record<string, string | undefined> = { NODE_ENV: 'development', ...process.env };
 const port = Number(env.PORT ?? 3000);
 const pgPort = Number(env.CROSSWATT_PG_PORT ?? 54329);
 const cleanups: Array<() => unknown> = [];

@@ -1,5 +1,6 @@
 import type { Config } from '../config/env';
 import type { Db } from '../db/knex';
+import { workAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 import type { Queue } from './queue';
 
@@ -12,4 +13,6 @@ export interface WorkerDeps {
 
 // Each feature's job handlers are registered here, once, for both the in-process
 // worker and `npm run worker`.
-export async function registerWorkers(_deps: WorkerDeps): Promise<void> {}
+export async function registerWorkers({ queue, db, logger }: WorkerDeps): Promise<void> {
+  await workAnalysisQueue(queue, db, logger);
+}

@@ -1,0 +1,68 @@
+import type { Knex } from 'knex';
+import { compareRecordings } from '@shared/analysis/compare-recordings';
+import { AnalysisError } from '@shared/analysis/errors';
+import type { CompareOptions } from '@shared/analysis/types';
+import { AFTER_DRIVETRAIN_KINDS, type ModelKind } from '@shared/schemas/catalogue';
+import type { Queue } from '../../jobs/queue';
+import type { Logger } from '../../lib/logger';
+import { decodeStream } from './stream-codec';
+import * as submissions from './submissions.repository';
+
+export const ANALYSE_SUBMISSION_QUEUE = 'analyse-submission';
+/** Attempts before an unexpected error marks the submission failed. */
+export const MAX_ANALYSIS_ATTEMPTS = 3;
+
+export async function createAnalysisQueue(queue: Queue) {
+  await queue.createQueue(ANALYSE_SUBMISSION_QUEUE, {
+    name: ANALYSE_SUBMISSION_QUEUE,
+    retryLimit: MAX_ANALYSIS_ATTEMPTS,
+    retryDelay: 1,
+    retryBackoff: true,
+  });
+}
+
+export async function enqueueAnalysis(queue: Queue, submissionId: number) {
+  await queue.send(ANALYSE_SUBMISSION_QUEUE, { submissionId }, { singletonKey: String(submissionId) });
+}
+
+export async function workAnalysisQueue(queue: Queue, db: Knex, logger: Logger) {
+  await queue.work<{ submissionId: number }>(ANALYSE_SUBMISSION_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    await analyseSubmission(db, job.data.submissionId, logger);
+  });
+  // Submissions stored while no worker ran (or whose job was lost) are queued again.
+  for (const id of await submissions.findWaitingForAnalysis(db)) await enqueueAnalysis(queue, id);
+}
+
+/**
+ * Runs the engine on a stored submission. Idempotent: a submission that has
+ * moved on is left alone, and the result is stored only once. The engine's own
+ * errors are the rider's to fix and end the job; anything else is retried.
+ */
+export async function analyseSubmission(db: Knex, id: number, logger?: Logger): Promise<void> {
+  const stored = await submissions.findForAnalysis(db, id);
+  if (!stored || !['received', 'analysing'].includes(stored.status)) return;
+  const attempts = await submissions.markAnalysing(db, id);
+  if (attempts === undefined) return;
+  try {
+    const [a, b] = stored.recordings;
+    const options: CompareOptions = {
+      aPosition: a.position,
+      bPosition: b.position,
+      aAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(a.modelKind as ModelKind),
+      bAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(b.modelKind as ModelKind),
+    };
+    const result = compareRecordings(decodeStream(a.stream), decodeStream(b.stream), options);
+    await submissions.storeResult(db, id, result);
+  } catch (err) {
+    if (err instanceof AnalysisError) {
+      await submissions.markFailed(db, id, err.code, err.message);
+      return;
+    }
+    logger?.error({ err, submissionId: id, attempts }, 'analysis failed');
+    if (attempts >= MAX_ANALYSIS_ATTEMPTS) {
+      await submissions.markFailed(db, id, 'analysis_error', 'The analysis could not be completed. A moderator has been told; you do not need to upload again.');
+      return;
+    }
+    throw err;
+  }
+}

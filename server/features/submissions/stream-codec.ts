@@ -1,0 +1,36 @@
+import { gunzipSync, gzipSync } from 'node:zlib';
+import type { RideStream } from '@shared/analysis/types';
+
+// What we keep of an uploaded file: the normalised stream the engine needs, as
+// gzip'd typed arrays. Never the original file, never location.
+// Layout: u32 header length, JSON header (device, recording statistics, count),
+// then Float64 timestamps and Float32 power, cadence and balance.
+export function encodeStream(stream: RideStream): Buffer {
+  const count = stream.timestamps.length;
+  const header = Buffer.from(JSON.stringify({ v: 1, count, device: stream.device, recording: stream.recording }));
+  const body = Buffer.alloc(4 + header.length + count * (8 + 4 * 3));
+  body.writeUInt32LE(header.length, 0);
+  header.copy(body, 4);
+  let offset = 4 + header.length;
+  for (let i = 0; i < count; i++, offset += 8) body.writeDoubleLE(stream.timestamps[i], offset);
+  for (const values of [stream.powerWatts, stream.cadenceRpm, stream.rightBalancePercent]) {
+    for (let i = 0; i < count; i++, offset += 4) body.writeFloatLE(values[i], offset);
+  }
+  return gzipSync(body, { level: 6 });
+}
+
+export function decodeStream(stored: Buffer): RideStream {
+  const body = gunzipSync(stored);
+  const headerLength = body.readUInt32LE(0);
+  const header = JSON.parse(body.subarray(4, 4 + headerLength).toString('utf8'));
+  const count: number = header.count;
+  let offset = 4 + headerLength;
+  const timestamps = new Float64Array(count);
+  for (let i = 0; i < count; i++, offset += 8) timestamps[i] = body.readDoubleLE(offset);
+  const [powerWatts, cadenceRpm, rightBalancePercent] = [0, 1, 2].map(() => {
+    const values = new Float64Array(count);
+    for (let i = 0; i < count; i++, offset += 4) values[i] = body.readFloatLE(offset);
+    return values;
+  });
+  return { timestamps, powerWatts, cadenceRpm, rightBalancePercent, device: header.device, recording: header.recording };
+}

@@ -1,0 +1,209 @@
+import type { Knex } from 'knex';
+import type { ComparisonResult, QualityFlag } from '@shared/analysis/types';
+import type { RecordingTagsInput, SubmissionStatus } from '@shared/schemas/submission';
+
+export interface NewRecording {
+  side: 'a' | 'b';
+  tags: RecordingTagsInput;
+  sha256: string;
+  deviceInfo: unknown;
+  recordingStats: unknown;
+  stream: Buffer;
+}
+
+export async function findIdByFileHashes(db: Knex, aSha256: string, bSha256: string): Promise<number | undefined> {
+  const row = await db('submissions').where({ a_sha256: aSha256, b_sha256: bSha256 }).first('id');
+  return row?.id;
+}
+
+export async function insertSubmission(
+  trx: Knex.Transaction,
+  row: { riderId: number; indoor: boolean; surface: string; notes: string; aSha256: string; bSha256: string; rideStartedAt: Date; rideEndedAt: Date },
+  recordings: NewRecording[],
+): Promise<number> {
+  const [{ id }] = await trx('submissions')
+    .insert({
+      rider_id: row.riderId,
+      indoor: row.indoor,
+      surface: row.surface,
+      notes: row.notes,
+      a_sha256: row.aSha256,
+      b_sha256: row.bSha256,
+      ride_started_at: row.rideStartedAt,
+      ride_ended_at: row.rideEndedAt,
+    })
+    .returning('id');
+  await trx('submission_recordings').insert(
+    recordings.map((r) => ({
+      submission_id: id,
+      side: r.side,
+      model_id: r.tags.modelId,
+      firmware_id: r.tags.firmwareId,
+      position: r.tags.position,
+      recording_device_id: r.tags.recordingDeviceId,
+      recording_device_firmware: r.tags.recordingDeviceFirmware,
+      recording_mode: r.tags.recordingMode,
+      zero_offset: r.tags.zeroOffset,
+      other_meters_on: r.tags.otherMetersOn,
+      sha256: r.sha256,
+      device_info: JSON.stringify(r.deviceInfo),
+      recording_stats: JSON.stringify(r.recordingStats),
+      stream: r.stream,
+    })),
+  );
+  return id;
+}
+
+export interface StoredRecording {
+  side: 'a' | 'b';
+  position: 'left' | 'right' | 'dual' | 'total';
+  modelKind: string;
+  stream: Buffer;
+}
+
+export async function findForAnalysis(db: Knex, id: number) {
+  const submission = await db('submissions').where({ id }).first('id', 'status', 'attempts');
+  if (!submission) return undefined;
+  const recordings: StoredRecording[] = await db('submission_recordings as r')
+    .join('models as m', 'm.id', 'r.model_id')
+    .where('r.submission_id', id)
+    .select('r.side', 'r.position', 'm.kind as modelKind', 'r.stream')
+    .orderBy('r.side');
+  return { id: submission.id as number, status: submission.status as SubmissionStatus, attempts: submission.attempts as number, recordings };
+}
+
+/** Moves a submission into analysis; false when it is no longer waiting for it. */
+export async function markAnalysing(db: Knex, id: number): Promise<number | undefined> {
+  const [row] = await db('submissions')
+    .where({ id })
+    .whereIn('status', ['received', 'analysing'])
+    .update({ status: 'analysing', attempts: db.raw('attempts + 1'), updated_at: db.fn.now() })
+    .returning('attempts');
+  return row?.attempts;
+}
+
+const SEVERITY_RANK = { info: 1, warning: 2, severe: 3 } as const;
+
+export function flagSeverity(flags: QualityFlag[]): number {
+  return flags.reduce((max, f) => Math.max(max, SEVERITY_RANK[f.severity] ?? 0), 0);
+}
+
+/** Stores the analysis once; a second run of the same job finds nothing to update. */
+export async function storeResult(db: Knex, id: number, result: ComparisonResult): Promise<boolean> {
+  const count = await db('submissions')
+    .where({ id, status: 'analysing' })
+    .update({
+      status: 'awaiting_review',
+      method_version: result.methodVersion,
+      result: JSON.stringify(result),
+      flags: JSON.stringify(result.flags),
+      flag_severity: flagSeverity(result.flags),
+      error_code: null,
+      error_message: null,
+      bias_percent: result.bias.percent,
+      loa_lower_percent: result.agreement.lowerLimitPercent,
+      loa_upper_percent: result.agreement.upperLimitPercent,
+      sum_a: result.sums.a,
+      sum_b: result.sums.b,
+      matched_seconds: result.bias.matchedSeconds,
+      pedalling_seconds: result.pedallingSeconds,
+      overlap_seconds: result.alignment.overlapSeconds,
+      clock_offset_seconds: result.alignment.clockOffsetSeconds,
+      correlation: result.alignment.correlation,
+      cadence_lag_seconds: result.cadenceLagSeconds,
+      like_for_like_mode: result.likeForLike.mode,
+      a_power_dropouts: result.dropouts.a.power.count,
+      a_cadence_dropouts: result.dropouts.a.cadence.count,
+      b_power_dropouts: result.dropouts.b.power.count,
+      b_cadence_dropouts: result.dropouts.b.cadence.count,
+      analysed_at: db.fn.now(),
+      updated_at: db.fn.now(),
+    });
+  return count === 1;
+}
+
+export async function markFailed(db: Knex, id: number, code: string, message: string): Promise<void> {
+  await db('submissions')
+    .where({ id })
+    .whereIn('status', ['received', 'analysing'])
+    .update({ status: 'failed', error_code: code, error_message: message, updated_at: db.fn.now() });
+}
+
+export async function findWaitingForAnalysis(db: Knex): Promise<number[]> {
+  const rows = await db('submissions').whereIn('status', ['received', 'analysing']).select('id');
+  return rows.map((r) => r.id);
+}
+
+const recordingColumns = [
+  'r.side',
+  'r.position',
+  'r.recording_device_firmware as recordingDeviceFirmware',
+  'r.recording_mode as recordingMode',
+  'r.zero_offset as zeroOffset',
+  'r.other_meters_on as otherMetersOn',
+  'r.device_info as deviceInfo',
+  'r.recording_stats as recordingStats',
+  'r.model_id as modelId',
+  'm.slug as modelSlug',
+  'm.name as modelName',
+  'm.kind as modelKind',
+  'mk.id as makerId',
+  'mk.name as makerName',
+  'mk.slug as makerSlug',
+  'r.firmware_id as firmwareId',
+  'f.version as firmwareVersion',
+  'r.recording_device_id as recordingDeviceId',
+  'd.name as recordingDeviceName',
+];
+
+export async function findSubmission(db: Knex, id: number) {
+  const submission = await db('submissions as s')
+    .leftJoin('users as u', 'u.id', 's.rider_id')
+    .where('s.id', id)
+    .first(
+      's.id',
+      's.rider_id as riderId',
+      'u.handle as riderHandle',
+      'u.name as riderName',
+      's.status',
+      's.indoor',
+      's.surface',
+      's.notes',
+      's.result',
+      's.flags',
+      's.error_code as errorCode',
+      's.error_message as errorMessage',
+      's.version',
+      's.created_at as createdAt',
+      's.analysed_at as analysedAt',
+      's.ride_started_at as rideStartedAt',
+    );
+  if (!submission) return undefined;
+  const recordings = await db('submission_recordings as r')
+    .join('models as m', 'm.id', 'r.model_id')
+    .join('makers as mk', 'mk.id', 'm.maker_id')
+    .join('firmware_versions as f', 'f.id', 'r.firmware_id')
+    .join('recording_devices as d', 'd.id', 'r.recording_device_id')
+    .where('r.submission_id', id)
+    .select(recordingColumns)
+    .orderBy('r.side');
+  return { ...submission, recordings };
+}
+
+export async function listByRider(db: Knex, riderId: number) {
+  return db('submissions as s')
+    .where('s.rider_id', riderId)
+    .select(
+      's.id',
+      's.status',
+      's.created_at as createdAt',
+      's.bias_percent as biasPercent',
+      's.flags',
+      db.raw(
+        `(select json_agg(json_build_object('side', r.side, 'model', m.name, 'firmware', f.version) order by r.side)
+          from submission_recordings r join models m on m.id = r.model_id join firmware_versions f on f.id = r.firmware_id
+          where r.submission_id = s.id) as recordings`,
+      ),
+    )
+    .orderBy('s.created_at', 'desc');
+}

@@ -1,0 +1,120 @@
+import request from 'supertest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS } from '../../../server/features/submissions/analyse-submission.job';
+import { createSubmission } from '../../../server/features/submissions/submissions.service';
+import { createSubmissionInput } from '../../../shared/schemas/submission';
+import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
+import { signedInAgent, type TestAgent } from '../support/sign-in';
+import { createTestContext } from '../support/test-app';
+import { asBuffer, cleanPair } from './fit-pairs';
+
+const { app, db, queue } = await createTestContext({ fakes: true, worker: true });
+
+let catalogue: TestCatalogue;
+let rider: { agent: TestAgent; csrf: () => Promise<string>; user: { id: number } };
+
+beforeAll(async () => {
+  catalogue = await createCatalogue(db);
+  rider = await signedInAgent(app, { handle: 'job-rider' });
+});
+
+async function waitForStatus(agent: TestAgent, id: number, statuses: string[], timeoutMs = 20_000) {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const res = await agent.get(`/api/submissions/${id}`);
+    if (statuses.includes(res.body.status) || Date.now() > until) return res;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+/** Stores a submission through the service without queueing it, so a test controls the job. */
+async function storedSubmission(seed: number) {
+  const pair = cleanPair(seed);
+  const input = createSubmissionInput.parse(submissionMeta(catalogue));
+  const { id } = await createSubmission({ db }, rider.user.id, input, {
+    a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+    b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+  });
+  return { id, pair };
+}
+
+describe('the analysis job', () => {
+  it('when a rider uploads a pair, then the worker analyses it and the result recovers the injected bias', async () => {
+    const pair = cleanPair(21);
+    const upload = await rider.agent
+      .post('/api/submissions')
+      .set('X-CSRF-Token', await rider.csrf())
+      .field('meta', JSON.stringify(submissionMeta(catalogue)))
+      .attach('fileA', asBuffer(pair.a), 'a.fit')
+      .attach('fileB', asBuffer(pair.b), 'b.fit');
+    expect(upload.status).toBe(201);
+
+    const res = await waitForStatus(rider.agent, upload.body.id, ['awaiting_review', 'failed']);
+
+    expect(res.body.status).toBe('awaiting_review');
+    expect(res.body.result.methodVersion).toBe(1);
+    // Known truth from the simulator: A (spider) reads 3 % high against B (dual pedals).
+    expect(res.body.result.bias.percent).toBeCloseTo(pair.truth.biasPercent, 0);
+    expect(res.body.result.alignment.overlapSeconds).toBeGreaterThan(1000);
+    expect(res.body.recordings.map((r: { modelName: string }) => r.modelName)).toEqual(['Orbit', 'Treadle']);
+    const row = await db('submissions').where({ id: upload.body.id }).first();
+    expect(row.bias_percent).toBeCloseTo(res.body.result.bias.percent, 9);
+    expect(row.a_power_dropouts).toBe(0);
+  });
+
+  it('when the job runs twice for the same submission, then there is one result and the second run changes nothing', async () => {
+    const { id } = await storedSubmission(31);
+    await analyseSubmission(db, id);
+    const first = await db('submissions').where({ id }).first('analysed_at', 'attempts', 'result');
+
+    await analyseSubmission(db, id);
+
+    const second = await db('submissions').where({ id }).first('analysed_at', 'attempts', 'result');
+    expect(second).toEqual(first);
+    expect(first.attempts).toBe(1);
+  });
+
+  it('when the stored stream cannot be read, then the job is retried and the submission fails after the last attempt', async () => {
+    const { id } = await storedSubmission(41);
+    await db('submission_recordings').where({ submission_id: id, side: 'b' }).update({ stream: Buffer.from('not gzip') });
+
+    await enqueueAnalysis(queue!, id);
+    const res = await waitForStatus(rider.agent, id, ['failed'], 25_000);
+
+    expect(res.body.status).toBe('failed');
+    expect(res.body.errorMessage).toMatch(/could not be completed/);
+    const row = await db('submissions').where({ id }).first('attempts');
+    expect(row.attempts).toBe(MAX_ANALYSIS_ATTEMPTS);
+  });
+});
+
+describe('who sees a submission before it is accepted', () => {
+  let id: number;
+  beforeAll(async () => {
+    ({ id } = await storedSubmission(51));
+  });
+
+  it('when the rider who uploaded it asks, then it is shown with device info', async () => {
+    const res = await rider.agent.get(`/api/submissions/${id}`);
+    expect(res.status).toBe(200);
+    expect(res.body.isOwn).toBe(true);
+    expect(res.body.recordings[0].deviceInfo).toBeDefined();
+  });
+
+  it('when another rider or a visitor asks, then it is not found', async () => {
+    const other = await signedInAgent(app, { handle: 'curious-rider' });
+    expect((await other.agent.get(`/api/submissions/${id}`)).status).toBe(404);
+    expect((await request(app).get(`/api/submissions/${id}`)).status).toBe(404);
+  });
+
+  it('when a moderator asks, then it is shown', async () => {
+    const moderator = await signedInAgent(app, { handle: 'job-moderator', roles: ['moderator'] });
+    expect((await moderator.agent.get(`/api/submissions/${id}`)).status).toBe(200);
+  });
+
+  it('when the rider lists their submissions, then it is among them', async () => {
+    const res = await rider.agent.get('/api/me/submissions');
+    expect(res.status).toBe(200);
+    expect(res.body.submissions.map((s: { id: number }) => s.id)).toContain(id);
+  });
+});
