@@ -12,7 +12,9 @@ import { sessionMiddleware } from './auth/session';
 import type { Config } from './config/env';
 import type { Db } from './db/knex';
 import { adminRouter } from './features/admin/admin.routes';
+import { catalogueRouter } from './features/catalogue/catalogue.routes';
 import { healthRouter } from './features/health/health.routes';
+import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
 import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
 import { errorHandler, notFound } from './middleware/error-handler';
@@ -58,6 +60,9 @@ export function createApp(deps: AppDeps) {
   app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api/account', accountRouter({ db }));
   app.use('/api/admin', adminRouter({ db }));
+  app.use('/api/catalogue', catalogueRouter({ db }));
+  app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config }));
+  app.use('/api/me/submissions', mySubmissionsRouter({ db }));
 
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);

@@ -4,6 +4,7 @@ import { type Config, loadConfig } from '../../../server/config/env';
 import { createDb, type Db } from '../../../server/db/knex';
 import { type LocalFakes, startLocalFakes } from '../../../server/fakes/start-fakes';
 import { type Queue, startQueue } from '../../../server/jobs/queue';
+import { registerWorkers } from '../../../server/jobs/workers';
 import { createLogger } from '../../../server/lib/logger';
 
 export interface TestContext {
@@ -37,14 +38,16 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
 
 // The real app over the real database of this test file; closed after the file.
 export async function createTestContext(
-  options: { queue?: boolean; fakes?: boolean; env?: Record<string, string> } = {},
+  /** queue: a real pg-boss queue; worker: plus the job handlers, as `npm start` runs them. */
+  options: { queue?: boolean; worker?: boolean; fakes?: boolean; env?: Record<string, string> } = {},
 ): Promise<TestContext> {
   const bootConfig = testConfig(options.env);
   const logger = createLogger(bootConfig);
   const db = createDb(bootConfig.DATABASE_URL);
   const fakes = options.fakes ? await startLocalFakes({ db, logger }) : undefined;
   const config = fakes ? testConfig({ ...fakes.env, ...options.env }) : bootConfig;
-  const queue = options.queue ? await startQueue(config.DATABASE_URL, logger) : undefined;
+  const queue = options.queue || options.worker ? await startQueue(config.DATABASE_URL, logger) : undefined;
+  if (queue && options.worker) await registerWorkers({ queue, db, logger, config });
   const app = createApp({ config, db, logger, queue });
   afterAll(async () => {
     await queue?.stop({ graceful: false, wait: true });
