@@ -1,0 +1,86 @@
+// What `npm start` and `npm run dev` share: the private PostgreSQL (unless
+// DATABASE_URL is set), migrations, the local fakes, the server with its
+// in-process worker, the demo seed into an empty database, and a clean stop.
+import { ConfigError, loadConfig } from '../../server/config/env';
+import { createDb } from '../../server/db/knex';
+import { runMigrations } from '../../server/db/migrate';
+import { startLocalFakes } from '../../server/fakes/start-fakes';
+import { createLogger } from '../../server/lib/logger';
+import { startServer } from '../../server/start-server';
+import { seedDemoIfEmpty } from './demo-seed';
+import { portIsFree } from './port';
+import { type Cluster, ClusterError, ensureDatabase, startCluster } from './postgres-cluster';
+
+export interface RunOptions {
+  /** Runs after the database is ready and before the server starts (the client build). */
+  beforeServer?: () => Promise<unknown>;
+  /** Runs once everything is up; may return its own cleanup (the Vite dev server). */
+  afterStart?: (apiUrl: string) => Promise<(() => unknown) | void>;
+  /** The address people open, when it is not the API server's own (Vite in dev). */
+  publicUrl?: string;
+}
+
+// Captured at start: a Vite build later sets NODE_ENV=production in this process.
+const env: Record<string, string | undefined> = { NODE_ENV: 'development', ...process.env };
+
+export function runCrosswatt(options: RunOptions = {}) {
+  const port = Number(env.PORT ?? 3000);
+  const pgPort = Number(env.CROSSWATT_PG_PORT ?? 54329);
+  const cleanups: Array<() => unknown> = [];
+  let stopping = false;
+
+  async function shutdown(code: number) {
+    if (stopping) return;
+    stopping = true;
+    for (const cleanup of cleanups.reverse()) {
+      try {
+        await cleanup();
+      } catch (err) {
+        console.error(err);
+      }
+    }
+    process.exit(code);
+  }
+  process.once('SIGINT', () => void shutdown(0));
+  process.once('SIGTERM', () => void shutdown(0));
+
+  async function main() {
+    if (!(await portIsFree(port))) {
+      throw new ClusterError(`Port ${port} is busy: is Crosswatt already running? Stop it, or set PORT to another port.`);
+    }
+    let databaseUrl = env.DATABASE_URL;
+    if (!databaseUrl) {
+      const cluster: Cluster = startCluster({ dataDir: '.data/postgres', port: pgPort });
+      cleanups.push(() => cluster.stop());
+      await ensureDatabase(cluster.urlFor('postgres'), 'crosswatt');
+      databaseUrl = cluster.urlFor('crosswatt');
+      console.log(`PostgreSQL is running on 127.0.0.1:${pgPort} (data in .data/postgres)`);
+    }
+    const logger = createLogger({ LOG_LEVEL: (env.LOG_LEVEL as 'info') ?? 'warn' });
+    const db = createDb(databaseUrl);
+    cleanups.push(() => db.destroy());
+    await runMigrations(db);
+    const fakes = await startLocalFakes({ db, logger });
+    cleanups.push(() => fakes.stop());
+    await options.beforeServer?.();
+    const config = loadConfig({
+      LOG_LEVEL: 'warn',
+      ...env,
+      PORT: String(port),
+      DATABASE_URL: databaseUrl,
+      ...(options.publicUrl && { PUBLIC_URL: options.publicUrl }),
+      ...fakes.env,
+    });
+    const running = await startServer(config);
+    cleanups.push(() => running.close());
+    await seedDemoIfEmpty({ db, config, log: console.log });
+    const stopAfter = await options.afterStart?.(running.url);
+    if (stopAfter) cleanups.push(stopAfter);
+    console.log(`\nCrosswatt is running at ${options.publicUrl ?? running.url}  (Ctrl-C to stop)`);
+  }
+
+  main().catch((err) => {
+    console.error(err instanceof ClusterError || err instanceof ConfigError ? err.message : err);
+    void shutdown(1);
+  });
+}
