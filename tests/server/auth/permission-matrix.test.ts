@@ -1,0 +1,145 @@
+import type { Express } from 'express';
+import request from 'supertest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { ensureUser } from '../../../server/features/users/users.service';
+import { signedInAgent } from '../support/sign-in';
+import { createTestContext } from '../support/test-app';
+
+// Every state-changing route of the app × every kind of person → the expected
+// answer. The routes come from the app's own route table, so a new write route
+// that is missing here fails the first test: add it to `rules` below with who
+// may use it. "Allowed" means the request gets past the guards (any status but
+// 401/403, e.g. 400 for the deliberately thin bodies); everyone else gets 401
+// (visitors) or 403 (signed in, wrong role).
+
+type Person = 'anonymous' | 'rider' | 'moderator' | 'makerStaff' | 'admin';
+const PEOPLE: Person[] = ['anonymous', 'rider', 'moderator', 'makerStaff', 'admin'];
+const EVERYONE: Person[] = PEOPLE;
+const SIGNED_IN: Person[] = ['rider', 'moderator', 'makerStaff', 'admin'];
+const ADMINS: Person[] = ['admin'];
+
+interface Fixture {
+  targetUserId: number;
+  makerId: number;
+}
+
+interface Rule {
+  allowed: Person[];
+  /** The address to call, when the route has parameters. */
+  path?: (f: Fixture) => string;
+  body?: (f: Fixture) => object;
+}
+
+const rules: Record<string, Rule> = {
+  // sign-in and account (issue 4)
+  'POST /auth/logout': { allowed: EVERYONE },
+  'PATCH /api/account': { allowed: SIGNED_IN, body: () => ({ notificationPrefs: { emailOnReply: true } }) },
+  // A wrong confirmation: passes the guard, deletes nothing.
+  'POST /api/account/deletion': { allowed: SIGNED_IN, body: () => ({ confirmHandle: 'someone-else' }) },
+  // admin (issue 4)
+  'POST /api/admin/users/:userId/roles': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/roles`, body: () => ({ role: 'moderator' }) },
+  'DELETE /api/admin/users/:userId/roles/:role': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/roles/moderator` },
+  'PUT /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff`, body: (f) => ({ makerId: f.makerId }) },
+  'DELETE /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff` },
+  // catalogue
+  'POST /api/catalogue/proposals': { allowed: SIGNED_IN, body: () => ({}) },
+  // submissions
+  'POST /api/submissions': { allowed: SIGNED_IN, body: () => ({}) },
+};
+
+const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;
+
+interface Layer {
+  rawPath?: string | string[];
+  route?: { path: string; methods: Record<string, boolean> };
+  handle?: { stack?: Layer[] };
+}
+
+/** "METHOD /path" for every state-changing route, read from Express 5's router stack. */
+function writeRoutes(app: Express): string[] {
+  const found: string[] = [];
+  const walk = (stack: Layer[], prefix: string) => {
+    for (const layer of stack) {
+      const paths = Array.isArray(layer.rawPath) ? layer.rawPath : [layer.rawPath ?? ''];
+      for (const path of paths) {
+        if (layer.route) {
+          const full = `${prefix}${layer.route.path}`.replace(/(.)\/$/, '$1');
+          for (const method of WRITE_METHODS) if (layer.route.methods[method]) found.push(`${method.toUpperCase()} ${full}`);
+        } else if (layer.handle?.stack) {
+          walk(layer.handle.stack, `${prefix}${path === '/' ? '' : path}`);
+        }
+      }
+    }
+  };
+  walk((app as unknown as { router: { stack: Layer[] } }).router.stack, '');
+  return [...new Set(found)].sort();
+}
+
+const { app, db } = await createTestContext({ fakes: true });
+const routes = writeRoutes(app);
+
+describe('the permission matrix', () => {
+  const fixture = {} as Fixture;
+  beforeAll(async () => {
+    const target = await ensureUser(db, { handle: 'matrix-target', name: 'Matrix Target' });
+    const staff = await ensureUser(db, { handle: 'matrix-staff', name: 'Matrix Staff', makerSlug: 'matrix-cranks' });
+    fixture.targetUserId = target.id;
+    fixture.makerId = staff.makerIds[0]!;
+  });
+
+  async function agentFor(person: Person) {
+    if (person === 'anonymous') {
+      const agent = request.agent(app);
+      const token = (await agent.get('/api/csrf-token')).body.token as string;
+      return { agent, token };
+    }
+    const roles = person === 'moderator' || person === 'admin' ? [person] : [];
+    const { agent, csrf } = await signedInAgent(app, {
+      handle: `matrix-${person.toLowerCase()}`,
+      roles,
+      makerSlug: person === 'makerStaff' ? 'matrix-cranks' : undefined,
+    });
+    return { agent, token: await csrf() };
+  }
+
+  it('when the app is built, then every state-changing route has a rule in this table', () => {
+    const missing = routes.filter((route) => !rules[route]);
+
+    expect(routes.length).toBeGreaterThan(0);
+    expect(missing, 'add these routes to `rules` in tests/server/auth/permission-matrix.test.ts').toEqual([]);
+  });
+
+  for (const route of routes) {
+    const [method, pattern] = route.split(' ') as [string, string];
+    const rule = rules[route];
+    if (!rule) continue;
+
+    it(`when ${route} comes without a CSRF token, then it is refused with 403 csrf_invalid`, async () => {
+      const path = rule.path?.(fixture) ?? pattern;
+
+      const res = await request(app)[method.toLowerCase() as 'post'](path).send(rule.body?.(fixture) ?? {});
+
+      expect(res.status).toBe(403);
+      expect(res.body.error.code).toBe('csrf_invalid');
+    });
+
+    for (const person of PEOPLE) {
+      const allowed = rule.allowed.includes(person);
+      const expected = allowed ? 'passes the checks' : person === 'anonymous' ? 401 : 403;
+      it(`when ${person} calls ${route}, then it ${allowed ? 'passes the checks' : `is refused with ${expected}`}`, async () => {
+        const { agent, token } = await agentFor(person);
+        const path = rule.path?.(fixture) ?? pattern;
+
+        const res = await agent[method.toLowerCase() as 'post'](path).set('X-CSRF-Token', token).send(rule.body?.(fixture) ?? {});
+
+        if (allowed) {
+          expect([401, 403], `${res.status} ${JSON.stringify(res.body)}`).not.toContain(res.status);
+          expect(res.status).toBeLessThan(500);
+        } else {
+          expect(res.status).toBe(expected);
+          expect(res.body.error.message).toMatch(/\w+/);
+        }
+      });
+    }
+  }
+});
