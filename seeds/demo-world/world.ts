@@ -200,7 +200,7 @@ export const RECORDING_DEVICES: WorldRecordingDevice[] = [
   { name: 'Ombra Ledger', kind: 'head_unit', smoothingSeconds: 1, changeOnlyShare: 0, powerDropoutFactor: 2.2, firmware: '1.9' },
   { name: 'Lantern Bar Computer', kind: 'head_unit', smoothingSeconds: 3, changeOnlyShare: 0, powerDropoutFactor: 1, firmware: '5.0' },
   { name: 'Nimbus Wristlet', kind: 'watch', smoothingSeconds: 1, changeOnlyShare: 0.9, powerDropoutFactor: 1.2, firmware: '22.1' },
-  { name: 'Tallyho Ride', kind: 'app', smoothingSeconds: 3, changeOnlyShare: 0.6, powerDropoutFactor: 1, firmware: '4.12' },
+  { name: 'Tallyho Ride', kind: 'app', smoothingSeconds: 2, changeOnlyShare: 0.6, powerDropoutFactor: 1, firmware: '4.12' },
   { name: 'Quern Studio', kind: 'app', smoothingSeconds: 1, changeOnlyShare: 0, powerDropoutFactor: 1, firmware: '2.3' },
 ];
 

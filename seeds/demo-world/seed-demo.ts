@@ -1,0 +1,177 @@
+// Builds the demo world through the real pipeline: the catalogue through its
+// repository, the people through the users service (each one able to sign in on
+// the fake provider), every planned ride simulated into two FIT files, uploaded
+// with createSubmission and analysed by the job's own handler, then decided.
+import type { Knex } from 'knex';
+import { createSubmissionInput, type CreateSubmissionInput } from '@shared/schemas/submission';
+import { slugify, versionOrder } from '@shared/schemas/catalogue';
+import { simulatePair } from '@shared/simulator/pair';
+import { insertFirmware, insertMaker, insertModel, insertRecordingDevice } from '@server/features/catalogue/catalogue.repository';
+import { createSubmission } from '@server/features/submissions/submissions.service';
+import { analyseSubmission } from '@server/features/submissions/analyse-submission.job';
+import { ensureDemoIdentity } from '@server/fakes/demo-identities';
+import { planDemoWorld, type Outcome, type PlannedSide, type PlannedSubmission } from './plan';
+import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from './world';
+
+export interface SeedDemoOptions {
+  db: Knex;
+  /** Unix seconds the ride dates count back from; default now. */
+  now?: number;
+  seed?: number;
+  /** 1 = the full demo; tests use a small fraction. */
+  scale?: number;
+  log?: (line: string) => void;
+}
+
+export interface SeedDemoReport {
+  seeded: boolean;
+  seconds: number;
+  plan: PlannedSubmission[];
+  /** Submission id per planned index. */
+  submissionIds: number[];
+  analysed: number;
+  failed: number;
+  decided: number;
+}
+
+interface CatalogueIds {
+  models: Map<string, number>;
+  firmware: Map<string, number>;
+  devices: Map<string, number>;
+}
+
+const DAY_MS = 86_400_000;
+const PROGRESS_EVERY = 50;
+
+/**
+ * Seeds the demo world unless the database already has makers. Everything happens
+ * in one transaction, so an interrupted seed leaves nothing and runs again next time.
+ */
+export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoReport> {
+  const started = performance.now();
+  const log = options.log ?? (() => {});
+  const now = options.now ?? Math.floor(Date.now() / 1000);
+  const plan = planDemoWorld({ now, seed: options.seed, scale: options.scale });
+  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0 };
+  if (await options.db('makers').first('id')) {
+    log('Demo world: the database already has makers, so it is left as it is.');
+    return report;
+  }
+
+  await options.db.transaction(async (trx) => {
+    log(`Demo world: building ${MAKERS.length} makers, ${MODELS.length} models and ${plan.length} submissions through the real pipeline…`);
+    const ids = await createCatalogue(trx, now);
+    const people = await createPeople(trx);
+    for (const planned of plan) {
+      const id = await uploadAndAnalyse(trx, planned, ids, people.get(planned.rider)!);
+      report.submissionIds.push(id);
+      const { status } = await trx('submissions').where({ id }).first('status');
+      if (status === 'failed') report.failed += 1;
+      else report.analysed += 1;
+      if ((planned.index + 1) % PROGRESS_EVERY === 0) log(`  ${planned.index + 1}/${plan.length} submissions analysed`);
+    }
+    report.decided = await applyModerationDecisions(
+      trx,
+      plan.map((planned, i) => ({ submissionId: report.submissionIds[i], outcome: planned.outcome })),
+      people,
+    );
+  });
+  report.seeded = true;
+  report.seconds = (performance.now() - started) / 1000;
+  log(
+    `Demo world ready in ${report.seconds.toFixed(1)} s: ${report.analysed} submissions analysed` +
+      (report.failed ? `, ${report.failed} failed` : '') +
+      `, ${report.decided} decided.`,
+  );
+  return report;
+}
+
+async function createCatalogue(db: Knex, now: number): Promise<CatalogueIds> {
+  const makerIds = new Map<string, number>();
+  for (const maker of MAKERS) makerIds.set(maker.slug, (await insertMaker(db, { ...maker, status: 'approved' })).id);
+  const ids: CatalogueIds = { models: new Map(), firmware: new Map(), devices: new Map() };
+  for (const model of MODELS) {
+    const { id } = await insertModel(db, {
+      makerId: makerIds.get(model.maker)!,
+      slug: slugify(model.name),
+      name: model.name,
+      position: model.position,
+      kind: model.kind,
+      status: 'approved',
+    });
+    ids.models.set(model.name, id);
+    for (const firmware of model.firmware) {
+      const row = await insertFirmware(db, {
+        modelId: id,
+        version: firmware.version,
+        versionOrder: versionOrder(firmware.version),
+        releasedOn: new Date(now * 1000 - firmware.releasedDaysAgo * DAY_MS).toISOString().slice(0, 10),
+        beta: firmware.beta ?? false,
+        status: 'approved',
+      });
+      ids.firmware.set(`${model.name}@${firmware.version}`, row.id);
+    }
+  }
+  for (const device of RECORDING_DEVICES) {
+    ids.devices.set(device.name, (await insertRecordingDevice(db, { slug: slugify(device.name), name: device.name, kind: device.kind, status: 'approved' })).id);
+  }
+  return ids;
+}
+
+/** Every demo person, by handle, as a user id; each can sign in on the fake provider. */
+async function createPeople(db: Knex): Promise<Map<string, number>> {
+  const ids = new Map<string, number>();
+  for (const person of [...STAFF, ...RIDERS]) {
+    const user = await ensureDemoIdentity(db, { handle: person.handle, name: person.name, roles: person.roles, makerSlug: person.makerSlug });
+    ids.set(person.handle, user.id);
+  }
+  return ids;
+}
+
+function tagsOf(side: PlannedSide, ids: CatalogueIds) {
+  const model = MODELS.find((m) => m.name === side.model)!;
+  const device = RECORDING_DEVICES.find((d) => d.name === side.device)!;
+  return {
+    modelId: ids.models.get(side.model)!,
+    firmwareId: ids.firmware.get(`${side.model}@${side.firmware}`)!,
+    position: model.position,
+    recordingDeviceId: ids.devices.get(side.device)!,
+    recordingDeviceFirmware: device.firmware,
+    recordingMode: side.recordingMode,
+    zeroOffset: side.zeroOffset,
+    otherMetersOn: side.otherMetersOn,
+  };
+}
+
+async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: CatalogueIds, riderId: number): Promise<number> {
+  const pair = simulatePair(planned.simulation);
+  const b = planned.otherRideSeed === undefined ? pair.b : simulatePair({ ...planned.simulation, seed: planned.otherRideSeed }).b;
+  const input: CreateSubmissionInput = createSubmissionInput.parse({
+    a: tagsOf(planned.a, ids),
+    b: tagsOf(planned.b, ids),
+    indoor: planned.indoor,
+    surface: planned.surface,
+    notes: planned.notes,
+  });
+  const name = `ride-${planned.index + 1}`;
+  const { id } = await createSubmission({ db }, riderId, input, {
+    a: { buffer: Buffer.from(pair.a), originalName: `${name}-a.fit` },
+    b: { buffer: Buffer.from(b), originalName: `${name}-b.fit` },
+  });
+  await analyseSubmission(db, id);
+  return id;
+}
+
+/**
+ * The moderators' planned decisions. The moderation service (issue 7:
+ * server/features/moderation/moderation.service.ts, decideSubmission) has not
+ * landed yet, so nothing is decided and every submission stays awaiting review.
+ * Once it exists, call it here for each accept and reject; returns how many were decided.
+ */
+async function applyModerationDecisions(
+  _db: Knex,
+  _decisions: Array<{ submissionId: number; outcome: Outcome }>,
+  _people: Map<string, number>,
+): Promise<number> {
+  return 0;
+}

@@ -1,0 +1,107 @@
+import request from 'supertest';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { seedDemoWorld, type SeedDemoReport } from '../../../seeds/demo-world/seed-demo';
+import { injectedTruth } from '../../../seeds/demo-world/truth';
+import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from '../../../seeds/demo-world/world';
+import { signInThroughFakeProvider } from '../support/sign-in';
+import { createTestContext } from '../support/test-app';
+
+const { app, db } = await createTestContext({ fakes: true });
+
+// A small world (about 20 submissions) at a fixed date, so the test is quick and repeatable.
+const NOW = Date.UTC(2026, 10, 15, 12) / 1000;
+const SMALL = { db, now: NOW, scale: 0.03 };
+/** A like-for-like ride of 25–75 min recovers the meters' injected gain ratio this closely (measured worst: 0.64 % over the full demo). */
+const BIAS_TOLERANCE_PERCENT = 1;
+
+let report: SeedDemoReport;
+beforeAll(async () => {
+  report = await seedDemoWorld(SMALL);
+}, 120_000);
+
+const countRows = async (table: string) => Number((await db(table).count({ n: '*' }).first())!.n);
+
+describe('seeding the demo world', () => {
+  it('when the database is empty, then the whole fictional catalogue is created and approved', async () => {
+    const res = await request(app).get('/api/catalogue');
+
+    expect(res.status).toBe(200);
+    expect(res.body.makers.map((m: { name: string }) => m.name).sort()).toEqual(MAKERS.map((m) => m.name).sort());
+    expect(res.body.models).toHaveLength(MODELS.length);
+    expect(res.body.firmware).toHaveLength(MODELS.reduce((n, m) => n + m.firmware.length, 0));
+    expect(res.body.recordingDevices).toHaveLength(RECORDING_DEVICES.length);
+    const marrow = res.body.models.find((m: { name: string }) => m.name === 'Marrow Spider');
+    expect(marrow).toMatchObject({ position: 'total', kind: 'spider', status: 'approved' });
+  });
+
+  it('when the demo people exist, then they have their roles and maker staff can sign in on the fake provider', async () => {
+    const roles = await db('role_grants').join('users', 'users.id', 'role_grants.user_id').select('users.handle', 'role_grants.role');
+    const holders = (role: string) => roles.filter((r) => r.role === role).map((r) => r.handle);
+    expect(holders('admin')).toContain('demo-admin');
+    expect(holders('moderator')).toEqual(expect.arrayContaining(['demo-moderator', 'demo-moderator-odile', 'demo-moderator-kasim']));
+    expect(holders('rider')).toEqual(expect.arrayContaining(RIDERS.map((r) => r.handle)));
+    expect(RIDERS.length).toBeGreaterThanOrEqual(44);
+
+    const agent = request.agent(app);
+    await signInThroughFakeProvider(agent, 'demo-staff-sorrel-labs');
+    const me = await agent.get('/api/me');
+
+    expect(me.body.handle).toBe('demo-staff-sorrel-labs');
+    expect(me.body.makers.map((m: { slug: string }) => m.slug)).toEqual(['sorrel-labs']);
+    expect(STAFF.filter((p) => p.makerSlug).length).toBeGreaterThanOrEqual(3);
+  });
+
+  it('when the rides are uploaded, then every one is analysed by the real job and waits for review', async () => {
+    const statuses = await db('submissions').select('status').whereIn('id', report.submissionIds);
+
+    expect(report.seeded).toBe(true);
+    expect(report.plan.length).toBeGreaterThanOrEqual(12);
+    expect(report.failed).toBe(0);
+    // Nothing is decided until the moderation service exists.
+    expect(statuses.every((s) => s.status === 'awaiting_review')).toBe(true);
+  });
+
+  it("when a like-for-like ride is analysed, then its measured bias is within tolerance of the meters' injected gains", async () => {
+    const clean = report.plan.filter((p) => !p.flaw);
+    const rows = await db('submissions').select('id', 'bias_percent', 'like_for_like_mode').whereIn('id', clean.map((p) => report.submissionIds[p.index]));
+    const byId = new Map(rows.map((row) => [row.id, row]));
+
+    for (const planned of clean) {
+      const row = byId.get(report.submissionIds[planned.index])!;
+      const injected = 100 * (planned.a.gain / planned.b.gain - 1);
+      expect(row.like_for_like_mode).not.toBe('mixed');
+      expect(Math.abs(row.bias_percent - injected), `ride ${planned.index}: ${planned.a.model} vs ${planned.b.model}`).toBeLessThan(BIAS_TOLERANCE_PERCENT);
+    }
+  });
+
+  it('when a ride is flawed on purpose, then the engine raises the flag a moderator should see', async () => {
+    const expectedFlag = { other_ride: 'low_correlation', uncalibrated: 'large_bias', mixed: 'mixed_comparison', short: 'short_overlap' } as const;
+    const flawed = report.plan.filter((p) => p.flaw && p.flaw in expectedFlag);
+    expect(flawed.length).toBeGreaterThanOrEqual(4);
+
+    for (const planned of flawed) {
+      const row = await db('submissions').where({ id: report.submissionIds[planned.index] }).first('flags');
+      expect(row.flags.map((f: { code: string }) => f.code)).toContain(expectedFlag[planned.flaw as keyof typeof expectedFlag]);
+    }
+  });
+
+  it('when the truth is asked for, then every model and firmware has one entry and the stories are in it', () => {
+    const truth = injectedTruth(report.plan);
+    const of = (model: string, firmware: string) => truth.find((t) => t.model === model && t.firmware === firmware)!;
+
+    expect(truth).toHaveLength(MODELS.reduce((n, m) => n + m.firmware.length, 0));
+    expect(of('Marrow Spider', '2.1').biasPercent - of('Marrow Spider', '2.0').biasPercent).toBeCloseTo(2, 5);
+    expect(of('Larkspur Duo', '1.1').cadenceDropoutsPerHour === null || of('Larkspur Duo', '1.1').cadenceDropoutsPerHour! > 2).toBe(true);
+    expect(of('Drumlin Trainer', '5.2').measuredBiasPercent).toBeCloseTo(100 * ((1 - 0.006) * (1 - 0.021) - 1), 5);
+  });
+
+  it('when the seed runs a second time, then nothing changes', async () => {
+    const tables = ['makers', 'models', 'firmware_versions', 'recording_devices', 'users', 'role_grants', 'maker_staff', 'submissions', 'submission_recordings'];
+    const before = await Promise.all(tables.map(countRows));
+
+    const again = await seedDemoWorld(SMALL);
+
+    expect(again.seeded).toBe(false);
+    expect(await Promise.all(tables.map(countRows))).toEqual(before);
+  });
+});
