@@ -1,0 +1,279 @@
+import type { Knex } from 'knex';
+import {
+  contributionsOf,
+  emptySums,
+  STATISTICS_SUM_COLUMNS,
+  type RecordingRow,
+  type SideContribution,
+  type StatisticsSums,
+  type SubmissionRow,
+} from './contributions';
+import { medianOfHistogram } from './cadence-median';
+
+// Keeps the per-scope sufficient statistics (meter_statistics and its companion
+// tables; see the migration 20261201003000) in step with moderation decisions.
+// A scope is a model + firmware, or a model over all firmware (firmware_id null).
+
+interface Scope {
+  modelId: number;
+  firmwareId: number | null;
+}
+
+interface Deltas {
+  stats: Map<string, Scope & { sums: StatisticsSums }>;
+  riders: Map<string, Scope & { riderId: number; count: number }>;
+  lags: Map<string, Scope & { lagSeconds: number; count: number }>;
+  tags: Map<string, Scope & { tag: string; value: string; submissionCount: number; pedallingHours: number; powerDropouts: number; cadenceDropouts: number }>;
+  likeForLike: boolean;
+}
+
+const scopeKey = ({ modelId, firmwareId }: Scope) => `${modelId}:${firmwareId ?? '*'}`;
+
+function emptyDeltas(): Deltas {
+  return { stats: new Map(), riders: new Map(), lags: new Map(), tags: new Map(), likeForLike: false };
+}
+
+function accumulate(deltas: Deltas, contributions: SideContribution[], sign: 1 | -1): void {
+  for (const contribution of contributions) {
+    if (contribution.sums.like_for_like_count > 0) deltas.likeForLike = true;
+    for (const scope of [
+      { modelId: contribution.modelId, firmwareId: contribution.firmwareId },
+      { modelId: contribution.modelId, firmwareId: null },
+    ]) {
+      const key = scopeKey(scope);
+      const stats = deltas.stats.get(key) ?? { ...scope, sums: emptySums() };
+      for (const column of STATISTICS_SUM_COLUMNS) stats.sums[column] += sign * contribution.sums[column];
+      deltas.stats.set(key, stats);
+
+      if (contribution.riderId !== null) {
+        const riderKey = `${key}:${contribution.riderId}`;
+        const rider = deltas.riders.get(riderKey) ?? { ...scope, riderId: contribution.riderId, count: 0 };
+        rider.count += sign;
+        deltas.riders.set(riderKey, rider);
+      }
+      if (contribution.cadenceLagSeconds !== null) {
+        const lagKey = `${key}:${contribution.cadenceLagSeconds}`;
+        const lag = deltas.lags.get(lagKey) ?? { ...scope, lagSeconds: contribution.cadenceLagSeconds, count: 0 };
+        lag.count += sign;
+        deltas.lags.set(lagKey, lag);
+      }
+      for (const { tag, value } of contribution.tags) {
+        const tagKey = `${key}:${tag}:${value}`;
+        const row = deltas.tags.get(tagKey) ?? { ...scope, tag, value, submissionCount: 0, pedallingHours: 0, powerDropouts: 0, cadenceDropouts: 0 };
+        row.submissionCount += sign;
+        row.pedallingHours += sign * contribution.sums.pedalling_hours;
+        row.powerDropouts += sign * contribution.sums.power_dropouts;
+        row.cadenceDropouts += sign * contribution.sums.cadence_dropouts;
+        deltas.tags.set(tagKey, row);
+      }
+    }
+  }
+}
+
+const SUBMISSION_COLUMNS = [
+  's.id',
+  's.rider_id',
+  's.indoor',
+  's.surface',
+  's.bias_percent',
+  's.sum_a',
+  's.sum_b',
+  's.pedalling_seconds',
+  's.cadence_lag_seconds',
+  's.like_for_like_mode',
+  's.a_power_dropouts',
+  's.a_cadence_dropouts',
+  's.b_power_dropouts',
+  's.b_cadence_dropouts',
+];
+
+function selectSubmissions(db: Knex) {
+  return db('submissions as s').select(
+    ...SUBMISSION_COLUMNS,
+    db.raw(`(s.result->'agreement'->>'blockCount')::int as agreement_block_count`),
+    db.raw(`(s.result->'agreement'->>'meanDifferencePercent')::float8 as agreement_mean_difference_percent`),
+    db.raw(`(s.result->'agreement'->>'sdPercent')::float8 as agreement_sd_percent`),
+    db.raw(`s.result->'peaks'->'sprints' as sprints`),
+  );
+}
+
+type DeltaRow<K extends keyof Deltas> = Deltas[K] extends Map<string, infer V> ? V : never;
+
+const riderRow = (r: DeltaRow<'riders'>) => ({ model_id: r.modelId, firmware_id: r.firmwareId, rider_id: r.riderId, contribution_count: r.count });
+const lagRow = (l: DeltaRow<'lags'>) => ({ model_id: l.modelId, firmware_id: l.firmwareId, lag_seconds: l.lagSeconds, submission_count: l.count });
+const tagRow = (t: DeltaRow<'tags'>) => ({
+  model_id: t.modelId,
+  firmware_id: t.firmwareId,
+  tag: t.tag,
+  value: t.value,
+  submission_count: t.submissionCount,
+  pedalling_hours: t.pedallingHours,
+  power_dropouts: t.powerDropouts,
+  cadence_dropouts: t.cadenceDropouts,
+});
+
+const RECORDING_COLUMNS = ['submission_id', 'side', 'model_id', 'firmware_id', 'recording_device_id', 'recording_mode', 'other_meters_on'];
+
+/**
+ * Adds an accepted submission to the statistics, or removes one that is no longer
+ * accepted. Call it inside the moderation decision's transaction, after the status
+ * change, exactly once per change of accepted-ness.
+ */
+export async function updateAggregatesForSubmission(trx: Knex.Transaction, submissionId: number, change: 'add' | 'remove'): Promise<void> {
+  const submission: SubmissionRow | undefined = await selectSubmissions(trx).where('s.id', submissionId).first();
+  if (!submission) throw new Error(`submission ${submissionId} does not exist`);
+  const recordings: RecordingRow[] = await trx('submission_recordings').where({ submission_id: submissionId }).select(RECORDING_COLUMNS);
+  const deltas = emptyDeltas();
+  accumulate(deltas, contributionsOf(submission, recordings), change === 'add' ? 1 : -1);
+  await applyDeltas(trx, deltas);
+}
+
+async function applyDeltas(trx: Knex.Transaction, deltas: Deltas): Promise<void> {
+  if (deltas.stats.size === 0) return;
+
+  // Riders first: a scope's distinct-rider count changes when a rider's count leaves or reaches zero.
+  const riderChange = new Map<string, number>();
+  if (deltas.riders.size > 0) {
+    const riders = [...deltas.riders.values()];
+    const returned: { model_id: number; firmware_id: number | null; rider_id: number; contribution_count: number }[] = await trx(
+      'meter_statistics_riders',
+    )
+      .insert(riders.map(riderRow))
+      .onConflict(['model_id', 'firmware_id', 'rider_id'])
+      .merge({ contribution_count: trx.raw('meter_statistics_riders.contribution_count + excluded.contribution_count') })
+      .returning(['model_id', 'firmware_id', 'rider_id', 'contribution_count']);
+    for (const row of returned) {
+      const key = scopeKey({ modelId: row.model_id, firmwareId: row.firmware_id });
+      const delta = deltas.riders.get(`${key}:${row.rider_id}`)!.count;
+      const before = row.contribution_count - delta;
+      const change = before <= 0 && row.contribution_count > 0 ? 1 : before > 0 && row.contribution_count <= 0 ? -1 : 0;
+      riderChange.set(key, (riderChange.get(key) ?? 0) + change);
+    }
+  }
+
+  if (deltas.lags.size > 0) {
+    await trx('cadence_lag_counts')
+      .insert([...deltas.lags.values()].map(lagRow))
+      .onConflict(['model_id', 'firmware_id', 'lag_seconds'])
+      .merge({ submission_count: trx.raw('cadence_lag_counts.submission_count + excluded.submission_count') });
+  }
+
+  await trx('dropout_tag_statistics')
+    .insert(
+      [...deltas.tags.values()].map(tagRow),
+    )
+    .onConflict(['model_id', 'firmware_id', 'tag', 'value'])
+    .merge(
+      Object.fromEntries(
+        ['submission_count', 'pedalling_hours', 'power_dropouts', 'cadence_dropouts'].map((c) => [c, trx.raw(`dropout_tag_statistics.${c} + excluded.${c}`)]),
+      ),
+    );
+
+  const statsRows = [...deltas.stats.entries()].map(([key, s]) => ({
+    model_id: s.modelId,
+    firmware_id: s.firmwareId,
+    distinct_riders: riderChange.get(key) ?? 0,
+    ...s.sums,
+  }));
+  await trx('meter_statistics')
+    .insert(statsRows)
+    .onConflict(['model_id', 'firmware_id'])
+    .merge({
+      ...Object.fromEntries(
+        ['distinct_riders', ...STATISTICS_SUM_COLUMNS].map((c) => [c, trx.raw(`meter_statistics.${c} + excluded.${c}`)]),
+      ),
+      updated_at: trx.fn.now(),
+    });
+
+  // A removal can empty a scope: drop its rows so that they look as a recompute leaves them.
+  const modelIds = [...new Set([...deltas.stats.values()].map((s) => s.modelId))];
+  await trx('meter_statistics_riders').whereIn('model_id', modelIds).where('contribution_count', '<=', 0).delete();
+  await trx('cadence_lag_counts').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+  await trx('dropout_tag_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+  await trx('meter_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+
+  if (deltas.lags.size > 0) await refreshCadenceMedians(trx, [...deltas.stats.values()]);
+  if (deltas.likeForLike) await trx('statistics_state').where({ id: 1 }).update({ consensus_stale: true });
+}
+
+async function refreshCadenceMedians(trx: Knex.Transaction, scopes: Scope[]): Promise<void> {
+  const modelIds = [...new Set(scopes.map((s) => s.modelId))];
+  const counts: { model_id: number; firmware_id: number | null; lag_seconds: number; submission_count: number }[] = await trx('cadence_lag_counts')
+    .whereIn('model_id', modelIds)
+    .select('model_id', 'firmware_id', 'lag_seconds', 'submission_count');
+  for (const scope of scopes) {
+    const histogram = counts
+      .filter((c) => c.model_id === scope.modelId && c.firmware_id === scope.firmwareId)
+      .map((c) => ({ value: c.lag_seconds, count: c.submission_count }));
+    await trx('meter_statistics')
+      .where({ model_id: scope.modelId })
+      .andWhere((q) => (scope.firmwareId === null ? q.whereNull('firmware_id') : q.where('firmware_id', scope.firmwareId)))
+      .update({ median_cadence_lag_seconds: medianOfHistogram(histogram) });
+  }
+}
+
+/**
+ * Rebuilds every statistics table from the accepted submissions, in one transaction
+ * (`npm run stats:recompute`). Gives the same figures as the decisions applied one by one.
+ */
+export async function recomputeAllAggregates(db: Knex): Promise<{ submissions: number; scopes: number }> {
+  return db.transaction(async (trx) => {
+    const deltas = emptyDeltas();
+    const recordingsBySubmission = new Map<number, RecordingRow[]>();
+    const recordings: (RecordingRow & { submission_id: number })[] = await trx('submission_recordings as r')
+      .join('submissions as s', 's.id', 'r.submission_id')
+      .where('s.status', 'accepted')
+      .select(RECORDING_COLUMNS.map((c) => `r.${c}`));
+    for (const recording of recordings) {
+      const list = recordingsBySubmission.get(recording.submission_id) ?? [];
+      list.push(recording);
+      recordingsBySubmission.set(recording.submission_id, list);
+    }
+    const submissions: SubmissionRow[] = await selectSubmissions(trx).where('s.status', 'accepted');
+    for (const submission of submissions) {
+      accumulate(deltas, contributionsOf(submission, recordingsBySubmission.get(submission.id) ?? []), 1);
+    }
+
+    for (const table of ['meter_statistics_riders', 'cadence_lag_counts', 'dropout_tag_statistics', 'meter_statistics']) {
+      await trx(table).delete();
+    }
+    const ridersPerScope = new Map<string, number>();
+    for (const rider of deltas.riders.values()) {
+      const key = scopeKey(rider);
+      ridersPerScope.set(key, (ridersPerScope.get(key) ?? 0) + 1);
+    }
+    const lagsPerScope = new Map<string, { value: number; count: number }[]>();
+    for (const lag of deltas.lags.values()) {
+      const key = scopeKey(lag);
+      lagsPerScope.set(key, [...(lagsPerScope.get(key) ?? []), { value: lag.lagSeconds, count: lag.count }]);
+    }
+    const chunk = 1000;
+    const insertAll = async (table: string, rows: Record<string, unknown>[]) => {
+      for (let i = 0; i < rows.length; i += chunk) await trx(table).insert(rows.slice(i, i + chunk));
+    };
+    await insertAll(
+      'meter_statistics',
+      [...deltas.stats.entries()].map(([key, s]) => ({
+        model_id: s.modelId,
+        firmware_id: s.firmwareId,
+        distinct_riders: ridersPerScope.get(key) ?? 0,
+        median_cadence_lag_seconds: medianOfHistogram(lagsPerScope.get(key) ?? []),
+        ...s.sums,
+      })),
+    );
+    await insertAll(
+      'meter_statistics_riders',
+      [...deltas.riders.values()].map(riderRow),
+    );
+    await insertAll(
+      'cadence_lag_counts',
+      [...deltas.lags.values()].map(lagRow),
+    );
+    await insertAll(
+      'dropout_tag_statistics',
+      [...deltas.tags.values()].map(tagRow),
+    );
+    await trx('statistics_state').where({ id: 1 }).update({ consensus_stale: true });
+    return { submissions: submissions.length, scopes: deltas.stats.size };
+  });
+}

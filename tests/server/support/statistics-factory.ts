@@ -1,0 +1,122 @@
+import { randomBytes } from 'node:crypto';
+import type { Db } from '../../../server/db/knex';
+import { updateAggregatesForSubmission } from '../../../server/features/statistics/aggregates';
+
+// Analysed submissions with chosen headline figures, written straight to the
+// database (no FIT files, no job), so statistics tests can use hand-checkable numbers.
+
+export interface SideTags {
+  modelId: number;
+  firmwareId: number;
+  recordingDeviceId: number;
+  recordingMode?: 'every_second' | 'change_only';
+  otherMetersOn?: boolean;
+  position?: 'left' | 'right' | 'dual' | 'total';
+}
+
+export interface AnalysedSubmission {
+  riderId: number;
+  a: SideTags;
+  b: SideTags;
+  biasPercent: number;
+  pedallingHours: number;
+  indoor?: boolean;
+  surface?: 'smooth_road' | 'rough_road' | 'gravel' | 'trainer';
+  likeForLike?: 'direct' | 'via_balance' | 'mixed';
+  aPowerDropouts?: number;
+  bPowerDropouts?: number;
+  aCadenceDropouts?: number;
+  bCadenceDropouts?: number;
+  cadenceLagSeconds?: number | null;
+  /** Blocks of the agreement (percent): count, mean A − B and SD. */
+  agreement?: { blockCount: number; meanDifferencePercent: number; sdPercent: number | null };
+  sprints?: { percent: number; aSecondsTo80Percent: number; bSecondsTo80Percent: number }[];
+}
+
+export async function insertRider(db: Db, handle = `rider-${randomBytes(3).toString('hex')}`): Promise<number> {
+  const [{ id }] = await db('users').insert({ handle, name: handle, provider_id: handle }).returning('id');
+  return id;
+}
+
+export async function insertAnalysedSubmission(db: Db, s: AnalysedSubmission): Promise<number> {
+  const pedallingSeconds = Math.round(s.pedallingHours * 3600);
+  const sumB = 1_000_000;
+  const sumA = sumB * (1 + s.biasPercent / 100);
+  const agreement = s.agreement ?? { blockCount: 40, meanDifferencePercent: s.biasPercent, sdPercent: 2 };
+  const result = {
+    agreement: { ...agreement, blocks: [] },
+    peaks: { sprints: s.sprints ?? [] },
+  };
+  const started = new Date('2026-06-01T08:00:00Z');
+  const [{ id }] = await db('submissions')
+    .insert({
+      rider_id: s.riderId,
+      status: 'awaiting_review',
+      indoor: s.indoor ?? false,
+      surface: s.surface ?? 'smooth_road',
+      a_sha256: randomBytes(32).toString('hex'),
+      b_sha256: randomBytes(32).toString('hex'),
+      ride_started_at: started,
+      ride_ended_at: new Date(started.getTime() + pedallingSeconds * 1000),
+      method_version: 1,
+      result: JSON.stringify(result),
+      bias_percent: s.biasPercent,
+      loa_lower_percent: agreement.meanDifferencePercent - 1.96 * (agreement.sdPercent ?? 0),
+      loa_upper_percent: agreement.meanDifferencePercent + 1.96 * (agreement.sdPercent ?? 0),
+      sum_a: sumA,
+      sum_b: sumB,
+      matched_seconds: pedallingSeconds,
+      pedalling_seconds: pedallingSeconds,
+      overlap_seconds: pedallingSeconds,
+      clock_offset_seconds: 0,
+      correlation: 0.98,
+      cadence_lag_seconds: s.cadenceLagSeconds === undefined ? 0 : s.cadenceLagSeconds,
+      like_for_like_mode: s.likeForLike ?? 'direct',
+      a_power_dropouts: s.aPowerDropouts ?? 0,
+      a_cadence_dropouts: s.aCadenceDropouts ?? 0,
+      b_power_dropouts: s.bPowerDropouts ?? 0,
+      b_cadence_dropouts: s.bCadenceDropouts ?? 0,
+      analysed_at: db.fn.now(),
+    })
+    .returning('id');
+  await db('submission_recordings').insert(
+    (['a', 'b'] as const).map((side) => {
+      const tags = s[side];
+      return {
+        submission_id: id,
+        side,
+        model_id: tags.modelId,
+        firmware_id: tags.firmwareId,
+        position: tags.position ?? 'total',
+        recording_device_id: tags.recordingDeviceId,
+        recording_mode: tags.recordingMode ?? 'every_second',
+        zero_offset: 'yes',
+        other_meters_on: tags.otherMetersOn ?? false,
+        sha256: randomBytes(32).toString('hex'),
+        device_info: JSON.stringify({}),
+        recording_stats: JSON.stringify({}),
+        stream: Buffer.alloc(0),
+      };
+    }),
+  );
+  return id;
+}
+
+/**
+ * Accepts a submission the way a moderation decision does: the status change and
+ * the aggregate update in one transaction.
+ */
+export async function acceptSubmission(db: Db, submissionId: number): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx('submissions').where({ id: submissionId }).update({ status: 'accepted' });
+    await updateAggregatesForSubmission(trx, submissionId, 'add');
+  });
+}
+
+/** Withdraws acceptance (e.g. a later rejection), removing the submission from the statistics. */
+export async function unacceptSubmission(db: Db, submissionId: number): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx('submissions').where({ id: submissionId }).update({ status: 'rejected' });
+    await updateAggregatesForSubmission(trx, submissionId, 'remove');
+  });
+}
