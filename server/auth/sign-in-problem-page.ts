@@ -5,7 +5,7 @@ const escapeHtml = (s: string) =>
 export function signInProblemPage(title: string, explanation: string): string {
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escapeHtml(title)} · Crosswatt</title>
+<title>${escapeHtml(title)} · Crosswatt</title><link rel="icon" href="data:,">
 <style>
   body { margin: 0; font-family: "Work Sans", system-ui, sans-serif; background: #f8f6f1; color: #1d2428; }
   main { max-width: 34rem; margin: 12vh auto; padding: 2rem; background: #fff; border: 1px solid #ddd6c8; border-radius: 0.875rem; }

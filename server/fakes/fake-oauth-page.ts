@@ -30,7 +30,7 @@ export function authorizePage(request: AuthorizeRequest, identities: FakeIdentit
     .join('\n');
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>Local sign-in stand-in</title>
+<title>Local sign-in stand-in</title><link rel="icon" href="data:,">
 <style>
   body { margin: 0; font-family: system-ui, sans-serif; background: repeating-linear-gradient(135deg, #efebe2 0 14px, #f8f6f1 14px 28px); color: #1d2428; }
   main { max-width: 36rem; margin: 6vh auto; padding: 2rem; background: #fff; border: 2px dashed #96421a; border-radius: 0.5rem; }

@@ -1,13 +1,23 @@
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
+import { AccountRoute } from './routes/account';
+import { AdminAuditLogRoute } from './routes/admin-audit-log';
+import { AdminUsersRoute } from './routes/admin-users';
+import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
 import { NotFoundRoute } from './routes/not-found';
 import { RootLayout } from './routes/root-layout';
+import { SignInRoute } from './routes/sign-in';
 
 const router = createBrowserRouter([
   {
     element: <RootLayout />,
     children: [
       { index: true, element: <HomeRoute /> },
+      { path: 'sign-in', element: <SignInRoute /> },
+      { path: 'account', element: <AccountRoute /> },
+      { path: 'admin/users', element: <AdminUsersRoute /> },
+      { path: 'admin/audit-log', element: <AdminAuditLogRoute /> },
+      { path: 'forbidden', element: <ForbiddenRoute /> },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },

@@ -1,4 +1,5 @@
 import { Link, NavLink } from 'react-router-dom';
+import { UserMenu } from '@/features/auth/components/user-menu';
 import { Logo } from './logo';
 
 const navItems = [{ to: '/', label: 'Overview', end: true }];
@@ -26,6 +27,7 @@ export function SiteHeader() {
             </NavLink>
           ))}
         </nav>
+        <UserMenu />
       </div>
     </header>
   );

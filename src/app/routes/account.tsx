@@ -1,0 +1,36 @@
+import { AccountSettingsForm } from '@/features/account/components/account-settings-form';
+import { DeleteAccountForm } from '@/features/account/components/delete-account-form';
+import { RequireAccess } from '@/features/auth/components/require-access';
+
+export function AccountRoute() {
+  return (
+    <RequireAccess>
+      {(me) => (
+        <div className="max-w-3xl space-y-10">
+          <header className="space-y-1">
+            <p className="text-caption font-semibold uppercase tracking-widest text-ember-700">Your account</p>
+            <h1 className="text-title font-semibold">{me.name}</h1>
+            <p className="text-ink-soft">
+              @{me.handle}
+              {me.email && ` · ${me.email}`} · {me.roles.join(', ')}
+              {me.makers.length > 0 && ` · verified staff of ${me.makers.map((m) => m.name).join(', ')}`}
+            </p>
+          </header>
+          <section aria-labelledby="profile" className="space-y-4 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
+            <h2 id="profile" className="text-lead font-semibold">Profile and e-mail</h2>
+            <AccountSettingsForm me={me} />
+          </section>
+          <section aria-labelledby="my-submissions" className="space-y-3 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
+            <h2 id="my-submissions" className="text-lead font-semibold">My submissions</h2>
+            {/* The submissions feature fills this with the rider's own list. */}
+            <p className="text-ink-soft">Your paired recordings and their vetting status will be listed here.</p>
+          </section>
+          <section aria-labelledby="delete" className="space-y-4 rounded-card border border-alert-100 bg-white/70 p-6 shadow-card">
+            <h2 id="delete" className="text-lead font-semibold text-alert-800">Delete my account</h2>
+            <DeleteAccountForm handle={me.handle} />
+          </section>
+        </div>
+      )}
+    </RequireAccess>
+  );
+}

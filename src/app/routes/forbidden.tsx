@@ -1,0 +1,5 @@
+import { NotAllowed } from '@/features/auth/components/not-allowed';
+
+export function ForbiddenRoute() {
+  return <NotAllowed />;
+}
