@@ -4,15 +4,21 @@ import { AdminAuditLogRoute } from './routes/admin-audit-log';
 import { AdminUsersRoute } from './routes/admin-users';
 import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
+import { MySubmissionsRoute } from './routes/my-submissions';
 import { NotFoundRoute } from './routes/not-found';
 import { RootLayout } from './routes/root-layout';
 import { SignInRoute } from './routes/sign-in';
+import { SubmissionRoute } from './routes/submission';
+import { SubmitRoute } from './routes/submit';
 
 const router = createBrowserRouter([
   {
     element: <RootLayout />,
     children: [
       { index: true, element: <HomeRoute /> },
+      { path: 'submit', element: <SubmitRoute /> },
+      { path: 'submissions/:id', element: <SubmissionRoute /> },
+      { path: 'my-submissions', element: <MySubmissionsRoute /> },
       { path: 'sign-in', element: <SignInRoute /> },
       { path: 'account', element: <AccountRoute /> },
       { path: 'admin/users', element: <AdminUsersRoute /> },

@@ -2,7 +2,10 @@ import { Link, NavLink } from 'react-router-dom';
 import { UserMenu } from '@/features/auth/components/user-menu';
 import { Logo } from './logo';
 
-const navItems = [{ to: '/', label: 'Overview', end: true }];
+const navItems = [
+  { to: '/', label: 'Overview', end: true },
+  { to: '/submit', label: 'Submit a ride', end: false },
+];
 
 export function SiteHeader() {
   return (
