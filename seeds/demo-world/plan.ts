@@ -63,8 +63,8 @@ export interface PlannedSubmission {
   a: PlannedSide;
   b: PlannedSide;
   simulation: PairOptions;
-  /** For 'other_ride': B is taken from a second simulation of the same time with this seed. */
-  otherRideSeed?: number;
+  /** For 'other_ride': B is taken from this simulation, another ride at the same time. */
+  otherRide?: PairOptions;
   flaw?: Flaw;
   outcome: Outcome;
 }
@@ -82,12 +82,12 @@ const HISTORY_DAYS = 548; // 18 months
 const NORMAL_RIDES = 408;
 const CLEAN_PENDING = 10;
 /** How many of each flaw go to the queue and how many were rejected already. */
-const FLAWS: Array<{ flaw: Flaw; pending: number; rejected: number; reason: RejectReason; note: string }> = [
+const FLAWS: Array<{ flaw: Flaw; pending: number; rejected: number; reason?: RejectReason; note?: string }> = [
   { flaw: 'other_ride', pending: 2, rejected: 2, reason: 'not_same_ride', note: 'The traces do not match: these look like two different rides.' },
   { flaw: 'uncalibrated', pending: 2, rejected: 1, reason: 'not_calibrated', note: 'One meter reads 20 % high; please check its crank length setting and zero it.' },
   { flaw: 'mixed', pending: 3, rejected: 1, reason: 'mixed_comparison', note: 'A single-leg meter against a trainer mixes leg balance into the difference.' },
-  { flaw: 'wrong_tag', pending: 1, rejected: 1, reason: 'wrong_tag', note: 'The file says firmware 1.0, the tags say otherwise.' },
-  { flaw: 'short', pending: 2, rejected: 0, reason: 'not_same_ride', note: '' },
+  { flaw: 'wrong_tag', pending: 1, rejected: 1, reason: 'wrong_tag', note: "The file names the model's first firmware, the tags its latest." },
+  { flaw: 'short', pending: 2, rejected: 0 },
   { flaw: 'duplicate', pending: 0, rejected: 1, reason: 'duplicate', note: 'The same ride was uploaded before from the other head unit.' },
 ];
 const MODERATORS = STAFF.filter((person) => person.roles.includes('moderator')).map((person) => person.handle);
@@ -267,8 +267,8 @@ function planRide(ctx: Omit<RideContext, 'surface' | 'durationSeconds'>, now: nu
   if (random.chance(0.5)) [first, second] = [second, first];
   const [deviceA, deviceB] = riderDevices(rider, riderIndex);
   const full: RideContext = { ...ctx, surface, durationSeconds: 60 * random.integer(25, 75) };
-  const a = sideOf(full, first, indoor && worldDevice(deviceA).kind !== 'app' ? deviceB : deviceA, firmwareOnRide(first, daysAgo, betaTester, random), 0);
-  const b = sideOf(full, second, deviceB === a.side.device ? deviceA : deviceB, firmwareOnRide(second, daysAgo, betaTester, random), 1);
+  const a = sideOf(full, first, deviceA, firmwareOnRide(first, daysAgo, betaTester, random), 0);
+  const b = sideOf(full, second, deviceB, firmwareOnRide(second, daysAgo, betaTester, random), 1);
   for (const model of [first, second]) if (thinCounts.has(model.name)) thinCounts.set(model.name, thinCounts.get(model.name)! - 1);
   const simulation: PairOptions = {
     seed: ctx.seed,
@@ -331,7 +331,7 @@ export function planDemoWorld(options: PlanOptions): PlannedSubmission[] {
     for (const [decision, count] of Object.entries(counts) as Array<['pending' | 'rejected', number]>) {
       for (let i = 0; i < count; i++) {
         const ride = drawRide(decision === 'pending' ? [0, 14] : [20, 300]);
-        const outcome: Outcome = decision === 'pending' ? { decision: 'pending' } : { decision: 'reject', moderator: moderator(), reason, note };
+        const outcome: Outcome = decision === 'pending' ? { decision: 'pending' } : { decision: 'reject', moderator: moderator(), reason: reason!, note: note! };
         planned.push({ ...withFlaw(ride, flaw, random, planned, nextSeed++), flaw, outcome });
       }
     }
@@ -345,7 +345,12 @@ function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<
   const sim = ride.simulation;
   switch (flaw) {
     case 'other_ride':
-      return { ...ride, otherRideSeed: seed, notes: 'Second file from the same morning.' };
+      // A different kind of effort by a different rider, so the traces cannot match.
+      return {
+        ...ride,
+        otherRide: { ...sim, seed, profile: sim.profile === 'race' ? 'endurance' : 'race', riderFtpWatts: (sim.riderFtpWatts ?? 250) * 0.8 },
+        notes: 'Second file from the same morning.',
+      };
     case 'uncalibrated':
       return { ...ride, a: { ...ride.a, gain: ride.a.gain * 1.2 }, simulation: { ...sim, a: { ...sim.a, scale: (sim.a.scale ?? 1) * 1.2 } } };
     case 'short':

@@ -145,7 +145,7 @@ function tagsOf(side: PlannedSide, ids: CatalogueIds) {
 
 async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: CatalogueIds, riderId: number): Promise<number> {
   const pair = simulatePair(planned.simulation);
-  const b = planned.otherRideSeed === undefined ? pair.b : simulatePair({ ...planned.simulation, seed: planned.otherRideSeed }).b;
+  const b = planned.otherRide ? simulatePair(planned.otherRide).b : pair.b;
   const input: CreateSubmissionInput = createSubmissionInput.parse({
     a: tagsOf(planned.a, ids),
     b: tagsOf(planned.b, ids),

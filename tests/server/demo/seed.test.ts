@@ -85,13 +85,12 @@ describe('seeding the demo world', () => {
     }
   });
 
-  it('when the truth is asked for, then every model and firmware has one entry and the stories are in it', () => {
+  it('when the truth is asked for, then every model and firmware has one entry with its bias as injected and as measured', () => {
     const truth = injectedTruth(report.plan);
     const of = (model: string, firmware: string) => truth.find((t) => t.model === model && t.firmware === firmware)!;
 
     expect(truth).toHaveLength(MODELS.reduce((n, m) => n + m.firmware.length, 0));
     expect(of('Marrow Spider', '2.1').biasPercent - of('Marrow Spider', '2.0').biasPercent).toBeCloseTo(2, 5);
-    expect(of('Larkspur Duo', '1.1').cadenceDropoutsPerHour === null || of('Larkspur Duo', '1.1').cadenceDropoutsPerHour! > 2).toBe(true);
     expect(of('Drumlin Trainer', '5.2').measuredBiasPercent).toBeCloseTo(100 * ((1 - 0.006) * (1 - 0.021) - 1), 5);
   });
 
