@@ -14,6 +14,8 @@ import type { Db } from './db/knex';
 import { adminRouter } from './features/admin/admin.routes';
 import { catalogueRouter } from './features/catalogue/catalogue.routes';
 import { healthRouter } from './features/health/health.routes';
+import { mailRouter } from './features/mail/mail.routes';
+import { moderationRouter, submissionDecisionRouter } from './features/moderation/moderation.routes';
 import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
 import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
@@ -63,6 +65,9 @@ export function createApp(deps: AppDeps) {
   app.use('/api/catalogue', catalogueRouter({ db }));
   app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/me/submissions', mySubmissionsRouter({ db }));
+  app.use('/api/submissions', submissionDecisionRouter({ db, queue: deps.queue, config: deps.config }));
+  app.use('/api/moderation', moderationRouter({ db, queue: deps.queue, config: deps.config }));
+  app.use('/api/mail', mailRouter({ db, config: deps.config }));
 
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);

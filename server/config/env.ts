@@ -26,6 +26,9 @@ const configSchema = z.object({
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   SMTP_FROM: z.string().default('Crosswatt <no-reply@crosswatt.test>'),
+  SMTP_SECURE: booleanish.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASSWORD: z.string().optional(),
 
   RATE_LIMIT_WINDOW_MS: z.coerce.number().int().positive().default(60_000),
   RATE_LIMIT_WRITES_PER_WINDOW: z.coerce.number().int().positive().default(60),

@@ -2,6 +2,7 @@ import type { Db } from '../db/knex';
 import type { Logger } from '../lib/logger';
 import { ensureDemoPeople } from './demo-identities';
 import { startFakeOAuth } from './fake-oauth';
+import { startFakeSmtp } from './fake-smtp';
 
 export interface LocalFakes {
   /** Environment overrides that point the app at the fakes. */
@@ -20,6 +21,11 @@ export async function startLocalFakes(options: { db: Db; logger: Logger; host?: 
   const oauth = await startFakeOAuth({ db: options.db, host: options.host });
   stops.push(oauth.stop);
   Object.assign(env, oauth.env);
+
+  // SMTP: every message lands in mail_outbox, read by the admin Outbox page.
+  const smtp = await startFakeSmtp({ db: options.db, host: options.host });
+  stops.push(smtp.stop);
+  Object.assign(env, smtp.env);
   return {
     env,
     async stop() {

@@ -1,4 +1,5 @@
 import PgBoss from 'pg-boss';
+import { createMailQueue } from '../features/mail/send-mail.job';
 import { createAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 
@@ -11,5 +12,6 @@ export async function startQueue(databaseUrl: string, logger: Logger): Promise<Q
   boss.on('error', (err) => logger.error({ err }, 'job queue error'));
   await boss.start();
   await createAnalysisQueue(boss);
+  await createMailQueue(boss);
   return boss;
 }

@@ -17,6 +17,7 @@ const PEOPLE: Person[] = ['anonymous', 'rider', 'moderator', 'makerStaff', 'admi
 const EVERYONE: Person[] = PEOPLE;
 const SIGNED_IN: Person[] = ['rider', 'moderator', 'makerStaff', 'admin'];
 const ADMINS: Person[] = ['admin'];
+const MODERATORS: Person[] = ['moderator'];
 
 interface Fixture {
   targetUserId: number;
@@ -45,6 +46,10 @@ const rules: Record<string, Rule> = {
   'POST /api/catalogue/proposals': { allowed: SIGNED_IN, body: () => ({}) },
   // submissions
   'POST /api/submissions': { allowed: SIGNED_IN, body: () => ({}) },
+  // moderation (issue 7): a submission that does not exist passes the guards and is then a 400/404
+  'POST /api/moderation/submissions/:id/decision': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/decision' },
+  'POST /api/moderation/submissions/:id/tags': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/tags' },
+  'PATCH /api/submissions/:id/tags': { allowed: SIGNED_IN, path: () => '/api/submissions/999999/tags' },
 };
 
 const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;

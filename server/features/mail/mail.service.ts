@@ -1,0 +1,81 @@
+import type { Knex } from 'knex';
+import { type Config, publicUrl } from '../../config/env';
+import type { Queue } from '../../jobs/queue';
+import * as mail from './mail.repository';
+import { enqueueMail } from './send-mail.job';
+import { type MailTopic, signUnsubscribeToken, verifyUnsubscribeToken } from './unsubscribe-token';
+
+/** Every kind of e-mail Crosswatt sends, and the preference that switches it off. */
+export const MAIL_KINDS = {
+  submission_accepted: 'decision',
+  submission_rejected: 'decision',
+  submission_sent_back: 'decision',
+  thread_reply: 'reply',
+  maker_response: 'reply',
+} as const satisfies Record<string, MailTopic>;
+export type MailKind = keyof typeof MAIL_KINDS;
+
+const TOPIC_TEXT: Record<MailTopic, string> = {
+  decision: 'decisions on your submissions',
+  reply: 'replies in threads you follow',
+};
+
+export interface MailDeps {
+  config: Config;
+  /** Without a queue the message waits until a worker starts (it sweeps waiting messages). */
+  queue?: Queue;
+}
+
+export function unsubscribeUrl(config: Config, userId: number, topic: MailTopic): string {
+  return `${publicUrl(config)}/api/mail/unsubscribe?token=${signUnsubscribeToken(config.SESSION_SECRET, userId, topic)}`;
+}
+
+/**
+ * Queues one e-mail to a user, if their preferences allow it and they have an
+ * address; returns the message id, or null when nothing is sent. Pass the
+ * transaction that makes the change the mail is about: the message is stored with
+ * it, and handed to the mail job only once it commits (a rollback sends nothing;
+ * a slow mail service never holds the transaction).
+ *
+ *   await queueMail(trx, { config, queue }, { userId, kind: 'thread_reply', subject, text });
+ */
+export async function queueMail(
+  dbOrTrx: Knex | Knex.Transaction,
+  deps: MailDeps,
+  message: { userId: number; kind: MailKind; subject: string; text: string },
+): Promise<number | null> {
+  const recipient = await mail.findRecipient(dbOrTrx, message.userId);
+  if (!recipient || recipient.deleted || !recipient.email) return null;
+  const topic = MAIL_KINDS[message.kind];
+  const wanted = topic === 'decision' ? recipient.emailOnDecision : recipient.emailOnReply;
+  if (!wanted) return null;
+
+  const link = unsubscribeUrl(deps.config, recipient.id, topic);
+  const text = `${message.text.trimEnd()}\n\n--\nYou get this e-mail because you asked Crosswatt for ${TOPIC_TEXT[topic]}.\nStop these e-mails with one click: ${link}\n`;
+  const id = await mail.insertMessage(dbOrTrx, { userId: recipient.id, kind: message.kind, to: recipient.email, subject: message.subject, text, unsubscribeUrl: link });
+
+  const queue = deps.queue;
+  if (queue) {
+    const send = () => enqueueMail(queue, id).catch(() => undefined);
+    if ('executionPromise' in dbOrTrx && dbOrTrx.isTransaction) {
+      // After commit only; a rolled-back transaction leaves no message to send.
+      dbOrTrx.executionPromise.then(send, () => undefined);
+    } else {
+      await send();
+    }
+  }
+  return id;
+}
+
+/** Follows a signed unsubscribe link: switches the matching preference off. */
+export async function unsubscribe(db: Knex, config: Config, token: string): Promise<{ topic: MailTopic } | null> {
+  const verified = verifyUnsubscribeToken(config.SESSION_SECRET, token);
+  if (!verified) return null;
+  const column = verified.topic === 'decision' ? 'email_on_decision' : 'email_on_reply';
+  const updated = await mail.setPreference(db, verified.userId, column, false);
+  return updated ? { topic: verified.topic } : null;
+}
+
+export function topicDescription(topic: MailTopic): string {
+  return TOPIC_TEXT[topic];
+}

@@ -1,0 +1,108 @@
+import { z } from 'zod';
+import { recordingTagsInput } from './submission';
+
+/** Why a moderator rejects a submission: a fixed list, so riders and statistics can rely on it. */
+export const REJECT_REASONS = [
+  'not_same_ride',
+  'wrong_tag',
+  'not_calibrated',
+  'mixed_comparison',
+  'damaged_data',
+  'duplicate',
+  'other',
+] as const;
+export type RejectReason = (typeof REJECT_REASONS)[number];
+
+export const REJECT_REASON_LABELS: Record<RejectReason, string> = {
+  not_same_ride: 'The two files are not from the same ride',
+  wrong_tag: 'Wrong device or firmware tag',
+  not_calibrated: 'One meter was not calibrated (no zero offset)',
+  mixed_comparison: 'A one-leg meter against a total meter without balance data',
+  damaged_data: 'Damaged or incomplete data',
+  duplicate: 'The same ride was submitted before',
+  other: 'Another reason (see the note)',
+};
+
+export const DECISIONS = ['accept', 'reject', 'send_back', 'withdraw'] as const;
+export type Decision = (typeof DECISIONS)[number];
+
+const note = z
+  .string()
+  // Plain text only: control characters other than line breaks are dropped.
+  .transform((s) => s.replace(/[\u0000-\u0009\u000b-\u001f\u007f]/g, '').trim())
+  .pipe(z.string().max(1000, 'at most 1000 characters'));
+
+const expectedVersion = z.coerce.number({ message: 'say which version of the submission you saw' }).int().positive();
+
+/** One decision on a submission; the version is the one the moderator saw. */
+export const decideSubmissionInput = z.discriminatedUnion('decision', [
+  z.object({ decision: z.literal('accept'), note: note.optional(), expectedVersion }),
+  z
+    .object({
+      decision: z.literal('reject'),
+      reason: z.enum(REJECT_REASONS, { message: 'choose a reason from the list' }),
+      note: note.optional(),
+      expectedVersion,
+    })
+    .refine((v) => v.reason !== 'other' || (v.note ?? '').length > 0, { path: ['note'], message: 'say what the other reason is' }),
+  z.object({
+    decision: z.literal('send_back'),
+    note: note.pipe(z.string().min(1, 'tell the rider what to correct')),
+    expectedVersion,
+  }),
+  z.object({
+    decision: z.literal('withdraw'),
+    reason: note.pipe(z.string().min(5, 'say why it leaves the statistics (at least 5 characters)')),
+    expectedVersion,
+  }),
+]);
+export type DecideSubmissionInput = z.infer<typeof decideSubmissionInput>;
+
+/** Tag corrections: only the fields that change, per side. */
+const partialTags = recordingTagsInput.partial().strict();
+export const correctTagsInput = z
+  .object({
+    a: partialTags.optional(),
+    b: partialTags.optional(),
+    note: note.optional(),
+    expectedVersion,
+  })
+  .refine((v) => Object.keys(v.a ?? {}).length + Object.keys(v.b ?? {}).length > 0, { message: 'change at least one tag' });
+export type CorrectTagsInput = z.infer<typeof correctTagsInput>;
+
+export const reviewQueueQuery = z.object({
+  flag: z.string().trim().regex(/^[a-z_]{1,40}$/, 'a flag code like low_correlation').optional(),
+  maker: z.coerce.number().int().positive().optional(),
+  model: z.coerce.number().int().positive().optional(),
+  /** Only submissions waiting at least this many days. */
+  minAgeDays: z.coerce.number().int().min(0).max(3650).optional(),
+  page: z.coerce.number().int().min(1).max(10_000).default(1),
+});
+export type ReviewQueueQuery = z.infer<typeof reviewQueueQuery>;
+
+// Catalogue curation
+export const CATALOGUE_ENTRY_TYPES = ['maker', 'model', 'firmware', 'recording_device'] as const;
+export type CatalogueEntryType = (typeof CATALOGUE_ENTRY_TYPES)[number];
+
+const entryName = z.string().trim().min(1, 'enter a name').max(80, 'at most 80 characters');
+
+export const curateEntryInput = z.discriminatedUnion('action', [
+  z.object({ action: z.literal('approve') }),
+  z.object({ action: z.literal('reject'), reason: note.pipe(z.string().min(3, 'say why (at least 3 characters)')) }),
+  z.object({ action: z.literal('rename'), name: entryName }),
+]);
+export type CurateEntryInput = z.infer<typeof curateEntryInput>;
+
+export const mergeEntriesInput = z.object({
+  intoId: z.coerce.number({ message: 'choose the entry to keep' }).int().positive('choose the entry to keep'),
+  reason: note.pipe(z.string().min(3, 'say why they are the same (at least 3 characters)')),
+});
+export type MergeEntriesInput = z.infer<typeof mergeEntriesInput>;
+
+export const pinNoteInput = z.object({
+  body: note.pipe(z.string().min(1, 'write the note').max(280, 'keep it under 280 characters')),
+});
+
+export const hideModelInput = z.object({
+  reason: note.pipe(z.string().min(3, 'say why it is hidden (at least 3 characters)').max(280, 'keep it under 280 characters')),
+});
