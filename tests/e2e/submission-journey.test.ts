@@ -52,6 +52,8 @@ describe('a rider submits a paired recording in the browser', () => {
   it('when a rider fills the form with two demo files and sends it, then the preview, the progress and the result page appear', async () => {
     const page = await signedInPage('journey-rider');
     const errors = watchConsole(page);
+    const workers: string[] = [];
+    page.on('worker', (worker) => workers.push(worker.url()));
 
     await page.locator('#file-a').setInputFiles(demoPair('a'));
     await page.locator('#file-b').setInputFiles(demoPair('b'));
@@ -68,6 +70,7 @@ describe('a rider submits a paired recording in the browser', () => {
     expect(await page.locator('#b-position').inputValue()).toBe('dual');
     expect(await preview.textContent()).toMatch(/\+2\.\d %/);
     expect(await preview.textContent()).toContain('30 min');
+    expect(workers.some((url) => url.includes('pair-preview.worker'))).toBe(true);
     await saveScreenshot(page, 'submit-form-desktop');
 
     await page.getByRole('button', { name: 'Send the ride for analysis' }).click();
@@ -110,5 +113,18 @@ describe('a rider submits a paired recording in the browser', () => {
     expect(await page.locator('#a-maker-error').textContent()).toContain('Choose a maker');
     await saveScreenshot(page, 'submit-form-phone-errors');
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+  });
+
+  it('when a rider cannot find their firmware, then they propose it inline and it is chosen, marked pending', async () => {
+    const page = await signedInPage('proposing-rider', { width: 390, height: 844 });
+    await page.locator('#a-maker').selectOption(String(catalogue.maker.id));
+    await page.locator('#a-model').selectOption(String(catalogue.spider.id));
+
+    await page.getByRole('button', { name: 'Can’t find the firmware version? Propose it' }).click();
+    await page.getByLabel('Version number').fill('9.9.1');
+    await page.getByRole('button', { name: 'Propose this firmware version' }).click();
+
+    await page.locator('#a-firmware option:checked', { hasText: '9.9.1' }).waitFor({ state: 'attached' });
+    expect(await page.locator('#a-firmware option:checked').textContent()).toContain('pending review');
   });
 });

@@ -27,7 +27,7 @@ export function MySubmissionsList() {
         return (
           <li key={s.id}>
             <Link to={`/submissions/${s.id}`} className="flex flex-wrap items-center gap-x-5 gap-y-1 px-5 py-4 hover:bg-paper">
-              <span className="min-w-0 flex-1">
+              <span className="w-full min-w-0 sm:w-auto sm:flex-1">
                 <span className="block font-semibold text-ink">
                   <span className="text-ember-700">{a ? `${a.model} ${a.firmware}` : 'A'}</span>
                   <span className="text-ink-soft"> vs </span>
