@@ -17,6 +17,7 @@ import { healthRouter } from './features/health/health.routes';
 import { mailRouter } from './features/mail/mail.routes';
 import { moderationRouter, submissionDecisionRouter } from './features/moderation/moderation.routes';
 import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
+import { threadsRouter } from './features/threads/threads.routes';
 import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
 import { errorHandler, notFound } from './middleware/error-handler';
@@ -68,6 +69,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/submissions', submissionDecisionRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/moderation', moderationRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/mail', mailRouter({ db, config: deps.config }));
+  app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);

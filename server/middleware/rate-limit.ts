@@ -45,3 +45,13 @@ export function signInLimiter(config: Config): RequestHandler {
     'Too many sign-in attempts in a short time. Wait a minute and try again.',
   );
 }
+
+/** Starting threads, replying and editing posts; counted on top of the write budget. */
+export function postingLimiter(config: Config): RequestHandler {
+  return limiter(
+    10 * 60_000,
+    config.RATE_LIMIT_POSTS_PER_TEN_MINUTES,
+    'You have posted a lot in the last few minutes. Wait a little before posting again.',
+    (req) => SAFE_METHODS.has(req.method),
+  );
+}

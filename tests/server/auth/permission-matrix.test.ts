@@ -1,6 +1,8 @@
 import type { Express } from 'express';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { insertModel } from '../../../server/features/catalogue/catalogue.repository';
+import { createThread } from '../../../server/features/threads/threads.service';
 import { ensureUser } from '../../../server/features/users/users.service';
 import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
@@ -22,6 +24,10 @@ const MODERATORS: Person[] = ['moderator'];
 interface Fixture {
   targetUserId: number;
   makerId: number;
+  /** A model of the maker-staff person's maker, a rider's thread about it and its opening post. */
+  modelSlug: string;
+  threadId: number;
+  postId: number;
 }
 
 interface Rule {
@@ -50,6 +56,19 @@ const rules: Record<string, Rule> = {
   'POST /api/moderation/submissions/:id/decision': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/decision' },
   'POST /api/moderation/submissions/:id/tags': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/tags' },
   'PATCH /api/submissions/:id/tags': { allowed: SIGNED_IN, path: () => '/api/submissions/999999/tags' },
+  // threads (issue 8): the maker's own staff answer for the maker; moderators hide, lock, move
+  'POST /api/models/:slug/threads': { allowed: SIGNED_IN, path: (f) => `/api/models/${f.modelSlug}/threads` },
+  'POST /api/threads/:id/posts': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/posts` },
+  'PUT /api/threads/:id/official-response': { allowed: ['makerStaff'], path: (f) => `/api/threads/${f.threadId}/official-response` },
+  'DELETE /api/threads/:id/official-response': { allowed: ['makerStaff'], path: (f) => `/api/threads/${f.threadId}/official-response` },
+  'PUT /api/threads/:id/status': { allowed: ['makerStaff'], path: (f) => `/api/threads/${f.threadId}/status` },
+  'PUT /api/threads/:id/follow': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/follow` },
+  'DELETE /api/threads/:id/follow': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/follow` },
+  'PUT /api/threads/:id/lock': { allowed: MODERATORS, path: (f) => `/api/threads/${f.threadId}/lock` },
+  'POST /api/threads/:id/move': { allowed: MODERATORS, path: (f) => `/api/threads/${f.threadId}/move` },
+  'PATCH /api/posts/:id': { allowed: SIGNED_IN, path: (f) => `/api/posts/${f.postId}` },
+  'PUT /api/posts/:id/visibility': { allowed: MODERATORS, path: (f) => `/api/posts/${f.postId}/visibility` },
+  'POST /api/notifications/read': { allowed: SIGNED_IN },
 };
 
 const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;
@@ -80,7 +99,7 @@ function writeRoutes(app: Express): string[] {
   return [...new Set(found)].sort();
 }
 
-const { app, db } = await createTestContext({ fakes: true });
+const { app, db, config } = await createTestContext({ fakes: true });
 const routes = writeRoutes(app);
 
 describe('the permission matrix', () => {
@@ -90,6 +109,9 @@ describe('the permission matrix', () => {
     const staff = await ensureUser(db, { handle: 'matrix-staff', name: 'Matrix Staff', makerSlug: 'matrix-cranks' });
     fixture.targetUserId = target.id;
     fixture.makerId = staff.makerIds[0]!;
+    const model = await insertModel(db, { makerId: fixture.makerId, slug: 'matrix-cranks-arm', name: 'Matrix Arm', position: 'left', kind: 'crank_arm', status: 'approved' });
+    const thread = await createThread({ db, config }, target, model.slug, { title: 'Matrix thread title', body: 'Matrix thread body' });
+    Object.assign(fixture, { modelSlug: model.slug, threadId: thread.id, postId: thread.postId });
   });
 
   async function agentFor(person: Person) {

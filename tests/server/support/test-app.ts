@@ -32,6 +32,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     // Tests sign in and write far faster than people; rate-limit tests lower these.
     RATE_LIMIT_WRITES_PER_WINDOW: '10000',
     RATE_LIMIT_SIGNINS_PER_WINDOW: '10000',
+    RATE_LIMIT_POSTS_PER_TEN_MINUTES: '10000',
     ...overrides,
   });
 }
