@@ -14,6 +14,7 @@ import type { Db } from './db/knex';
 import { adminRouter } from './features/admin/admin.routes';
 import { catalogueRouter } from './features/catalogue/catalogue.routes';
 import { healthRouter } from './features/health/health.routes';
+import { scoreboardRouter } from './features/scoreboard/scoreboard.routes';
 import { mailRouter } from './features/mail/mail.routes';
 import { moderationRouter, submissionDecisionRouter } from './features/moderation/moderation.routes';
 import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
@@ -71,6 +72,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/mail', mailRouter({ db, config: deps.config }));
   app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
+  app.use('/api', scoreboardRouter({ db }));
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);
 

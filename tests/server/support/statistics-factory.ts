@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import type { Db } from '../../../server/db/knex';
-import { updateAggregatesForSubmission } from '../../../server/features/statistics/aggregates';
+import { decideSubmission } from '../../../server/features/moderation/moderation.service';
 
 // Analysed submissions with chosen headline figures, written straight to the
 // database (no FIT files, no job), so statistics tests can use hand-checkable numbers.
@@ -102,21 +102,18 @@ export async function insertAnalysedSubmission(db: Db, s: AnalysedSubmission): P
   return id;
 }
 
-/**
- * Accepts a submission the way a moderation decision does: the status change and
- * the aggregate update in one transaction.
- */
-export async function acceptSubmission(db: Db, submissionId: number): Promise<void> {
-  await db.transaction(async (trx) => {
-    await trx('submissions').where({ id: submissionId }).update({ status: 'accepted' });
-    await updateAggregatesForSubmission(trx, submissionId, 'add');
-  });
+let moderatorId: number | undefined;
+async function moderator(db: Db): Promise<number> {
+  moderatorId ??= await insertRider(db, `statistics-moderator-${randomBytes(3).toString('hex')}`);
+  return moderatorId;
 }
 
-/** Withdraws acceptance (e.g. a later rejection), removing the submission from the statistics. */
+/** Accepts a submission through the moderation decision (status change and aggregate update in one transaction). */
+export async function acceptSubmission(db: Db, submissionId: number): Promise<void> {
+  await decideSubmission(db, { submissionId, moderatorId: await moderator(db), decision: 'accept' });
+}
+
+/** Withdraws an accepted submission, which takes it out of the statistics. */
 export async function unacceptSubmission(db: Db, submissionId: number): Promise<void> {
-  await db.transaction(async (trx) => {
-    await trx('submissions').where({ id: submissionId }).update({ status: 'rejected' });
-    await updateAggregatesForSubmission(trx, submissionId, 'remove');
-  });
+  await decideSubmission(db, { submissionId, moderatorId: await moderator(db), decision: 'withdraw', reason: 'Statistics test' });
 }
