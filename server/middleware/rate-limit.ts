@@ -46,6 +46,32 @@ export function signInLimiter(config: Config): RequestHandler {
   );
 }
 
+const DAY_MS = 24 * 60 * 60 * 1000;
+
+/**
+ * How many submissions one rider may make in 24 hours (SUBMISSIONS_PER_DAY).
+ * Refused uploads (a bad file, a duplicate) do not count against it.
+ */
+export function submissionsPerDayLimiter(config: Config): RequestHandler {
+  const perDay = config.SUBMISSIONS_PER_DAY;
+  return rateLimit({
+    windowMs: DAY_MS,
+    limit: perDay,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: personKey,
+    skipFailedRequests: true,
+    handler: (_req, res, _next, options) => {
+      res.status(options.statusCode).json({
+        error: {
+          code: 'daily_submission_limit',
+          message: `You have made ${perDay} submissions in the last 24 hours, the most Crosswatt takes from one rider in a day. Please try again tomorrow.`,
+        },
+      });
+    },
+  });
+}
+
 /** Starting threads, replying and editing posts; counted on top of the write budget. */
 export function postingLimiter(config: Config): RequestHandler {
   return limiter(

@@ -7,6 +7,7 @@ import type { Db } from '../../db/knex';
 import type { Queue } from '../../jobs/queue';
 import { NotFoundError, ValidationError } from '../../lib/errors';
 import { fitUpload, uploadedFile } from '../../middleware/fit-upload';
+import { submissionsPerDayLimiter } from '../../middleware/rate-limit';
 import { formatZodError, validate } from '../../middleware/validate';
 import { createSubmission } from './submissions.service';
 import { canSeeSubmission, toSubmissionView } from './submission-view';
@@ -34,7 +35,9 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config 
   const { db } = deps;
   const router = Router();
 
-  router.post('/', requireUser, fitUpload, async (req, res) => {
+  const perDay = submissionsPerDayLimiter(deps.config);
+
+  router.post('/', requireUser, perDay, fitUpload, async (req, res) => {
     const input = parseMeta(req.body?.meta);
     const fileA = uploadedFile(req, 'fileA');
     const fileB = uploadedFile(req, 'fileB');
