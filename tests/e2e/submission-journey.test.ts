@@ -6,7 +6,7 @@ import { createCatalogue, type TestCatalogue } from '../server/support/catalogue
 import { startAppForBrowser } from './support/app-server';
 import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
 
-const demoPair = (side: 'a' | 'b') => path.resolve(`demo/pairs/01-clean-bias-${side}.fit`);
+const demoPair = (side: 'a' | 'b', pair = '01-clean-bias') => path.resolve(`demo/pairs/${pair}-${side}.fit`);
 // The first bytes of a PNG image (PNG specification, section 5.2) and a little more: not a FIT file.
 const PNG_BYTES = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, ...new Array(64).fill(7)]);
 
@@ -45,6 +45,13 @@ describe('a rider submits a paired recording in the browser', () => {
     await chooseRadio(page, `${side}-other-meters-on`, 'no');
   }
 
+  async function describeRide(page: Page) {
+    await describeMeter(page, 'a', catalogue.spider.id, catalogue.spiderFirmware.id);
+    await describeMeter(page, 'b', catalogue.pedals.id, catalogue.pedalsFirmware.id);
+    await chooseRadio(page, 'indoor', 'outdoor');
+    await chooseRadio(page, 'surface', 'smooth_road');
+  }
+
   function chooseRadio(page: Page, name: string, value: string) {
     return page.locator('label', { has: page.locator(`input[name="${name}"][value="${value}"]`) }).click();
   }
@@ -59,10 +66,7 @@ describe('a rider submits a paired recording in the browser', () => {
     await page.locator('#file-b').setInputFiles(demoPair('b'));
     const preview = page.getByRole('region', { name: 'First look, in your browser' });
     await preview.getByText('First bias, A vs B').waitFor();
-    await describeMeter(page, 'a', catalogue.spider.id, catalogue.spiderFirmware.id);
-    await describeMeter(page, 'b', catalogue.pedals.id, catalogue.pedalsFirmware.id);
-    await chooseRadio(page, 'indoor', 'outdoor');
-    await chooseRadio(page, 'surface', 'smooth_road');
+    await describeRide(page);
     await page.locator('#notes').fill('Flat loop, both meters zeroed at the start.');
 
     // The position comes from the model; the demo pair's truth is +2.5 % with clocks in step (demo/pairs/README.md).
@@ -126,5 +130,27 @@ describe('a rider submits a paired recording in the browser', () => {
 
     await page.locator('#a-firmware option:checked', { hasText: '9.9.1' }).waitFor({ state: 'attached' });
     expect(await page.locator('#a-firmware option:checked').textContent()).toContain('pending review');
+  });
+
+  it('when a rider sends a pair that was uploaded before, then the server refuses it and the form links to the earlier submission', async () => {
+    const page = await signedInPage('twice-rider');
+    const sendPair = async () => {
+      await page.locator('#file-a').setInputFiles(demoPair('a', '02-clock-offset'));
+      await page.locator('#file-b').setInputFiles(demoPair('b', '02-clock-offset'));
+      await page.getByText('First bias, A vs B').waitFor();
+      await describeRide(page);
+      await page.getByRole('button', { name: 'Send the ride for analysis' }).click();
+    };
+    await sendPair();
+    await page.waitForURL(/\/submissions\/\d+$/);
+    const firstUrl = page.url();
+
+    await page.goto(`${baseUrl}/submit`);
+    await sendPair();
+
+    const alert = page.getByRole('alert').filter({ hasText: 'uploaded before' });
+    await alert.waitFor();
+    await alert.getByRole('link', { name: 'Open the earlier submission' }).click();
+    await page.waitForURL(firstUrl);
   });
 });
