@@ -16,6 +16,7 @@ import { catalogueRouter } from './features/catalogue/catalogue.routes';
 import { healthRouter } from './features/health/health.routes';
 import { scoreboardRouter } from './features/scoreboard/scoreboard.routes';
 import { mailRouter } from './features/mail/mail.routes';
+import { catalogueAliasRouter } from './features/moderation/curation.routes';
 import { moderationRouter, submissionDecisionRouter } from './features/moderation/moderation.routes';
 import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
 import { threadsRouter } from './features/threads/threads.routes';
@@ -65,6 +66,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/account', accountRouter({ db }));
   app.use('/api/admin', adminRouter({ db }));
   app.use('/api/catalogue', catalogueRouter({ db }));
+  app.use('/api/catalogue/aliases', catalogueAliasRouter({ db }));
   app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/me/submissions', mySubmissionsRouter({ db }));
   app.use('/api/submissions', submissionDecisionRouter({ db, queue: deps.queue, config: deps.config }));

@@ -10,6 +10,7 @@ import { NotFoundError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import { enqueueAnalysis } from '../submissions/analyse-submission.job';
 import { canSeeSubmission } from '../submissions/submission-view';
+import { curationRouter } from './curation.routes';
 import * as moderation from './moderation.repository';
 import { correctSubmissionTags, decideSubmission, resubmitTags, type TagChangeOutcome } from './moderation.service';
 import { decisionOf, getReview } from './review.service';
@@ -63,6 +64,8 @@ export function moderationRouter(deps: Deps) {
     await afterTagChange(deps, outcome);
     res.json(outcome);
   });
+
+  router.use('/catalogue', curationRouter({ db }));
 
   return router;
 }

@@ -56,6 +56,13 @@ const rules: Record<string, Rule> = {
   'POST /api/moderation/submissions/:id/decision': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/decision' },
   'POST /api/moderation/submissions/:id/tags': { allowed: MODERATORS, path: () => '/api/moderation/submissions/999999/tags' },
   'PATCH /api/submissions/:id/tags': { allowed: SIGNED_IN, path: () => '/api/submissions/999999/tags' },
+  // catalogue curation (issue 7): moderators who are not makers' staff
+  'POST /api/moderation/catalogue/:type/:id': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999' },
+  'POST /api/moderation/catalogue/:type/:id/merge': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999/merge' },
+  'PUT /api/moderation/catalogue/:subject/:id/note': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999/note' },
+  'DELETE /api/moderation/catalogue/:subject/:id/note': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999/note' },
+  'PUT /api/moderation/catalogue/model/:id/hidden': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999/hidden' },
+  'DELETE /api/moderation/catalogue/model/:id/hidden': { allowed: MODERATORS, path: () => '/api/moderation/catalogue/model/999999/hidden' },
   // threads (issue 8): the maker's own staff answer for the maker; moderators hide, lock, move
   'POST /api/models/:slug/threads': { allowed: SIGNED_IN, path: (f) => `/api/models/${f.modelSlug}/threads` },
   'POST /api/threads/:id/posts': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/posts` },
