@@ -1,7 +1,8 @@
 // Builds the demo world through the real pipeline: the catalogue through its
 // repository, the people through the users service (each one able to sign in on
 // the fake provider), every planned ride simulated into two FIT files, uploaded
-// with createSubmission and analysed by the job's own handler, then decided.
+// with createSubmission, analysed by the job's own handler, then decided by a
+// moderator through the moderation service.
 import type { Knex } from 'knex';
 import { createSubmissionInput, type CreateSubmissionInput } from '@shared/schemas/submission';
 import { slugify, versionOrder } from '@shared/schemas/catalogue';
@@ -10,6 +11,7 @@ import { insertFirmware, insertMaker, insertModel, insertRecordingDevice } from 
 import { createSubmission } from '@server/features/submissions/submissions.service';
 import { analyseSubmission } from '@server/features/submissions/analyse-submission.job';
 import { ensureDemoIdentity } from '@server/fakes/demo-identities';
+import { decideSubmission } from '@server/features/moderation/moderation.service';
 import { planDemoWorld, type Outcome, type PlannedSide, type PlannedSubmission } from './plan';
 import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from './world';
 
@@ -163,15 +165,23 @@ async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: Catal
 }
 
 /**
- * The moderators' planned decisions. The moderation service (issue 7:
- * server/features/moderation/moderation.service.ts, decideSubmission) has not
- * landed yet, so nothing is decided and every submission stays awaiting review.
- * Once it exists, call it here for each accept and reject; returns how many were decided.
+ * The moderators' planned decisions, through the moderation service (statistics,
+ * audit entry; no e-mail for the demo). Returns how many were decided.
  */
 async function applyModerationDecisions(
-  _db: Knex,
-  _decisions: Array<{ submissionId: number; outcome: Outcome }>,
-  _people: Map<string, number>,
+  db: Knex,
+  decisions: Array<{ submissionId: number; outcome: Outcome }>,
+  people: Map<string, number>,
 ): Promise<number> {
-  return 0;
+  let decided = 0;
+  for (const { submissionId, outcome } of decisions) {
+    if (outcome.decision === 'pending') continue;
+    const status = (await db('submissions').where({ id: submissionId }).first('status')).status;
+    if (status !== 'awaiting_review') continue; // the engine refused it: nothing to decide
+    const moderatorId = people.get(outcome.moderator)!;
+    if (outcome.decision === 'accept') await decideSubmission(db, { submissionId, moderatorId, decision: 'accept' });
+    else await decideSubmission(db, { submissionId, moderatorId, decision: 'reject', reason: outcome.reason, note: outcome.note });
+    decided += 1;
+  }
+  return decided;
 }

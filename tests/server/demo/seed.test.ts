@@ -51,14 +51,16 @@ describe('seeding the demo world', () => {
     expect(STAFF.filter((p) => p.makerSlug).length).toBeGreaterThanOrEqual(3);
   });
 
-  it('when the rides are uploaded, then every one is analysed by the real job and waits for review', async () => {
-    const statuses = await db('submissions').select('status').whereIn('id', report.submissionIds);
+  it("when the rides are uploaded, then every one is analysed by the real job and ends as its moderator's plan says", async () => {
+    const rows = await db('submissions').select('id', 'status').whereIn('id', report.submissionIds);
+    const statusOf = new Map(rows.map((row) => [row.id, row.status]));
+    const expected = { accept: 'accepted', reject: 'rejected', pending: 'awaiting_review' } as const;
 
     expect(report.seeded).toBe(true);
     expect(report.plan.length).toBeGreaterThanOrEqual(12);
     expect(report.failed).toBe(0);
-    // Nothing is decided until the moderation service exists.
-    expect(statuses.every((s) => s.status === 'awaiting_review')).toBe(true);
+    for (const planned of report.plan) expect(statusOf.get(report.submissionIds[planned.index])).toBe(expected[planned.outcome.decision]);
+    expect(report.decided).toBe(report.plan.filter((p) => p.outcome.decision !== 'pending').length);
   });
 
   it("when a like-for-like ride is analysed, then its measured bias is within tolerance of the meters' injected gains", async () => {
