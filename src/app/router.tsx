@@ -2,11 +2,15 @@ import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { AccountRoute } from './routes/account';
 import { AdminAuditLogRoute } from './routes/admin-audit-log';
 import { AdminUsersRoute } from './routes/admin-users';
+import { FirmwareRoute } from './routes/firmware';
 import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
+import { MethodologyRoute } from './routes/methodology';
+import { ModelRoute } from './routes/model';
 import { MySubmissionsRoute } from './routes/my-submissions';
 import { NotFoundRoute } from './routes/not-found';
 import { RootLayout } from './routes/root-layout';
+import { ScoreboardRoute } from './routes/scoreboard';
 import { SignInRoute } from './routes/sign-in';
 import { SubmissionRoute } from './routes/submission';
 import { SubmitRoute } from './routes/submit';
@@ -16,6 +20,10 @@ const router = createBrowserRouter([
     element: <RootLayout />,
     children: [
       { index: true, element: <HomeRoute /> },
+      { path: 'scoreboard', element: <ScoreboardRoute /> },
+      { path: 'models/:slug', element: <ModelRoute /> },
+      { path: 'models/:slug/firmware/:version', element: <FirmwareRoute /> },
+      { path: 'methodology', element: <MethodologyRoute /> },
       { path: 'submit', element: <SubmitRoute /> },
       { path: 'submissions/:id', element: <SubmissionRoute /> },
       { path: 'my-submissions', element: <MySubmissionsRoute /> },

@@ -4,7 +4,9 @@ import { Logo } from './logo';
 
 const navItems = [
   { to: '/', label: 'Overview', end: true },
+  { to: '/scoreboard', label: 'Scoreboard', end: false },
   { to: '/submit', label: 'Submit a ride', end: false },
+  { to: '/methodology', label: 'Method', end: false },
 ];
 
 export function SiteHeader() {

@@ -1,0 +1,33 @@
+import { useParams } from 'react-router-dom';
+import { PageSection as Section } from '@/components/ui/page-section';
+import { useFirmware } from '@/features/models/api/get-firmware';
+import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
+import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
+import { HeadlineFigures } from '@/features/models/components/headline-figures';
+import { ModelMasthead } from '@/features/models/components/model-masthead';
+import { RecentSubmissions } from '@/features/models/components/recent-submissions';
+
+export function FirmwareRoute() {
+  const { slug = '', version = '' } = useParams();
+  const firmware = useFirmware(slug, version);
+  if (firmware.isPending) return <p className="mx-auto max-w-page px-5 py-10 text-ink-soft sm:px-8">Loading…</p>;
+  if (firmware.isError) return <p role="alert" className="mx-auto max-w-page px-5 py-10 text-alert-800 sm:px-8">{firmware.error.message}</p>;
+  const page = firmware.data;
+  return (
+    <div className="mx-auto max-w-page px-5 py-10 sm:px-8">
+      <ModelMasthead model={page.model} note={page.note} firmware={page.firmware.version} />
+      <div className="mt-8">
+        <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} />
+      </div>
+      <Section title="Against the previous firmware">
+        <FirmwareComparisonTable modelSlug={page.model.slug} firmware={[page.firmware]} />
+      </Section>
+      <Section title="What goes with dropouts" intro="Power dropouts on this firmware split by how the rides were recorded, each against the other rides on this firmware.">
+        <DropoutBreakdown rows={page.dropoutBreakdown} />
+      </Section>
+      <Section title="Accepted rides on this firmware">
+        <RecentSubmissions submissions={page.submissions} />
+      </Section>
+    </div>
+  );
+}

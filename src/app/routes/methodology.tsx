@@ -1,0 +1,79 @@
+import { Link } from 'react-router-dom';
+import { BLOCK_SECONDS, LIMITS_OF_AGREEMENT_Z, MAX_CLOCK_OFFSET_SECONDS, METHOD_VERSION, MIN_OVERLAP_SECONDS } from '@shared/analysis/method';
+import { OPEN_DATA_LICENCE } from '@shared/schemas/statistics';
+import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
+import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
+import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
+import { PageSection } from '@/components/ui/page-section';
+
+export function MethodologyRoute() {
+  return (
+    <article className="mx-auto max-w-3xl px-5 py-10 text-body text-ink sm:px-8">
+      <h1 className="text-title font-semibold">How Crosswatt's figures are made</h1>
+      <p className="mt-2 text-lead text-ink-soft">Comparison method version {METHOD_VERSION}. Every public figure comes from accepted submissions only.</p>
+
+      <aside className="mt-6 rounded-card border-l-4 border-ember-500 bg-ember-50 px-4 py-3">
+        <p className="font-semibold text-ember-900">Not a calibration certificate</p>
+        <p className="mt-1 text-ink">
+          These figures are gathered from riders' own rides. They describe how a model has behaved for the people who shared data, not how your unit will
+          behave. Follow the maker's calibration and zero-offset instructions. Do not use these figures for medical decisions or anything race-critical.
+        </p>
+      </aside>
+
+      <PageSection title="One ride, two meters">
+        <p>
+          A rider records the same ride with two power meters at once and uploads both files. We line the recordings up (allowing a clock difference of up to{' '}
+          {MAX_CLOCK_OFFSET_SECONDS} s), keep only seconds where both meters report, and need at least {MIN_OVERLAP_SECONDS / 60} minutes of overlap. The ride's{' '}
+          <strong>bias</strong> is how much more energy meter A counted than meter B, in percent. Each side of the ride counts for its own model: meter B's
+          figure is the same comparison turned round. We also count <strong>dropouts</strong> (moments a meter stops reporting while the rider is pedalling),
+          the delay between the two meters' cadence, and how each meter follows sprints. Agreement is judged on {BLOCK_SECONDS}-second blocks: the limits of
+          agreement are the mean difference ± {LIMITS_OF_AGREEMENT_Z} standard deviations.
+        </p>
+      </PageSection>
+
+      <PageSection title="From rides to a model's figures">
+        <ul className="list-disc space-y-2 pl-5">
+          <li>
+            <strong>Bias</strong>: the mean of the rides' biases weighted by pedalling time, with one ride counting at most {WEIGHT_CAP_HOURS} hours so a single
+            long ride cannot dominate. The interval is a 95 % confidence interval from the t distribution over rides: it shows how well the average is known,
+            not how far one ride may stray.
+          </li>
+          <li>
+            <strong>Scatter</strong>: the standard deviation of the rides' biases: how consistent the meter is from ride to ride. The pooled limits of agreement
+            show how far a single 30-second block may differ.
+          </li>
+          <li>
+            <strong>Dropouts</strong>: events per pedalling hour with an exact Poisson interval. Firmware versions are compared by the ratio of their rates
+            (exact conditional test) and by the difference in bias (Welch's t-test). Dropouts are also split by surface, indoor or outdoor, recording device,
+            recording mode and whether other meters were switched on.
+          </li>
+          <li>
+            <strong>Consensus offset</strong>: each like-for-like ride links two meters; fitting all links together (weighted least squares on the log of the
+            energy ratio) places every model and firmware against the crowd's consensus. We show it only for meters compared with at least {MINIMUM_PARTNERS}{' '}
+            others.
+          </li>
+          <li>
+            <strong>Minimum evidence</strong>: below {MINIMUM_SUBMISSIONS} accepted rides or {MINIMUM_RIDERS} riders we write "not enough data yet" instead of a
+            number.
+          </li>
+        </ul>
+      </PageSection>
+
+      <PageSection title="What the figures do not say">
+        <p>
+          A bias is always relative to the partner meters riders happened to own: if most partners read high, a truthful meter looks low. The consensus offset
+          softens this but is still a consensus, not a laboratory reference. Riders choose which rides to share, and their meters may be worn, misinstalled or
+          not zeroed. Wide intervals mean we do not know yet; overlapping intervals mean the data cannot tell two meters or firmware versions apart.
+        </p>
+      </PageSection>
+
+      <PageSection title="Open data">
+        <p>
+          The scoreboard and every accepted ride's derived figures (no rider, no location, the month only) can be downloaded as CSV from the{' '}
+          <Link to="/scoreboard" className="text-fjord-700 underline">scoreboard</Link>, under the{' '}
+          <a href={OPEN_DATA_LICENCE.url} className="text-fjord-700 underline">{OPEN_DATA_LICENCE.name}</a> licence: use it freely, naming Crosswatt.
+        </p>
+      </PageSection>
+    </article>
+  );
+}

@@ -1,0 +1,40 @@
+import { useParams } from 'react-router-dom';
+import { PageSection as Section } from '@/components/ui/page-section';
+import { useModel } from '@/features/models/api/get-model';
+import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
+import { FirmwareChart } from '@/features/models/components/firmware-chart';
+import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
+import { HeadlineFigures } from '@/features/models/components/headline-figures';
+import { ModelMasthead } from '@/features/models/components/model-masthead';
+import { RecentSubmissions } from '@/features/models/components/recent-submissions';
+
+export function ModelRoute() {
+  const { slug = '' } = useParams();
+  const model = useModel(slug);
+  if (model.isPending) return <p className="mx-auto max-w-page px-5 py-10 text-ink-soft sm:px-8">Loading…</p>;
+  if (model.isError) return <p role="alert" className="mx-auto max-w-page px-5 py-10 text-alert-800 sm:px-8">{model.error.message}</p>;
+  const page = model.data;
+  return (
+    <div className="mx-auto max-w-page px-5 py-10 sm:px-8">
+      <ModelMasthead model={page.model} note={page.note} />
+      <div className="mt-8">
+        <HeadlineFigures figures={page.figures} />
+      </div>
+      <Section title="Across firmware versions" intro="Each version's bias and power dropout rate with their 95 % intervals; overlapping bars mean the data cannot tell the versions apart.">
+        <FirmwareChart firmware={page.firmware} />
+      </Section>
+      <Section
+        title="Each firmware against its predecessor"
+        intro="Dropouts: the ratio of the two rates with an exact interval and p-value (conditional binomial test). Bias: the difference of the weighted means with Welch's t-test."
+      >
+        <FirmwareComparisonTable modelSlug={page.model.slug} firmware={page.firmware} />
+      </Section>
+      <Section title="What goes with dropouts" intro="Power dropouts split by how the rides were recorded, each compared with all the model's other rides.">
+        <DropoutBreakdown rows={page.dropoutBreakdown} />
+      </Section>
+      <Section title="Recent accepted rides">
+        <RecentSubmissions submissions={page.recentSubmissions} />
+      </Section>
+    </div>
+  );
+}

@@ -1,0 +1,3 @@
+export function NotEnoughData() {
+  return <span className="text-caption italic text-ink-faint">not enough data yet</span>;
+}
