@@ -5,6 +5,7 @@ import { AdminUsersRoute } from './routes/admin-users';
 import { FirmwareRoute } from './routes/firmware';
 import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
+import { ModelThreadsRoute } from './routes/model-threads';
 import { MethodologyRoute } from './routes/methodology';
 import { ModelRoute } from './routes/model';
 import { MySubmissionsRoute } from './routes/my-submissions';
@@ -14,6 +15,7 @@ import { ScoreboardRoute } from './routes/scoreboard';
 import { SignInRoute } from './routes/sign-in';
 import { SubmissionRoute } from './routes/submission';
 import { SubmitRoute } from './routes/submit';
+import { ThreadRoute } from './routes/thread';
 
 const router = createBrowserRouter([
   {
@@ -31,6 +33,8 @@ const router = createBrowserRouter([
       { path: 'account', element: <AccountRoute /> },
       { path: 'admin/users', element: <AdminUsersRoute /> },
       { path: 'admin/audit-log', element: <AdminAuditLogRoute /> },
+      { path: 'models/:slug/threads', element: <ModelThreadsRoute /> },
+      { path: 'threads/:id', element: <ThreadRoute /> },
       { path: 'forbidden', element: <ForbiddenRoute /> },
       { path: '*', element: <NotFoundRoute /> },
     ],

@@ -1,5 +1,6 @@
 import { Link, NavLink } from 'react-router-dom';
 import { UserMenu } from '@/features/auth/components/user-menu';
+import { NotificationBell } from '@/features/threads/components/notification-bell';
 import { Logo } from './logo';
 
 const navItems = [
@@ -32,6 +33,7 @@ export function SiteHeader() {
             </NavLink>
           ))}
         </nav>
+        <NotificationBell />
         <UserMenu />
       </div>
     </header>
