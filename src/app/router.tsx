@@ -5,11 +5,14 @@ import { AdminUsersRoute } from './routes/admin-users';
 import { FirmwareRoute } from './routes/firmware';
 import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
-import { ModelThreadsRoute } from './routes/model-threads';
 import { MethodologyRoute } from './routes/methodology';
 import { ModelRoute } from './routes/model';
+import { ModelThreadsRoute } from './routes/model-threads';
+import { ModerationQueueRoute } from './routes/moderation-queue';
+import { ModerationReviewRoute } from './routes/moderation-review';
 import { MySubmissionsRoute } from './routes/my-submissions';
 import { NotFoundRoute } from './routes/not-found';
+import { OutboxRoute } from './routes/outbox';
 import { RootLayout } from './routes/root-layout';
 import { ScoreboardRoute } from './routes/scoreboard';
 import { SignInRoute } from './routes/sign-in';
@@ -33,6 +36,9 @@ const router = createBrowserRouter([
       { path: 'account', element: <AccountRoute /> },
       { path: 'admin/users', element: <AdminUsersRoute /> },
       { path: 'admin/audit-log', element: <AdminAuditLogRoute /> },
+      { path: 'admin/outbox', element: <OutboxRoute /> },
+      { path: 'moderation', element: <ModerationQueueRoute /> },
+      { path: 'moderation/submissions/:id', element: <ModerationReviewRoute /> },
       { path: 'models/:slug/threads', element: <ModelThreadsRoute /> },
       { path: 'threads/:id', element: <ThreadRoute /> },
       { path: 'forbidden', element: <ForbiddenRoute /> },

@@ -1,5 +1,6 @@
 import { Link, useParams } from 'react-router-dom';
 import { ApiError } from '@/lib/api-client';
+import { DecisionNotice } from '@/features/moderation/components/decision-notice';
 import { useSubmission } from '@/features/submissions/api/get-submission';
 import { RecordingSummary } from '@/features/submissions/components/recording-summary';
 import { SafetyNote } from '@/features/submissions/components/safety-note';
@@ -44,6 +45,7 @@ export function SubmissionRoute() {
         {s.notes && <p className="max-w-3xl whitespace-pre-line rounded-lg bg-paper-deep p-3 text-caption text-ink-soft">“{s.notes}”</p>}
       </header>
       <SubmissionProgress status={s.status} errorMessage={s.errorMessage} />
+      <DecisionNotice submissionId={s.id} status={s.status} isOwn={s.isOwn} recordings={s.recordings} />
       <RecordingSummary recordings={s.recordings} />
       {s.result && <SafetyNote />}
       {s.result && <SubmissionResult result={s.result} />}

@@ -1,5 +1,6 @@
 import { Link, NavLink } from 'react-router-dom';
 import { UserMenu } from '@/features/auth/components/user-menu';
+import { ModerationNavLink } from '@/features/moderation/components/moderation-nav-link';
 import { NotificationBell } from '@/features/threads/components/notification-bell';
 import { Logo } from './logo';
 
@@ -32,6 +33,7 @@ export function SiteHeader() {
               {item.label}
             </NavLink>
           ))}
+          <ModerationNavLink />
         </nav>
         <NotificationBell />
         <UserMenu />

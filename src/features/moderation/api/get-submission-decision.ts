@@ -1,0 +1,23 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { SubmissionStatus } from '@shared/schemas/submission';
+import { api } from '@/lib/api-client';
+
+export interface SubmissionDecision {
+  id: number;
+  status: SubmissionStatus;
+  version: number;
+  decision: { reason: string | null; reasonLabel: string | null; note: string | null; decidedAt: string } | null;
+}
+
+export function getSubmissionDecision(id: number): Promise<SubmissionDecision> {
+  return api.get<SubmissionDecision>(`/api/submissions/${id}/decision`);
+}
+
+export function getSubmissionDecisionQueryOptions(id: number) {
+  return queryOptions({ queryKey: ['submissions', id, 'decision'], queryFn: () => getSubmissionDecision(id), staleTime: 0 });
+}
+
+export function useSubmissionDecision(id: number, status: SubmissionStatus) {
+  // The status is part of the key's freshness: when the page sees a new status, ask again.
+  return useQuery({ ...getSubmissionDecisionQueryOptions(id), queryKey: [...getSubmissionDecisionQueryOptions(id).queryKey, status] });
+}

@@ -1,0 +1,30 @@
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+
+export interface OutboxMessage {
+  id: number;
+  from: string;
+  recipients: string[];
+  subject: string;
+  text: string;
+  headers: Record<string, string>;
+  receivedAt: string;
+}
+
+export interface Outbox {
+  total: number;
+  pageSize: number;
+  messages: OutboxMessage[];
+}
+
+export function getOutbox(page: number): Promise<Outbox> {
+  return api.get<Outbox>(`/api/mail/outbox?page=${page}`);
+}
+
+export function getOutboxQueryOptions(page = 1) {
+  return queryOptions({ queryKey: ['outbox', page], queryFn: () => getOutbox(page), placeholderData: keepPreviousData, staleTime: 0, refetchInterval: 5_000 });
+}
+
+export function useOutbox(page: number) {
+  return useQuery(getOutboxQueryOptions(page));
+}
