@@ -5,10 +5,14 @@ import { poissonRate, rateRatio } from '@shared/statistics/poisson';
 import { summariseBiasSums, type BiasSums } from '@shared/statistics/weighted-bias';
 import { welchTest } from '@shared/statistics/welch';
 import type { StatisticsSums } from './contributions';
+import { memoize } from './memo';
 
 // From a scope's sufficient statistics (a meter_statistics row) to the figures shoppers see.
 
 export type StatisticsRow = StatisticsSums & { distinct_riders: number; median_cadence_lag_seconds: number | null };
+
+const summariseBiasSumsOnce = memoize((sums: BiasSums, evidence: { distinctRiders: number; medianBiasPercent: number | null }) => summariseBiasSums(sums, evidence));
+const welchTestOnce = memoize(welchTest);
 
 function biasSumsOf(row: StatisticsRow): BiasSums {
   return {
@@ -22,19 +26,19 @@ function biasSumsOf(row: StatisticsRow): BiasSums {
   };
 }
 
-export function rateFigure(events: number, hours: number): RateFigure | null {
+export const rateFigure = memoize(function rateFigure(events: number, hours: number): RateFigure | null {
   if (!(hours > 0)) return null;
   const rate = poissonRate(events, hours);
   return { events, perHour: rate.rate, lower: rate.lower, upper: rate.upper };
-}
+});
 
 /** A rate ratio with JSON-safe bounds: Infinity becomes null. */
-export function rateRatioFigure(events1: number, hours1: number, events2: number, hours2: number): RateRatioFigure | null {
+export const rateRatioFigure = memoize(function rateRatioFigure(events1: number, hours1: number, events2: number, hours2: number): RateRatioFigure | null {
   if (!(hours1 > 0 && hours2 > 0)) return null;
   const ratio = rateRatio(events1, hours1, events2, hours2);
   const finite = (value: number | null) => (value === null || !Number.isFinite(value) ? null : value);
   return { ratio: finite(ratio.ratio), lower: ratio.lower, upper: finite(ratio.upper), pValue: ratio.pValue };
-}
+});
 
 /**
  * Pooled limits of agreement from running sums: the same one-way analysis of
@@ -83,7 +87,7 @@ export function meterFigures(row: StatisticsRow | undefined, medianBiasPercent: 
   const enough = hasMinimumEvidence(evidence);
   if (!enough) return { ...meterFigures(undefined), evidence };
 
-  const bias = summariseBiasSums(biasSumsOf(row), { distinctRiders: row.distinct_riders, medianBiasPercent });
+  const bias = summariseBiasSumsOnce(biasSumsOf(row), { distinctRiders: row.distinct_riders, medianBiasPercent });
   return {
     evidence,
     enough,
@@ -131,7 +135,7 @@ export function compareFirmware(from: { version: string; figures: MeterFigures; 
       const n = bias.degreesOfFreedom + 1;
       return { n, mean: bias.meanPercent, sd: bias.standardErrorPercent * Math.sqrt(n) };
     };
-    const test = welchTest(group(a), group(b));
+    const test = welchTestOnce(group(a), group(b));
     if (test) {
       comparison.biasDifference = {
         differencePercent: test.difference,
