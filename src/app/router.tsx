@@ -8,6 +8,7 @@ import { HomeRoute } from './routes/home';
 import { MethodologyRoute } from './routes/methodology';
 import { ModelRoute } from './routes/model';
 import { ModelThreadsRoute } from './routes/model-threads';
+import { ModerationCatalogueRoute } from './routes/moderation-catalogue';
 import { ModerationQueueRoute } from './routes/moderation-queue';
 import { ModerationReviewRoute } from './routes/moderation-review';
 import { MySubmissionsRoute } from './routes/my-submissions';
@@ -38,6 +39,7 @@ const router = createBrowserRouter([
       { path: 'admin/audit-log', element: <AdminAuditLogRoute /> },
       { path: 'admin/outbox', element: <OutboxRoute /> },
       { path: 'moderation', element: <ModerationQueueRoute /> },
+      { path: 'moderation/catalogue', element: <ModerationCatalogueRoute /> },
       { path: 'moderation/submissions/:id', element: <ModerationReviewRoute /> },
       { path: 'models/:slug/threads', element: <ModelThreadsRoute /> },
       { path: 'threads/:id', element: <ThreadRoute /> },

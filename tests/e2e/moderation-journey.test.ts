@@ -78,4 +78,21 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await expect(message.textContent()).resolves.toContain('journey-rider-7@riders.crosswatt.test');
     await saveScreenshot(admin, 'moderation-5-outbox');
   });
+
+  it('when the demo moderator approves a rider’s proposed firmware on the catalogue page, then it leaves the list and is approved', async () => {
+    const catalogue = await createCatalogue(db);
+    const proposer = await db('users').where({ handle: 'journey-rider-7' }).first('id');
+    const [proposed] = await db('firmware_versions')
+      .insert({ model_id: catalogue.spider.id, version: '2.4.0', version_order: [2, 4, 0], status: 'pending', proposed_by: proposer.id })
+      .returning('id');
+    const moderator = await signedInPage('demo-moderator', '/moderation/catalogue');
+    const row = moderator.getByRole('listitem').filter({ hasText: '2.4.0' }).filter({ hasText: 'proposed by journey-rider-7' });
+    await row.waitFor();
+    await saveScreenshot(moderator, 'moderation-6-catalogue');
+
+    await row.getByRole('button', { name: 'Approve' }).click();
+
+    await row.waitFor({ state: 'detached' });
+    expect((await db('firmware_versions').where({ id: proposed.id }).first('status')).status).toBe('approved');
+  });
 });

@@ -20,7 +20,19 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
   const [reason, setReason] = useState<string>(suggestedReason ?? '');
   const [note, setNote] = useState('');
 
-  if (available.length === 0) return <p className="text-ink-soft">There is nothing to decide on a submission that is {status.replace(/_/g, ' ')}.</p>;
+  const done = decide.isSuccess && (
+    <p role="status" className="rounded-lg bg-moss-100 p-3 font-medium text-moss-700">
+      Done: the submission is now {decide.data.status.replace(/_/g, ' ')}, and the rider has been told.
+    </p>
+  );
+  if (available.length === 0) {
+    return (
+      <div className="space-y-3">
+        {done}
+        <p className="text-ink-soft">There is nothing to decide on a submission that is {status.replace(/_/g, ' ')}.</p>
+      </div>
+    );
+  }
   const fields = decide.error instanceof ApiError ? decide.error.details?.fields ?? {} : {};
 
   function submit(event: React.FormEvent) {
@@ -84,11 +96,7 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
           {decide.error.message}
         </p>
       )}
-      {decide.isSuccess && (
-        <p role="status" className="rounded-lg bg-moss-100 p-3 font-medium text-moss-700">
-          Done: the submission is now {decide.data.status.replace(/_/g, ' ')}, and the rider has been told.
-        </p>
-      )}
+      {done}
       <button type="submit" disabled={!decision || decide.isPending} className="rounded-full bg-fjord-700 px-5 py-2 font-semibold text-paper hover:bg-fjord-900 disabled:opacity-50">
         {decide.isPending ? 'Saving…' : 'Record the decision'}
       </button>
