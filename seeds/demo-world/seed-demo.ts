@@ -2,7 +2,8 @@
 // repository, the people through the users service (each one able to sign in on
 // the fake provider), every planned ride simulated into two FIT files, uploaded
 // with createSubmission, analysed by the job's own handler, then decided by a
-// moderator through the moderation service.
+// moderator through the moderation service; then the riders' threads, the makers'
+// answers and a moderator's pinned note through the threads and curation services.
 import type { Knex } from 'knex';
 import { createSubmissionInput, type CreateSubmissionInput } from '@shared/schemas/submission';
 import { slugify, versionOrder } from '@shared/schemas/catalogue';
@@ -12,7 +13,10 @@ import { createSubmission } from '@server/features/submissions/submissions.servi
 import { analyseSubmission } from '@server/features/submissions/analyse-submission.job';
 import { ensureDemoIdentity } from '@server/fakes/demo-identities';
 import { decideSubmission } from '@server/features/moderation/moderation.service';
+import { type Config, loadConfig } from '@server/config/env';
+import type { SessionUser } from '@server/features/users/users.service';
 import { planDemoWorld, type Outcome, type PlannedSide, type PlannedSubmission } from './plan';
+import { seedThreadsAndNotes } from './threads';
 import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from './world';
 
 export interface SeedDemoOptions {
@@ -23,6 +27,8 @@ export interface SeedDemoOptions {
   /** 1 = the full demo; tests use a small fraction. */
   scale?: number;
   log?: (line: string) => void;
+  /** For the links in thread e-mails to followers; default: the environment's configuration. */
+  config?: Config;
 }
 
 export interface SeedDemoReport {
@@ -34,6 +40,10 @@ export interface SeedDemoReport {
   analysed: number;
   failed: number;
   decided: number;
+  threads: number;
+  posts: number;
+  /** Seconds spent in each step, to see where the time goes. */
+  phases: { catalogue: number; people: number; simulate: number; upload: number; analyse: number; decide: number; threads: number };
 }
 
 interface CatalogueIds {
@@ -54,36 +64,54 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
   const log = options.log ?? (() => {});
   const now = options.now ?? Math.floor(Date.now() / 1000);
   const plan = planDemoWorld({ now, seed: options.seed, scale: options.scale });
-  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0 };
+  const phases = { catalogue: 0, people: 0, simulate: 0, upload: 0, analyse: 0, decide: 0, threads: 0 };
+  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0, threads: 0, posts: 0, phases };
+  const timed = async <T>(phase: keyof typeof phases, step: () => Promise<T>): Promise<T> => {
+    const start = performance.now();
+    try {
+      return await step();
+    } finally {
+      phases[phase] += (performance.now() - start) / 1000;
+    }
+  };
   if (await options.db('makers').first('id')) {
     log('Demo world: the database already has makers, so it is left as it is.');
     return report;
   }
 
+  const config = options.config ?? loadConfig();
   await options.db.transaction(async (trx) => {
     log(`Demo world: building ${MAKERS.length} makers, ${MODELS.length} models and ${plan.length} submissions through the real pipeline…`);
-    const ids = await createCatalogue(trx, now);
-    const people = await createPeople(trx);
+    const ids = await timed('catalogue', () => createCatalogue(trx, now));
+    const people = await timed('people', () => createPeople(trx));
     for (const planned of plan) {
-      const id = await uploadAndAnalyse(trx, planned, ids, people.get(planned.rider)!);
+      const id = await uploadAndAnalyse(trx, planned, ids, people.get(planned.rider)!.id, timed);
       report.submissionIds.push(id);
       const { status } = await trx('submissions').where({ id }).first('status');
       if (status === 'failed') report.failed += 1;
       else report.analysed += 1;
       if ((planned.index + 1) % PROGRESS_EVERY === 0) log(`  ${planned.index + 1}/${plan.length} submissions analysed`);
     }
-    report.decided = await applyModerationDecisions(
-      trx,
-      plan.map((planned, i) => ({ submissionId: report.submissionIds[i], outcome: planned.outcome })),
-      people,
+    report.decided = await timed('decide', () =>
+      applyModerationDecisions(
+        trx,
+        plan.map((planned, i) => ({ submissionId: report.submissionIds[i], outcome: planned.outcome })),
+        people,
+      ),
     );
+    const conversations = await timed('threads', () =>
+      seedThreadsAndNotes({ db: trx, config, people, firmwareIds: ids.firmware, plan, submissionIds: report.submissionIds }),
+    );
+    report.threads = conversations.threads;
+    report.posts = conversations.posts;
   });
   report.seeded = true;
   report.seconds = (performance.now() - started) / 1000;
   log(
     `Demo world ready in ${report.seconds.toFixed(1)} s: ${report.analysed} submissions analysed` +
       (report.failed ? `, ${report.failed} failed` : '') +
-      `, ${report.decided} decided.`,
+      `, ${report.decided} decided, ${report.threads} threads with ${report.posts} posts` +
+      ` (${Object.entries(phases).map(([phase, seconds]) => `${phase} ${seconds.toFixed(1)} s`).join(', ')}).`,
   );
   return report;
 }
@@ -120,14 +148,13 @@ async function createCatalogue(db: Knex, now: number): Promise<CatalogueIds> {
   return ids;
 }
 
-/** Every demo person, by handle, as a user id; each can sign in on the fake provider. */
-async function createPeople(db: Knex): Promise<Map<string, number>> {
-  const ids = new Map<string, number>();
+/** Every demo person, by handle, as a signed-in user would be; each can sign in on the fake provider. */
+async function createPeople(db: Knex): Promise<Map<string, SessionUser>> {
+  const people = new Map<string, SessionUser>();
   for (const person of [...STAFF, ...RIDERS]) {
-    const user = await ensureDemoIdentity(db, { handle: person.handle, name: person.name, roles: person.roles, makerSlug: person.makerSlug });
-    ids.set(person.handle, user.id);
+    people.set(person.handle, await ensureDemoIdentity(db, { handle: person.handle, name: person.name, roles: person.roles, makerSlug: person.makerSlug }));
   }
-  return ids;
+  return people;
 }
 
 function tagsOf(side: PlannedSide, ids: CatalogueIds) {
@@ -145,9 +172,13 @@ function tagsOf(side: PlannedSide, ids: CatalogueIds) {
   };
 }
 
-async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: CatalogueIds, riderId: number): Promise<number> {
-  const pair = simulatePair(planned.simulation);
-  const b = planned.otherRide ? simulatePair(planned.otherRide).b : pair.b;
+type Timed = <T>(phase: 'simulate' | 'upload' | 'analyse', step: () => Promise<T>) => Promise<T>;
+
+async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: CatalogueIds, riderId: number, timed: Timed): Promise<number> {
+  const { pair, b } = await timed('simulate', async () => {
+    const pair = simulatePair(planned.simulation);
+    return { pair, b: planned.otherRide ? simulatePair(planned.otherRide).b : pair.b };
+  });
   const input: CreateSubmissionInput = createSubmissionInput.parse({
     a: tagsOf(planned.a, ids),
     b: tagsOf(planned.b, ids),
@@ -156,11 +187,13 @@ async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: Catal
     notes: planned.notes,
   });
   const name = `ride-${planned.index + 1}`;
-  const { id } = await createSubmission({ db }, riderId, input, {
-    a: { buffer: Buffer.from(pair.a), originalName: `${name}-a.fit` },
-    b: { buffer: Buffer.from(b), originalName: `${name}-b.fit` },
-  });
-  await analyseSubmission(db, id);
+  const { id } = await timed('upload', () =>
+    createSubmission({ db }, riderId, input, {
+      a: { buffer: Buffer.from(pair.a), originalName: `${name}-a.fit` },
+      b: { buffer: Buffer.from(b), originalName: `${name}-b.fit` },
+    }),
+  );
+  await timed('analyse', () => analyseSubmission(db, id));
   return id;
 }
 
@@ -171,14 +204,14 @@ async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: Catal
 async function applyModerationDecisions(
   db: Knex,
   decisions: Array<{ submissionId: number; outcome: Outcome }>,
-  people: Map<string, number>,
+  people: Map<string, SessionUser>,
 ): Promise<number> {
   let decided = 0;
   for (const { submissionId, outcome } of decisions) {
     if (outcome.decision === 'pending') continue;
     const status = (await db('submissions').where({ id: submissionId }).first('status')).status;
     if (status !== 'awaiting_review') continue; // the engine refused it: nothing to decide
-    const moderatorId = people.get(outcome.moderator)!;
+    const moderatorId = people.get(outcome.moderator)!.id;
     if (outcome.decision === 'accept') await decideSubmission(db, { submissionId, moderatorId, decision: 'accept' });
     else await decideSubmission(db, { submissionId, moderatorId, decision: 'reject', reason: outcome.reason, note: outcome.note });
     decided += 1;

@@ -2,6 +2,8 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { seedDemoWorld, type SeedDemoReport } from '../../../seeds/demo-world/seed-demo';
 import { injectedTruth } from '../../../seeds/demo-world/truth';
+import { PINNED_NOTE, THREAD_SCRIPTS } from '../../../seeds/demo-world/threads';
+import { slugify } from '@shared/schemas/catalogue';
 import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from '../../../seeds/demo-world/world';
 import { signInThroughFakeProvider } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
@@ -96,8 +98,31 @@ describe('seeding the demo world', () => {
     expect(of('Drumlin Trainer', '5.2').measuredBiasPercent).toBeCloseTo(100 * ((1 - 0.006) * (1 - 0.021) - 1), 5);
   });
 
+  it("when the demo's threads are read, then riders' reports carry maker answers with an official response and a status", async () => {
+    const summaries = await Promise.all(THREAD_SCRIPTS.map((script) => request(app).get(`/api/models/${slugify(script.model)}/threads`)));
+    const threads = summaries.flatMap((res) => res.body.threads);
+    const larkspur = await request(app).get(`/api/threads/${summaries[0].body.threads[0].id}`);
+
+    expect(report.threads).toBe(THREAD_SCRIPTS.length);
+    expect(threads).toHaveLength(THREAD_SCRIPTS.length);
+    expect(new Set(threads.map((t: { status: string }) => t.status))).toEqual(new Set(['fixed', 'investigating', 'acknowledged', 'open']));
+    expect(threads.filter((t: { hasOfficialResponse: boolean }) => t.hasOfficialResponse)).toHaveLength(THREAD_SCRIPTS.filter((s) => s.posts.some((p) => p.official)).length);
+    expect(larkspur.body).toMatchObject({ status: 'fixed', fixedIn: { version: '1.4' }, firmware: { version: '1.1' } });
+    expect(larkspur.body.posts).toHaveLength(THREAD_SCRIPTS[0].posts.length);
+    expect(larkspur.body.officialResponse).toMatchObject({ author: { handle: 'demo-staff-quillon-dynamics' }, staffOf: { name: 'Quillon Dynamics' } });
+    // Riders speak for no maker, whatever they write.
+    expect(larkspur.body.posts.filter((p: { staffOf: unknown }) => p.staffOf)).toHaveLength(1);
+  });
+
+  it('when the withdrawn firmware is opened, then its pinned moderator note is shown', async () => {
+    const res = await request(app).get(`/api/models/${slugify(PINNED_NOTE.model)}/firmware/${PINNED_NOTE.firmware}`);
+
+    expect(res.status).toBe(200);
+    expect(res.body.note.body).toBe(PINNED_NOTE.body);
+  });
+
   it('when the seed runs a second time, then nothing changes', async () => {
-    const tables = ['makers', 'models', 'firmware_versions', 'recording_devices', 'users', 'role_grants', 'maker_staff', 'submissions', 'submission_recordings'];
+    const tables = ['makers', 'models', 'firmware_versions', 'recording_devices', 'users', 'role_grants', 'maker_staff', 'submissions', 'submission_recordings', 'threads', 'posts', 'moderator_notes'];
     const before = await Promise.all(tables.map(countRows));
 
     const again = await seedDemoWorld(SMALL);
