@@ -1,4 +1,4 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '../../server/config/env';
 import { createDb } from '../../server/db/knex';
@@ -6,7 +6,7 @@ import { ensureDemoIdentity } from '../../server/fakes/demo-identities';
 import { createThread, replyToThread } from '../../server/features/threads/threads.service';
 import { createCatalogue, type TestCatalogue } from '../server/support/catalogue-factory';
 import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { launchBrowser, saveScreenshot, watchConsole, signedInPage } from './support/browser';
 
 const TITLE = 'Power reads 4 % high on cold mornings';
 
@@ -41,15 +41,8 @@ describe("a maker's staff member answers a thread in the browser", () => {
     await db.destroy();
   });
 
-  async function signedInPage(handle: string, returnTo: string): Promise<Page> {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await page.goto(`${baseUrl}/auth/github?login=${handle}&returnTo=${encodeURIComponent(returnTo)}`);
-    return page;
-  }
-
   it('when staff reply, mark the reply official and set the status, then the thread, the model threads and the follower see it, and the follower is e-mailed', async () => {
-    const page = await signedInPage(staffHandle, `/threads/${threadId}`);
+    const page = await signedInPage(browser, baseUrl, staffHandle, `/threads/${threadId}`);
     const errors = watchConsole(page);
     await page.getByRole('heading', { name: TITLE }).waitFor();
 
@@ -81,6 +74,12 @@ describe("a maker's staff member answers a thread in the browser", () => {
     expect(await hostile.getByRole('link').textContent()).toBe('<img src=x onerror=alert(1)> <b>bold</b> claim');
     expect(await page.locator('ul[aria-label="Threads"] img, ul[aria-label="Threads"] b').count()).toBe(0);
     await saveScreenshot(page, 'maker-journey-model-threads');
+
+    // The model page itself carries the maker's status in its discussion summary.
+    await page.goto(`${baseUrl}/models/${catalogue.spider.slug}`);
+    const summary = page.getByTestId('model-thread-summary');
+    await summary.getByRole('link', { name: TITLE }).waitFor();
+    expect(await summary.getByTestId('thread-status').first().textContent()).toBe('Maker investigating');
     expect(errors).toEqual([]);
 
     // The follower: an e-mail in the fake SMTP service's outbox, and the bell in the header.
@@ -89,7 +88,7 @@ describe("a maker's staff member answers a thread in the browser", () => {
     );
     expect(mail.text_body).toContain('temperature compensation starts too late');
     expect(mail.text_body).toContain(`/threads/${threadId}#post-`);
-    const followerPage = await signedInPage('second-rider', `/threads/${threadId}`);
+    const followerPage = await signedInPage(browser, baseUrl, 'second-rider', `/threads/${threadId}`);
     await followerPage.getByRole('heading', { name: TITLE }).waitFor();
     const bell = followerPage.getByRole('button', { name: /^Notifications, \d+ unread$/ });
     await bell.click();

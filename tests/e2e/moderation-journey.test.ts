@@ -1,10 +1,10 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '../../server/db/knex';
 import { createCatalogue } from '../server/support/catalogue-factory';
 import { submissionAwaitingReview } from '../server/moderation/moderation-fixtures';
 import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { launchBrowser, saveScreenshot, watchConsole, signedInPage } from './support/browser';
 
 describe('a moderator clears a flagged submission in the browser', () => {
   let browser: Browser;
@@ -20,16 +20,9 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await db.destroy();
   });
 
-  async function signedInPage(handle: string, returnTo: string): Promise<Page> {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
-    const page = await context.newPage();
-    await page.goto(`${baseUrl}/auth/github?login=${handle}&returnTo=${encodeURIComponent(returnTo)}`);
-    return page;
-  }
-
   it('when the demo moderator rejects a flagged submission with a reason, then the rider’s page shows the rejection and the Outbox shows the e-mail', async () => {
     // Arrange: a rider (signed in once, so the account exists) with an analysed submission carrying a severe flag.
-    const riderPage = await signedInPage('journey-rider-7', '/');
+    const riderPage = await signedInPage(browser, baseUrl, 'journey-rider-7', '/');
     await riderPage.getByRole('link', { name: 'Submit a ride' }).waitFor();
     const rider = await db('users').where({ handle: 'journey-rider-7' }).first('id');
     const catalogue = await createCatalogue(db);
@@ -38,7 +31,7 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await db('submissions').where({ id }).update({ flags: JSON.stringify(flags), flag_severity: 3 });
 
     // The queue, through the header link.
-    const moderator = await signedInPage('demo-moderator', '/');
+    const moderator = await signedInPage(browser, baseUrl, 'demo-moderator', '/');
     const errors = watchConsole(moderator);
     await moderator.getByRole('link', { name: 'Review queue' }).click();
     await moderator.getByRole('heading', { name: 'Review queue' }).waitFor();
@@ -70,7 +63,7 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await saveScreenshot(riderPage, 'moderation-4-rider-page');
 
     // The Outbox shows the e-mail.
-    const admin = await signedInPage('demo-admin', '/admin/outbox');
+    const admin = await signedInPage(browser, baseUrl, 'demo-admin', '/admin/outbox');
     const message = admin.getByTestId('outbox-message').filter({ hasText: `Your submission #${id} was not accepted` });
     await message.waitFor({ timeout: 20_000 });
     await message.getByText(`Your submission #${id} was not accepted`).click();
@@ -85,7 +78,7 @@ describe('a moderator clears a flagged submission in the browser', () => {
     const [proposed] = await db('firmware_versions')
       .insert({ model_id: catalogue.spider.id, version: '2.4.0', version_order: [2, 4, 0], status: 'pending', proposed_by: proposer.id })
       .returning('id');
-    const moderator = await signedInPage('demo-moderator', '/moderation/catalogue');
+    const moderator = await signedInPage(browser, baseUrl, 'demo-moderator', '/moderation/catalogue');
     const row = moderator.getByRole('listitem').filter({ hasText: '2.4.0' }).filter({ hasText: 'proposed by journey-rider-7' });
     await row.waitFor();
     await saveScreenshot(moderator, 'moderation-6-catalogue');

@@ -56,7 +56,7 @@ describe('signing in in the browser', () => {
 
     expect(await moderatorBox.isChecked()).toBe(true);
     await saveScreenshot(page, 'admin-users');
-    await page.getByRole('link', { name: 'Read the audit log' }).click();
+    await page.getByRole('navigation', { name: 'Admin pages' }).getByRole('link', { name: 'Audit log' }).click();
     await page.getByRole('cell', { name: 'role.granted' }).first().waitFor();
     await saveScreenshot(page, 'admin-audit-log');
   });

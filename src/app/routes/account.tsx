@@ -1,6 +1,7 @@
 import { AccountSettingsForm } from '@/features/account/components/account-settings-form';
 import { DeleteAccountForm } from '@/features/account/components/delete-account-form';
 import { RequireAccess } from '@/features/auth/components/require-access';
+import { MySubmissionsList } from '@/features/submissions/components/my-submissions-list';
 
 export function AccountRoute() {
   return (
@@ -22,8 +23,7 @@ export function AccountRoute() {
           </section>
           <section aria-labelledby="my-submissions" className="space-y-3 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
             <h2 id="my-submissions" className="text-lead font-semibold">My submissions</h2>
-            {/* The submissions feature fills this with the rider's own list. */}
-            <p className="text-ink-soft">Your paired recordings and their vetting status will be listed here.</p>
+            <MySubmissionsList />
           </section>
           <section aria-labelledby="delete" className="space-y-4 rounded-card border border-alert-100 bg-white/70 p-6 shadow-card">
             <h2 id="delete" className="text-lead font-semibold text-alert-800">Delete my account</h2>

@@ -6,7 +6,6 @@ export function AdminAuditLogRoute() {
     <AdminPage
       title="Audit log"
       intro="Every change to roles, memberships and decisions, with who made it."
-      link={{ to: '/admin/users', label: 'People and roles' }}
     >
       <AuditLogTable />
     </AdminPage>

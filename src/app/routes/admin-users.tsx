@@ -6,7 +6,6 @@ export function AdminUsersRoute() {
     <AdminPage
       title="People and roles"
       intro="Make people moderators or admins, and verify makers’ staff. Every change goes into the audit log."
-      link={{ to: '/admin/audit-log', label: 'Read the audit log' }}
     >
       <UsersTable />
     </AdminPage>

@@ -7,6 +7,7 @@ import { FirmwareComparisonTable } from '@/features/models/components/firmware-c
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
 import { ModelMasthead } from '@/features/models/components/model-masthead';
 import { RecentSubmissions } from '@/features/models/components/recent-submissions';
+import { ModelThreadSummary } from '@/features/threads/components/model-thread-summary';
 
 export function ModelRoute() {
   const { slug = '' } = useParams();
@@ -19,6 +20,9 @@ export function ModelRoute() {
       <ModelMasthead model={page.model} note={page.note} />
       <div className="mt-8">
         <HeadlineFigures figures={page.figures} />
+      </div>
+      <div className="mt-8">
+        <ModelThreadSummary modelSlug={page.model.slug} />
       </div>
       <Section title="Across firmware versions" intro="Each version's bias and power dropout rate with their 95 % intervals; overlapping bars mean the data cannot tell the versions apart.">
         <FirmwareChart firmware={page.firmware} />

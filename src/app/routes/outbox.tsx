@@ -6,7 +6,6 @@ export function OutboxRoute() {
     <AdminPage
       title="Outbox"
       intro="Every e-mail the local mail service captured, with its full text. In production, mail goes to the real SMTP host instead."
-      link={{ to: '/admin/audit-log', label: 'Audit log' }}
     >
       <OutboxList />
     </AdminPage>

@@ -45,3 +45,14 @@ export async function saveScreenshot(page: Page, name: string): Promise<string> 
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/**
+ * A page in a fresh browser context, signed in as `handle` through the fake OAuth
+ * provider (which approves `login=<handle>` without its form) and landed on `returnTo`.
+ */
+export async function signedInPage(browser: Browser, baseUrl: string, handle: string, returnTo = '/'): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const page = await context.newPage();
+  await page.goto(`${baseUrl}/auth/github?login=${encodeURIComponent(handle)}&returnTo=${encodeURIComponent(returnTo)}`);
+  return page;
+}

@@ -34,11 +34,14 @@ export function UserMenu() {
           Admin
         </Link>
       )}
+      <Link to="/my-submissions" className="hidden rounded-full px-3 py-1.5 text-caption font-medium text-ink-soft hover:bg-paper-deep hover:text-ink sm:inline">
+        My rides
+      </Link>
       <Link to="/account" className="flex items-center gap-2 rounded-full py-1 pl-1 pr-3 hover:bg-paper-deep" data-testid="signed-in-as">
         <span aria-hidden="true" className="grid h-7 w-7 place-items-center rounded-full bg-ember-100 text-caption font-semibold text-ember-900">
           {initials(user.name)}
         </span>
-        <span className="text-caption font-medium text-ink">{user.name}</span>
+        <span className="max-w-[9rem] truncate text-caption font-medium text-ink">{user.name}</span>
       </Link>
       <button
         type="button"

@@ -9,7 +9,7 @@ export function ModerationNavLink() {
     <NavLink
       to="/moderation"
       className={({ isActive }) =>
-        `rounded-full px-3.5 py-1.5 text-caption font-medium transition-colors ${isActive ? 'bg-fjord-700 text-paper' : 'text-ink-soft hover:bg-paper-deep hover:text-ink'}`
+        `shrink-0 whitespace-nowrap rounded-full px-3.5 py-1.5 text-caption font-medium transition-colors ${isActive ? 'bg-fjord-700 text-paper' : 'text-ink-soft hover:bg-paper-deep hover:text-ink'}`
       }
     >
       Review queue
