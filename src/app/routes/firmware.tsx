@@ -10,11 +10,11 @@ import { RecentSubmissions } from '@/features/models/components/recent-submissio
 export function FirmwareRoute() {
   const { slug = '', version = '' } = useParams();
   const firmware = useFirmware(slug, version);
-  if (firmware.isPending) return <p className="mx-auto max-w-page px-5 py-10 text-ink-soft sm:px-8">Loading…</p>;
-  if (firmware.isError) return <p role="alert" className="mx-auto max-w-page px-5 py-10 text-alert-800 sm:px-8">{firmware.error.message}</p>;
+  if (firmware.isPending) return <p className="text-ink-soft">Loading…</p>;
+  if (firmware.isError) return <p role="alert" className="text-alert-800">{firmware.error.message}</p>;
   const page = firmware.data;
   return (
-    <div className="mx-auto max-w-page px-5 py-10 sm:px-8">
+    <div>
       <ModelMasthead model={page.model} note={page.note} firmware={page.firmware.version} />
       <div className="mt-8">
         <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} />

@@ -12,11 +12,11 @@ import { ModelThreadSummary } from '@/features/threads/components/model-thread-s
 export function ModelRoute() {
   const { slug = '' } = useParams();
   const model = useModel(slug);
-  if (model.isPending) return <p className="mx-auto max-w-page px-5 py-10 text-ink-soft sm:px-8">Loading…</p>;
-  if (model.isError) return <p role="alert" className="mx-auto max-w-page px-5 py-10 text-alert-800 sm:px-8">{model.error.message}</p>;
+  if (model.isPending) return <p className="text-ink-soft">Loading…</p>;
+  if (model.isError) return <p role="alert" className="text-alert-800">{model.error.message}</p>;
   const page = model.data;
   return (
-    <div className="mx-auto max-w-page px-5 py-10 sm:px-8">
+    <div>
       <ModelMasthead model={page.model} note={page.note} />
       <div className="mt-8">
         <HeadlineFigures figures={page.figures} />

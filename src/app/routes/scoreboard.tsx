@@ -16,7 +16,7 @@ export function ScoreboardRoute() {
   const pages = page ? Math.max(1, Math.ceil(page.total / page.pageSize)) : 1;
 
   return (
-    <div className="mx-auto max-w-page px-5 py-10 sm:px-8">
+    <div>
       <h1 className="text-title font-semibold text-ink">Scoreboard</h1>
       <p className="mt-2 max-w-3xl text-lead text-ink-soft">
         How each power meter model reads against the meters riders paired it with, from accepted submissions only. Every figure carries its 95 % interval;

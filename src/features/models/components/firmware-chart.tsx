@@ -1,7 +1,7 @@
 import type { FirmwareSummary } from '@shared/schemas/statistics';
 
-// Two stacked panels over the firmware versions in release order: bias against
-// partners and power dropouts per hour, each a dot with its 95 % interval.
+// Stacked panels over the firmware versions in release order: bias against
+// partners, power and cadence dropouts per hour, each a dot with its 95 % interval.
 // Versions without enough evidence keep their place and are marked as such.
 const WIDTH = 640;
 const PANEL = 130;
@@ -61,17 +61,20 @@ function Panel({ title, unit, points, labels, top, zeroLine, tone }: { title: st
 export function FirmwareChart({ firmware }: { firmware: FirmwareSummary[] }) {
   const labels = firmware.map((f) => f.version);
   const bias = firmware.map((f) => (f.figures.bias ? { value: f.figures.bias.meanPercent, lower: f.figures.bias.lowerPercent, upper: f.figures.bias.upperPercent } : null));
-  const dropouts = firmware.map((f) => (f.figures.powerDropouts ? { value: f.figures.powerDropouts.perHour, lower: f.figures.powerDropouts.lower, upper: f.figures.powerDropouts.upper } : null));
+  const rate = (figure: FirmwareSummary['figures']['powerDropouts']) => (figure ? { value: figure.perHour, lower: figure.lower, upper: figure.upper } : null);
+  const powerDropouts = firmware.map((f) => rate(f.figures.powerDropouts));
+  const cadenceDropouts = firmware.map((f) => rate(f.figures.cadenceDropouts));
   const step = (WIDTH - LEFT - RIGHT) / Math.max(1, labels.length);
-  const height = PANEL * 2 + 40;
+  const height = PANEL * 3 + 50;
   const summary = firmware
     .map((f) => `${f.version}: ${f.figures.bias ? `bias ${f.figures.bias.meanPercent.toFixed(1)} %` : 'not enough data'}`)
     .join('; ');
   return (
     <figure className="rounded-card border border-paper-line bg-white p-4 shadow-card">
-      <svg viewBox={`0 0 ${WIDTH} ${height}`} className="w-full" role="img" aria-label={`Bias and power dropouts by firmware version. ${summary}`}>
+      <svg viewBox={`0 0 ${WIDTH} ${height}`} className="w-full" role="img" aria-label={`Bias, power and cadence dropouts by firmware version. ${summary}`}>
         <Panel title="Bias against partners" unit=" %" points={bias} labels={labels} top={0} zeroLine tone="ember" />
-        <Panel title="Power dropouts per hour" unit="" points={dropouts} labels={labels} top={PANEL + 10} zeroLine={false} tone="fjord" />
+        <Panel title="Power dropouts per hour" unit="" points={powerDropouts} labels={labels} top={PANEL + 10} zeroLine={false} tone="fjord" />
+        <Panel title="Cadence dropouts per hour" unit="" points={cadenceDropouts} labels={labels} top={2 * (PANEL + 10)} zeroLine={false} tone="fjord" />
         {labels.map((label, i) => (
           <text key={label} x={LEFT + step * (i + 0.5)} y={height - 6} textAnchor="middle" className="fill-ink-soft text-[11px]">
             {label}

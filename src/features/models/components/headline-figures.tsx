@@ -22,8 +22,8 @@ export function HeadlineFigures({ figures, consensus }: { figures: MeterFigures;
       </Figure>
       <Figure label="Bias against partners" note={bias ? `95 % interval ${percentRange(bias.lowerPercent, bias.upperPercent)}; median ${bias.medianPercent === null ? '—' : signedPercent(bias.medianPercent)}` : undefined}>
         {bias ? (
-          <span className="flex items-center gap-3">
-            {percentPlusMinus(bias.meanPercent, bias.lowerPercent, bias.upperPercent)}
+          <span className="flex flex-col gap-1.5">
+            <span className="whitespace-nowrap">{percentPlusMinus(bias.meanPercent, bias.lowerPercent, bias.upperPercent)}</span>
             <IntervalBar mean={bias.meanPercent} lower={bias.lowerPercent} upper={bias.upperPercent} />
           </span>
         ) : (

@@ -20,7 +20,7 @@ export function LinkedSubmissions({ submissions }: { submissions: LinkedSubmissi
                 limits {formatSignedPercent(s.loaLowerPercent)} to {formatSignedPercent(s.loaUpperPercent)}
               </span>
             )}
-            {s.powerDropouts !== null && <span className="tabular-nums text-ink-soft">{s.powerDropouts} dropouts</span>}
+            {s.powerDropouts !== null && <span className="tabular-nums text-ink-soft">{s.powerDropouts} power {s.powerDropouts === 1 ? "dropout" : "dropouts"}</span>}
           </Link>
         </li>
       ))}
