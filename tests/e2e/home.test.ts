@@ -1,23 +1,15 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { describe, expect, it } from 'vitest';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 describe('home page in the browser', () => {
-  let browser: Browser;
-  let baseUrl: string;
-
-  beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => browser?.close());
+  const e2e = useBrowserSession();
 
   it('when a visitor opens the home page, then it explains Crosswatt in Work Sans without console errors', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await e2e.browser.newPage({ viewport: { width: 1280, height: 900 } });
     const errors = watchConsole(page);
 
-    await page.goto(baseUrl);
+    await page.goto(e2e.baseUrl);
     await page.getByRole('heading', { level: 1 }).waitFor();
     await page.evaluate(() => document.fonts.ready);
 
@@ -33,9 +25,9 @@ describe('home page in the browser', () => {
   });
 
   it('when a visitor opens an unknown address, then the not-found page says so', async () => {
-    const page = await browser.newPage();
+    const page = await e2e.browser.newPage();
 
-    await page.goto(`${baseUrl}/no/such/page`);
+    await page.goto(`${e2e.baseUrl}/no/such/page`);
 
     await expect(page.getByRole('heading', { name: 'This page dropped out' }).isVisible()).resolves.toBe(true);
   });

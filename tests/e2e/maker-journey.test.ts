@@ -1,32 +1,26 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '../../server/config/env';
-import { createDb } from '../../server/db/knex';
 import { ensureDemoIdentity } from '../../server/fakes/demo-identities';
 import { createThread, replyToThread } from '../../server/features/threads/threads.service';
 import { createCatalogue, type TestCatalogue } from '../server/support/catalogue-factory';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole, signedInPage } from './support/browser';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 const TITLE = 'Power reads 4 % high on cold mornings';
 
 describe("a maker's staff member answers a thread in the browser", () => {
-  let browser: Browser;
-  let baseUrl: string;
+  const e2e = useBrowserSession();
   let catalogue: TestCatalogue;
   let threadId: number;
   let staffHandle: string;
-  const db = createDb(process.env.DATABASE_URL!);
 
   beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-    catalogue = await createCatalogue(db);
-    const deps = { db, config: loadConfig({ DATABASE_URL: process.env.DATABASE_URL, PUBLIC_URL: baseUrl }) };
+    catalogue = await createCatalogue(e2e.db);
+    const deps = { db: e2e.db, config: loadConfig({ DATABASE_URL: process.env.DATABASE_URL, PUBLIC_URL: e2e.baseUrl }) };
     staffHandle = `demo-staff-${catalogue.maker.slug}`;
-    await ensureDemoIdentity(db, { handle: staffHandle, name: 'Ilse Staffmember', makerSlug: catalogue.maker.slug });
-    const reporter = await ensureDemoIdentity(db, { handle: 'cold-morning-rider', name: 'Cold Morning Rider' });
-    const follower = await ensureDemoIdentity(db, { handle: 'second-rider', name: 'Second Rider' });
+    await ensureDemoIdentity(e2e.db, { handle: staffHandle, name: 'Ilse Staffmember', makerSlug: catalogue.maker.slug });
+    const reporter = await ensureDemoIdentity(e2e.db, { handle: 'cold-morning-rider', name: 'Cold Morning Rider' });
+    const follower = await ensureDemoIdentity(e2e.db, { handle: 'second-rider', name: 'Second Rider' });
     threadId = (await createThread(deps, reporter, catalogue.spider.slug, {
       title: TITLE,
       firmwareId: catalogue.spiderFirmware.id,
@@ -36,13 +30,9 @@ describe("a maker's staff member answers a thread in the browser", () => {
     // A hostile title on the same model: the list must show it as text.
     await createThread(deps, follower, catalogue.spider.slug, { title: '<img src=x onerror=alert(1)> <b>bold</b> claim', body: 'Testing titles.' });
   });
-  afterAll(async () => {
-    await browser?.close();
-    await db.destroy();
-  });
 
   it('when staff reply, mark the reply official and set the status, then the thread, the model threads and the follower see it, and the follower is e-mailed', async () => {
-    const page = await signedInPage(browser, baseUrl, staffHandle, `/threads/${threadId}`);
+    const page = await e2e.signedInPage(staffHandle, `/threads/${threadId}`);
     const errors = watchConsole(page);
     await page.getByRole('heading', { name: TITLE }).waitFor();
 
@@ -65,7 +55,7 @@ describe("a maker's staff member answers a thread in the browser", () => {
     await page.evaluate(() => document.fonts.ready);
     await saveScreenshot(page, 'maker-journey-thread');
 
-    await page.goto(`${baseUrl}/models/${catalogue.spider.slug}/threads`);
+    await page.goto(`${e2e.baseUrl}/models/${catalogue.spider.slug}/threads`);
     const row = page.getByRole('listitem').filter({ hasText: TITLE });
     await row.waitFor();
     expect(await row.getByTestId('thread-status').textContent()).toBe('Maker investigating');
@@ -76,7 +66,7 @@ describe("a maker's staff member answers a thread in the browser", () => {
     await saveScreenshot(page, 'maker-journey-model-threads');
 
     // The model page itself carries the maker's status in its discussion summary.
-    await page.goto(`${baseUrl}/models/${catalogue.spider.slug}`);
+    await page.goto(`${e2e.baseUrl}/models/${catalogue.spider.slug}`);
     const summary = page.getByTestId('model-thread-summary');
     await summary.getByRole('link', { name: TITLE }).waitFor();
     expect(await summary.getByTestId('thread-status').first().textContent()).toBe('Maker investigating');
@@ -84,11 +74,11 @@ describe("a maker's staff member answers a thread in the browser", () => {
 
     // The follower: an e-mail in the fake SMTP service's outbox, and the bell in the header.
     const mail = await waitFor(async () =>
-      db('mail_outbox').whereRaw('? = any(recipients)', ['second-rider@demo.crosswatt.test']).where('subject', `${catalogue.maker.name} answered: ${TITLE}`).first(),
+      e2e.db('mail_outbox').whereRaw('? = any(recipients)', ['second-rider@demo.crosswatt.test']).where('subject', `${catalogue.maker.name} answered: ${TITLE}`).first(),
     );
     expect(mail.text_body).toContain('temperature compensation starts too late');
     expect(mail.text_body).toContain(`/threads/${threadId}#post-`);
-    const followerPage = await signedInPage(browser, baseUrl, 'second-rider', `/threads/${threadId}`);
+    const followerPage = await e2e.signedInPage('second-rider', `/threads/${threadId}`);
     await followerPage.getByRole('heading', { name: TITLE }).waitFor();
     const bell = followerPage.getByRole('button', { name: /^Notifications, \d+ unread$/ });
     await bell.click();

@@ -1,37 +1,24 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createDb } from '../../server/db/knex';
+import { describe, expect, it } from 'vitest';
 import { createCatalogue } from '../server/support/catalogue-factory';
 import { submissionAwaitingReview } from '../server/moderation/moderation-fixtures';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole, signedInPage } from './support/browser';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 describe('a moderator clears a flagged submission in the browser', () => {
-  let browser: Browser;
-  let baseUrl: string;
-  const db = createDb(process.env.DATABASE_URL!);
-
-  beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await db.destroy();
-  });
+  const e2e = useBrowserSession();
 
   it('when the demo moderator rejects a flagged submission with a reason, then the rider’s page shows the rejection and the Outbox shows the e-mail', async () => {
     // Arrange: a rider (signed in once, so the account exists) with an analysed submission carrying a severe flag.
-    const riderPage = await signedInPage(browser, baseUrl, 'journey-rider-7', '/');
+    const riderPage = await e2e.signedInPage('journey-rider-7', '/');
     await riderPage.getByRole('link', { name: 'Submit a ride' }).waitFor();
-    const rider = await db('users').where({ handle: 'journey-rider-7' }).first('id');
-    const catalogue = await createCatalogue(db);
-    const { id } = await submissionAwaitingReview(db, rider.id, catalogue);
+    const rider = await e2e.db('users').where({ handle: 'journey-rider-7' }).first('id');
+    const catalogue = await createCatalogue(e2e.db);
+    const { id } = await submissionAwaitingReview(e2e.db, rider.id, catalogue);
     const flags = [{ code: 'low_correlation', severity: 'severe', message: 'The two power traces barely move together: these may not be recordings of the same ride.' }];
-    await db('submissions').where({ id }).update({ flags: JSON.stringify(flags), flag_severity: 3 });
+    await e2e.db('submissions').where({ id }).update({ flags: JSON.stringify(flags), flag_severity: 3 });
 
     // The queue, through the header link.
-    const moderator = await signedInPage(browser, baseUrl, 'demo-moderator', '/');
+    const moderator = await e2e.signedInPage('demo-moderator', '/');
     const errors = watchConsole(moderator);
     await moderator.getByRole('link', { name: 'Review queue' }).click();
     await moderator.getByRole('heading', { name: 'Review queue' }).waitFor();
@@ -55,7 +42,7 @@ describe('a moderator clears a flagged submission in the browser', () => {
     expect(errors).toEqual([]);
 
     // The rider sees the rejection with its reason and note.
-    await riderPage.goto(`${baseUrl}/submissions/${id}`);
+    await riderPage.goto(`${e2e.baseUrl}/submissions/${id}`);
     const notice = riderPage.getByTestId('decision-notice');
     await notice.getByText('The two files are not from the same ride').waitFor();
     await notice.getByText(/efforts do not line up/).waitFor();
@@ -63,7 +50,7 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await saveScreenshot(riderPage, 'moderation-4-rider-page');
 
     // The Outbox shows the e-mail.
-    const admin = await signedInPage(browser, baseUrl, 'demo-admin', '/admin/outbox');
+    const admin = await e2e.signedInPage('demo-admin', '/admin/outbox');
     const message = admin.getByTestId('outbox-message').filter({ hasText: `Your submission #${id} was not accepted` });
     await message.waitFor({ timeout: 20_000 });
     await message.getByText(`Your submission #${id} was not accepted`).click();
@@ -73,12 +60,12 @@ describe('a moderator clears a flagged submission in the browser', () => {
   });
 
   it('when the demo moderator approves a rider’s proposed firmware on the catalogue page, then it leaves the list and is approved', async () => {
-    const catalogue = await createCatalogue(db);
-    const proposer = await db('users').where({ handle: 'journey-rider-7' }).first('id');
-    const [proposed] = await db('firmware_versions')
+    const catalogue = await createCatalogue(e2e.db);
+    const proposer = await e2e.db('users').where({ handle: 'journey-rider-7' }).first('id');
+    const [proposed] = await e2e.db('firmware_versions')
       .insert({ model_id: catalogue.spider.id, version: '2.4.0', version_order: [2, 4, 0], status: 'pending', proposed_by: proposer.id })
       .returning('id');
-    const moderator = await signedInPage(browser, baseUrl, 'demo-moderator', '/moderation/catalogue');
+    const moderator = await e2e.signedInPage('demo-moderator', '/moderation/catalogue');
     const row = moderator.getByRole('listitem').filter({ hasText: '2.4.0' }).filter({ hasText: 'proposed by journey-rider-7' });
     await row.waitFor();
     await saveScreenshot(moderator, 'moderation-6-catalogue');
@@ -86,6 +73,6 @@ describe('a moderator clears a flagged submission in the browser', () => {
     await row.getByRole('button', { name: 'Approve' }).click();
 
     await row.waitFor({ state: 'detached' });
-    expect((await db('firmware_versions').where({ id: proposed.id }).first('status')).status).toBe('approved');
+    expect((await e2e.db('firmware_versions').where({ id: proposed.id }).first('status')).status).toBe('approved');
   });
 });

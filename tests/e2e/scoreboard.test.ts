@@ -1,26 +1,20 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createDb } from '../../server/db/knex';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { insertFirmware } from '../../server/features/catalogue/catalogue.repository';
 import { versionOrder } from '../../shared/schemas/catalogue';
 import { createCatalogue, type TestCatalogue } from '../server/support/catalogue-factory';
 import { acceptSubmission, insertAnalysedSubmission, insertRider } from '../server/support/statistics-factory';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 // A shopper's path: the scoreboard, a sort, a filter, then a model's page.
 describe('scoreboard in the browser', () => {
-  let browser: Browser;
-  let baseUrl: string;
+  const e2e = useBrowserSession();
   let catalogue: TestCatalogue;
-  const db = createDb(process.env.DATABASE_URL!);
 
   beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-    catalogue = await createCatalogue(db);
-    const newer = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
-    const riders = [await insertRider(db), await insertRider(db), await insertRider(db)];
+    catalogue = await createCatalogue(e2e.db);
+    const newer = await insertFirmware(e2e.db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
+    const riders = [await insertRider(e2e.db), await insertRider(e2e.db), await insertRider(e2e.db)];
     const rides: [number, number, number, number][] = [
       // firmware, bias %, hours, dropouts of the spider
       [catalogue.spiderFirmware.id, 1.2, 1.5, 0],
@@ -32,7 +26,7 @@ describe('scoreboard in the browser', () => {
       [newer.id, 3.8, 1.7, 6],
     ];
     for (const [i, [firmwareId, bias, hours, dropouts]] of rides.entries()) {
-      const id = await insertAnalysedSubmission(db, {
+      const id = await insertAnalysedSubmission(e2e.db, {
         riderId: riders[i % 3],
         a: { modelId: catalogue.spider.id, firmwareId, recordingDeviceId: catalogue.headUnit.id },
         b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
@@ -42,20 +36,16 @@ describe('scoreboard in the browser', () => {
         surface: i % 2 ? 'rough_road' : 'smooth_road',
         cadenceLagSeconds: 1,
       });
-      await acceptSubmission(db, id);
+      await acceptSubmission(e2e.db, id);
     }
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await db.destroy();
   });
 
   it('when a shopper sorts and filters the scoreboard and opens a model, then the model page shows its firmware with intervals', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await e2e.browser.newPage({ viewport: { width: 1280, height: 900 } });
     const errors = watchConsole(page);
 
     // Open the scoreboard
-    await page.goto(`${baseUrl}/scoreboard`);
+    await page.goto(`${e2e.baseUrl}/scoreboard`);
     await page.getByRole('heading', { name: 'Scoreboard', level: 1 }).waitFor();
     await page.getByRole('link', { name: 'Orbit' }).waitFor();
     await page.evaluate(() => document.fonts.ready);
@@ -78,7 +68,7 @@ describe('scoreboard in the browser', () => {
     // Open the model
     await page.getByRole('link', { name: 'Orbit' }).click();
     await page.getByRole('heading', { level: 1, name: /Orbit/ }).waitFor();
-    await page.getByRole('img', { name: /Bias and power dropouts by firmware version/ }).waitFor();
+    await page.getByRole('img', { name: /Bias, power and cadence dropouts by firmware version/ }).waitFor();
     expect(await page.getByRole('row', { name: /2\.2\.0/ }).textContent()).toMatch(/× \(/);
     expect(await page.getByRole('link', { name: /Discussion threads/ }).getAttribute('href')).toBe(`/models/${catalogue.spider.slug}/threads`);
     await page.evaluate(() => document.fonts.ready);

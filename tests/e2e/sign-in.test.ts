@@ -1,22 +1,14 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { describe, expect, it } from 'vitest';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 describe('signing in in the browser', () => {
-  let browser: Browser;
-  let baseUrl: string;
-
-  beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-  });
-  afterAll(async () => browser?.close());
+  const e2e = useBrowserSession();
 
   it('when a visitor creates an identity on the fake provider page, then they land back signed in with their name in the header, and can sign out', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await e2e.browser.newPage({ viewport: { width: 1280, height: 900 } });
     const errors = watchConsole(page);
-    await page.goto(baseUrl);
+    await page.goto(e2e.baseUrl);
 
     await page.getByRole('link', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: 'Who do you want to be?' }).waitFor();
@@ -27,7 +19,7 @@ describe('signing in in the browser', () => {
     await page.getByRole('button', { name: 'Create and continue' }).click();
     await page.getByTestId('signed-in-as').waitFor();
 
-    expect(new URL(page.url()).origin).toBe(baseUrl);
+    expect(new URL(page.url()).origin).toBe(e2e.baseUrl);
     expect(await page.getByTestId('signed-in-as').textContent()).toContain('Sola Brennvik');
     await saveScreenshot(page, 'signed-in');
 
@@ -40,8 +32,8 @@ describe('signing in in the browser', () => {
   });
 
   it('when the demo admin signs in, then they can make another person a moderator on the admin page', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await page.goto(`${baseUrl}/admin/users`);
+    const page = await e2e.browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await page.goto(`${e2e.baseUrl}/admin/users`);
     await page.getByRole('heading', { name: 'Sign in to continue' }).waitFor();
 
     await page.getByRole('link', { name: 'Sign in', exact: true }).last().click();
@@ -62,8 +54,8 @@ describe('signing in in the browser', () => {
   });
 
   it('when a rider opens the admin page, then they see the not-allowed page, not a blank screen', async () => {
-    const page = await browser.newPage();
-    await page.goto(`${baseUrl}/auth/github?login=plain-rider-e2e&returnTo=/admin/users`);
+    const page = await e2e.browser.newPage();
+    await page.goto(`${e2e.baseUrl}/auth/github?login=plain-rider-e2e&returnTo=/admin/users`);
 
     await page.getByRole('heading', { name: 'This part is not open to you' }).waitFor();
 

@@ -1,35 +1,26 @@
 import path from 'node:path';
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createDb } from '../../server/db/knex';
+import type { Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { createCatalogue, type TestCatalogue } from '../server/support/catalogue-factory';
-import { startAppForBrowser } from './support/app-server';
-import { launchBrowser, saveScreenshot, watchConsole } from './support/browser';
+import { saveScreenshot, watchConsole } from './support/browser';
+import { useBrowserSession } from './support/browser-session';
 
 const demoPair = (side: 'a' | 'b', pair = '01-clean-bias') => path.resolve(`demo/pairs/${pair}-${side}.fit`);
 // The first bytes of a PNG image (PNG specification, section 5.2) and a little more: not a FIT file.
 const PNG_BYTES = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, ...new Array(64).fill(7)]);
 
 describe('a rider submits a paired recording in the browser', () => {
-  let browser: Browser;
-  let baseUrl: string;
+  const e2e = useBrowserSession();
   let catalogue: TestCatalogue;
-  const db = createDb(process.env.DATABASE_URL!);
 
   beforeAll(async () => {
-    baseUrl = (await startAppForBrowser()).url;
-    browser = await launchBrowser();
-    catalogue = await createCatalogue(db);
-  });
-  afterAll(async () => {
-    await browser?.close();
-    await db.destroy();
+    catalogue = await createCatalogue(e2e.db);
   });
 
   async function signedInPage(handle: string, viewport = { width: 1280, height: 900 }): Promise<Page> {
-    const context = await browser.newContext({ viewport });
+    const context = await e2e.browser.newContext({ viewport });
     const page = await context.newPage();
-    await page.goto(`${baseUrl}/auth/github?login=${handle}&returnTo=/submit`);
+    await page.goto(`${e2e.baseUrl}/auth/github?login=${handle}&returnTo=/submit`);
     await page.getByRole('heading', { name: 'Two meters, one ride' }).waitFor();
     return page;
   }
@@ -145,7 +136,7 @@ describe('a rider submits a paired recording in the browser', () => {
     await page.waitForURL(/\/submissions\/\d+$/);
     const firstUrl = page.url();
 
-    await page.goto(`${baseUrl}/submit`);
+    await page.goto(`${e2e.baseUrl}/submit`);
     await sendPair();
 
     const alert = page.getByRole('alert').filter({ hasText: 'uploaded before' });
