@@ -1,49 +1,38 @@
+import type { ComponentType } from 'react';
 import { createBrowserRouter, RouterProvider } from 'react-router-dom';
-import { AccountRoute } from './routes/account';
-import { AdminAuditLogRoute } from './routes/admin-audit-log';
-import { AdminUsersRoute } from './routes/admin-users';
-import { FirmwareRoute } from './routes/firmware';
-import { ForbiddenRoute } from './routes/forbidden';
 import { HomeRoute } from './routes/home';
-import { MethodologyRoute } from './routes/methodology';
-import { ModelRoute } from './routes/model';
-import { ModelThreadsRoute } from './routes/model-threads';
-import { ModerationCatalogueRoute } from './routes/moderation-catalogue';
-import { ModerationQueueRoute } from './routes/moderation-queue';
-import { ModerationReviewRoute } from './routes/moderation-review';
-import { MySubmissionsRoute } from './routes/my-submissions';
 import { NotFoundRoute } from './routes/not-found';
-import { OutboxRoute } from './routes/outbox';
 import { RootLayout } from './routes/root-layout';
-import { ScoreboardRoute } from './routes/scoreboard';
-import { SignInRoute } from './routes/sign-in';
-import { SubmissionRoute } from './routes/submission';
-import { SubmitRoute } from './routes/submit';
-import { ThreadRoute } from './routes/thread';
+
+// Every page but the home page is its own chunk, loaded when first visited: the
+// charts and the in-browser analysis engine stay out of the first download.
+function page<M>(load: () => Promise<M>, name: keyof M) {
+  return async () => ({ Component: (await load())[name] as ComponentType });
+}
 
 const router = createBrowserRouter([
   {
     element: <RootLayout />,
     children: [
       { index: true, element: <HomeRoute /> },
-      { path: 'scoreboard', element: <ScoreboardRoute /> },
-      { path: 'models/:slug', element: <ModelRoute /> },
-      { path: 'models/:slug/firmware/:version', element: <FirmwareRoute /> },
-      { path: 'methodology', element: <MethodologyRoute /> },
-      { path: 'submit', element: <SubmitRoute /> },
-      { path: 'submissions/:id', element: <SubmissionRoute /> },
-      { path: 'my-submissions', element: <MySubmissionsRoute /> },
-      { path: 'sign-in', element: <SignInRoute /> },
-      { path: 'account', element: <AccountRoute /> },
-      { path: 'admin/users', element: <AdminUsersRoute /> },
-      { path: 'admin/audit-log', element: <AdminAuditLogRoute /> },
-      { path: 'admin/outbox', element: <OutboxRoute /> },
-      { path: 'moderation', element: <ModerationQueueRoute /> },
-      { path: 'moderation/catalogue', element: <ModerationCatalogueRoute /> },
-      { path: 'moderation/submissions/:id', element: <ModerationReviewRoute /> },
-      { path: 'models/:slug/threads', element: <ModelThreadsRoute /> },
-      { path: 'threads/:id', element: <ThreadRoute /> },
-      { path: 'forbidden', element: <ForbiddenRoute /> },
+      { path: 'scoreboard', lazy: page(() => import('./routes/scoreboard'), 'ScoreboardRoute') },
+      { path: 'models/:slug', lazy: page(() => import('./routes/model'), 'ModelRoute') },
+      { path: 'models/:slug/firmware/:version', lazy: page(() => import('./routes/firmware'), 'FirmwareRoute') },
+      { path: 'models/:slug/threads', lazy: page(() => import('./routes/model-threads'), 'ModelThreadsRoute') },
+      { path: 'threads/:id', lazy: page(() => import('./routes/thread'), 'ThreadRoute') },
+      { path: 'methodology', lazy: page(() => import('./routes/methodology'), 'MethodologyRoute') },
+      { path: 'submit', lazy: page(() => import('./routes/submit'), 'SubmitRoute') },
+      { path: 'submissions/:id', lazy: page(() => import('./routes/submission'), 'SubmissionRoute') },
+      { path: 'my-submissions', lazy: page(() => import('./routes/my-submissions'), 'MySubmissionsRoute') },
+      { path: 'sign-in', lazy: page(() => import('./routes/sign-in'), 'SignInRoute') },
+      { path: 'account', lazy: page(() => import('./routes/account'), 'AccountRoute') },
+      { path: 'admin/users', lazy: page(() => import('./routes/admin-users'), 'AdminUsersRoute') },
+      { path: 'admin/audit-log', lazy: page(() => import('./routes/admin-audit-log'), 'AdminAuditLogRoute') },
+      { path: 'admin/outbox', lazy: page(() => import('./routes/outbox'), 'OutboxRoute') },
+      { path: 'moderation', lazy: page(() => import('./routes/moderation-queue'), 'ModerationQueueRoute') },
+      { path: 'moderation/catalogue', lazy: page(() => import('./routes/moderation-catalogue'), 'ModerationCatalogueRoute') },
+      { path: 'moderation/submissions/:id', lazy: page(() => import('./routes/moderation-review'), 'ModerationReviewRoute') },
+      { path: 'forbidden', lazy: page(() => import('./routes/forbidden'), 'ForbiddenRoute') },
       { path: '*', element: <NotFoundRoute /> },
     ],
   },
