@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { decideSubmission } from '../../../server/features/moderation/moderation.service';
 import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS } from '../../../server/features/submissions/analyse-submission.job';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
 import { createSubmissionInput } from '../../../shared/schemas/submission';
@@ -116,5 +117,21 @@ describe('who sees a submission before it is accepted', () => {
     const res = await rider.agent.get('/api/me/submissions');
     expect(res.status).toBe(200);
     expect(res.body.submissions.map((s: { id: number }) => s.id)).toContain(id);
+  });
+});
+
+describe('who sees a submission once it is accepted', () => {
+  it('when a moderator has accepted it, then a visitor sees it, without the devices\' serial numbers', async () => {
+    const { id } = await storedSubmission(61);
+    await analyseSubmission(db, id);
+    const moderator = await signedInAgent(app, { handle: 'accepting-moderator', roles: ['moderator'] });
+    await decideSubmission(db, { submissionId: id, moderatorId: moderator.user.id, decision: 'accept' });
+
+    const res = await request(app).get(`/api/submissions/${id}`);
+
+    expect(res.status).toBe(200);
+    expect(res.body.status).toBe('accepted');
+    expect(res.body.isOwn).toBe(false);
+    expect(res.body.recordings.every((r: Record<string, unknown>) => !('deviceInfo' in r))).toBe(true);
   });
 });
