@@ -169,21 +169,31 @@ export interface RecentSubmissionRow {
   partner_firmware: string;
 }
 
+/** A model's (or one firmware's) latest accepted sides, newest decision first, each with its partner meter. */
 export async function findRecentAccepted(db: Knex, where: { modelId: number; firmwareId?: number }, limit: number): Promise<RecentSubmissionRow[]> {
-  const query = db('submission_recordings as r')
+  // The latest few first (index on the model's sides, then each submission by key),
+  // and only then their partners: joining the partners of every side of the model
+  // before the limit cost ten times more.
+  const latest = db('submission_recordings as r')
     .join('submissions as s', 's.id', 'r.submission_id')
-    .join('firmware_versions as f', 'f.id', 'r.firmware_id')
-    .join('submission_recordings as p', (j) => j.on('p.submission_id', 's.id').andOn('p.side', '<>', 'r.side'))
-    .join('models as pm', 'pm.id', 'p.model_id')
-    .join('makers as pmk', 'pmk.id', 'pm.maker_id')
-    .join('firmware_versions as pf', 'pf.id', 'p.firmware_id')
     .where('r.model_id', where.modelId)
     .where('s.status', 'accepted')
     .orderByRaw('s.decided_at desc nulls last, s.id desc')
     .limit(limit)
+    .select('s.id', 'r.side', 'r.firmware_id', 's.decided_at');
+  if (where.firmwareId !== undefined) latest.where('r.firmware_id', where.firmwareId);
+  return db
+    .from(latest.as('l'))
+    .join('submissions as s', 's.id', 'l.id')
+    .join('firmware_versions as f', 'f.id', 'l.firmware_id')
+    .join('submission_recordings as p', (j) => j.on('p.submission_id', 'l.id').andOn('p.side', '<>', 'l.side'))
+    .join('models as pm', 'pm.id', 'p.model_id')
+    .join('makers as pmk', 'pmk.id', 'pm.maker_id')
+    .join('firmware_versions as pf', 'pf.id', 'p.firmware_id')
+    .orderByRaw('l.decided_at desc nulls last, l.id desc')
     .select(
       's.id',
-      'r.side',
+      'l.side',
       db.raw(`to_char(s.ride_started_at at time zone 'UTC', 'YYYY-MM') as ride_month`),
       'f.version as firmware',
       's.bias_percent',
@@ -197,8 +207,6 @@ export async function findRecentAccepted(db: Knex, where: { modelId: number; fir
       'pmk.name as partner_maker_name',
       'pf.version as partner_firmware',
     );
-  if (where.firmwareId !== undefined) query.where('r.firmware_id', where.firmwareId);
-  return query;
 }
 
 export async function findPinnedNote(db: Knex, subject: { modelId: number } | { firmwareId: number }) {

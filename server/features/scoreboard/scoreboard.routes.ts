@@ -1,4 +1,4 @@
-import { Router } from 'express';
+import { type Response, Router } from 'express';
 import * as method from '@shared/analysis/method';
 import { firmwareParams, modelParams, OPEN_DATA_LICENCE, scoreboardCsvQuery, scoreboardQuery } from '@shared/schemas/statistics';
 import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
@@ -7,6 +7,7 @@ import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
 import type { Db } from '../../db/knex';
 import { validate } from '../../middleware/validate';
 import { scoreboardCsv, writeSubmissionsCsv } from './open-data';
+import { createPageCache, type KeptPage } from './page-cache';
 import { getFirmwarePage, getModelPage, getScoreboard } from './scoreboard.service';
 
 // Public, read-only: the scoreboard, model and firmware pages, the method's
@@ -14,15 +15,21 @@ import { getFirmwarePage, getModelPage, getScoreboard } from './scoreboard.servi
 export function scoreboardRouter({ db }: { db: Db }) {
   const router = Router();
   const licenceHeader = `<${OPEN_DATA_LICENCE.url}>; rel="license"`;
+  // Between two changes every shopper sees the same pages: answer them from memory.
+  const pages = createPageCache(db);
+  // The entity tag is set beforehand, so Express neither hashes the body again nor sends it to a client that has it (304).
+  const sendJson = (res: Response, page: KeptPage) => res.type('json').set('ETag', page.etag).send(page.body);
 
   router.get('/scoreboard', validate(scoreboardQuery, 'query'), async (_req, res) => {
-    res.json(await getScoreboard(db, res.locals.query));
+    const query = res.locals.query;
+    sendJson(res, await pages.get(`scoreboard ${JSON.stringify(query)}`, async () => JSON.stringify(await getScoreboard(db, query))));
   });
 
   router.get('/scoreboard.csv', validate(scoreboardCsvQuery, 'query'), async (_req, res) => {
-    const csv = await scoreboardCsv(db, res.locals.query);
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="crosswatt-scoreboard.csv"', Link: licenceHeader });
-    res.send(csv);
+    const query = res.locals.query;
+    const csv = await pages.get(`scoreboard.csv ${JSON.stringify(query)}`, () => scoreboardCsv(db, query));
+    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="crosswatt-scoreboard.csv"', Link: licenceHeader, ETag: csv.etag });
+    res.send(csv.body);
   });
 
   router.get('/submissions.csv', async (_req, res) => {
@@ -32,11 +39,13 @@ export function scoreboardRouter({ db }: { db: Db }) {
   });
 
   router.get('/models/:slug', validate(modelParams, 'params'), async (_req, res) => {
-    res.json(await getModelPage(db, res.locals.params.slug));
+    const { slug } = res.locals.params;
+    sendJson(res, await pages.get(`model ${slug}`, async () => JSON.stringify(await getModelPage(db, slug))));
   });
 
   router.get('/models/:slug/firmware/:version', validate(firmwareParams, 'params'), async (_req, res) => {
-    res.json(await getFirmwarePage(db, res.locals.params.slug, res.locals.params.version));
+    const { slug, version } = res.locals.params;
+    sendJson(res, await pages.get(`firmware ${slug} ${version}`, async () => JSON.stringify(await getFirmwarePage(db, slug, version))));
   });
 
   router.get('/methodology', (_req, res) => {

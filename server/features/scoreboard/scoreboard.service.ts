@@ -14,7 +14,6 @@ import type {
 import { medianBias } from '@shared/statistics/weighted-bias';
 import { NotFoundError } from '../../lib/errors';
 import { sideBias } from '../statistics/contributions';
-import { ensureConsensusFresh } from '../statistics/consensus.service';
 import { compareFirmware, dropoutBreakdown, meterFigures, type DropoutTagRow, type StatisticsRow } from '../statistics/figures';
 import * as repository from './scoreboard.repository';
 
@@ -66,11 +65,10 @@ function modelHeader(model: repository.ModelRow): ModelHeader {
   };
 }
 
-/** Everything both pages need about a model: its figures per firmware and overall. */
+/** Everything both pages need about a model: its figures per firmware and overall (consensus offsets as last fitted: page-cache.ts refits stale ones first). */
 async function loadModel(db: Knex, slug: string) {
   const model = await repository.findModelBySlug(db, slug);
   if (!model) throw new NotFoundError('No such model in the catalogue.');
-  await ensureConsensusFresh(db);
   const [firmware, statistics, consensus, biases] = await Promise.all([
     repository.findFirmwareOfModel(db, model.id),
     repository.findStatisticsOfModel(db, model.id),

@@ -125,24 +125,26 @@ export async function updateAggregatesForSubmission(trx: Knex.Transaction, submi
   const recordings: RecordingRow[] = await trx('submission_recordings').where({ submission_id: submissionId }).select(RECORDING_COLUMNS);
   const deltas = emptyDeltas();
   accumulate(deltas, contributionsOf(submission, recordings), change === 'add' ? 1 : -1);
-  await applyDeltas(trx, deltas);
+  await applyDeltas(trx, deltas, change);
 }
 
-async function applyDeltas(trx: Knex.Transaction, deltas: Deltas): Promise<void> {
+async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' | 'remove'): Promise<void> {
   if (deltas.stats.size === 0) return;
 
   // Riders first: a scope's distinct-rider count changes when a rider's count leaves or reaches zero.
   const riderChange = new Map<string, number>();
+  const riderRowsLeft: number[] = [];
   if (deltas.riders.size > 0) {
     const riders = [...deltas.riders.values()];
-    const returned: { model_id: number; firmware_id: number | null; rider_id: number; contribution_count: number }[] = await trx(
+    const returned: { id: number; model_id: number; firmware_id: number | null; rider_id: number; contribution_count: number }[] = await trx(
       'meter_statistics_riders',
     )
       .insert(riders.map(riderRow))
       .onConflict(['model_id', 'firmware_id', 'rider_id'])
       .merge({ contribution_count: trx.raw('meter_statistics_riders.contribution_count + excluded.contribution_count') })
-      .returning(['model_id', 'firmware_id', 'rider_id', 'contribution_count']);
+      .returning(['id', 'model_id', 'firmware_id', 'rider_id', 'contribution_count']);
     for (const row of returned) {
+      if (row.contribution_count <= 0) riderRowsLeft.push(row.id);
       const key = scopeKey({ modelId: row.model_id, firmwareId: row.firmware_id });
       const delta = deltas.riders.get(`${key}:${row.rider_id}`)!.count;
       const before = row.contribution_count - delta;
@@ -186,11 +188,15 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas): Promise<void>
     });
 
   // A removal can empty a scope: drop its rows so that they look as a recompute leaves them.
-  const modelIds = [...new Set([...deltas.stats.values()].map((s) => s.modelId))];
-  await trx('meter_statistics_riders').whereIn('model_id', modelIds).where('contribution_count', '<=', 0).delete();
-  await trx('cadence_lag_counts').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
-  await trx('dropout_tag_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
-  await trx('meter_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+  // (An addition only raises counts, so it has nothing to drop.)
+  if (change === 'remove') {
+    const modelIds = [...new Set([...deltas.stats.values()].map((s) => s.modelId))];
+    // Riders are many per model: drop just the rows this decision brought to zero.
+    if (riderRowsLeft.length > 0) await trx('meter_statistics_riders').whereIn('id', riderRowsLeft).delete();
+    await trx('cadence_lag_counts').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+    await trx('dropout_tag_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+    await trx('meter_statistics').whereIn('model_id', modelIds).where('submission_count', '<=', 0).delete();
+  }
 
   if (deltas.lags.size > 0) await refreshCadenceMedians(trx, [...deltas.stats.values()]);
   if (deltas.likeForLike) await trx('statistics_state').where({ id: 1 }).update({ consensus_stale: true });
@@ -201,15 +207,19 @@ async function refreshCadenceMedians(trx: Knex.Transaction, scopes: Scope[]): Pr
   const counts: { model_id: number; firmware_id: number | null; lag_seconds: number; submission_count: number }[] = await trx('cadence_lag_counts')
     .whereIn('model_id', modelIds)
     .select('model_id', 'firmware_id', 'lag_seconds', 'submission_count');
-  for (const scope of scopes) {
+  const medians = scopes.map((scope) => {
     const histogram = counts
       .filter((c) => c.model_id === scope.modelId && c.firmware_id === scope.firmwareId)
       .map((c) => ({ value: c.lag_seconds, count: c.submission_count }));
-    await trx('meter_statistics')
-      .where({ model_id: scope.modelId })
-      .andWhere((q) => (scope.firmwareId === null ? q.whereNull('firmware_id') : q.where('firmware_id', scope.firmwareId)))
-      .update({ median_cadence_lag_seconds: medianOfHistogram(histogram) });
-  }
+    return [scope.modelId, scope.firmwareId, medianOfHistogram(histogram)];
+  });
+  // One statement for every scope the decision touched.
+  await trx.raw(
+    `update meter_statistics st set median_cadence_lag_seconds = v.median
+     from (values ${medians.map(() => '(?::int, ?::int, ?::float8)').join(', ')}) as v(model_id, firmware_id, median)
+     where st.model_id = v.model_id and st.firmware_id is not distinct from v.firmware_id`,
+    medians.flat(),
+  );
 }
 
 /**
