@@ -1,11 +1,14 @@
 import { useParams } from 'react-router-dom';
 import { PageSection as Section } from '@/components/ui/page-section';
 import { useFirmware } from '@/features/models/api/get-firmware';
+import { getModelQueryOptions } from '@/features/models/api/get-model';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
 import { ModelMasthead } from '@/features/models/components/model-masthead';
 import { RecentSubmissions } from '@/features/models/components/recent-submissions';
+import { ModeratorFirmwareTools } from '@/features/moderation/components/moderator-firmware-tools';
+import { getScoreboardQueryOptions } from '@/features/scoreboard/api/get-scoreboard';
 
 export function FirmwareRoute() {
   const { slug = '', version = '' } = useParams();
@@ -16,6 +19,12 @@ export function FirmwareRoute() {
   return (
     <div>
       <ModelMasthead model={page.model} note={page.note} firmware={page.firmware.version} />
+      <ModeratorFirmwareTools
+        modelSlug={page.model.slug}
+        version={page.firmware.version}
+        note={page.note?.body ?? null}
+        affects={[getModelQueryOptions(slug).queryKey, getScoreboardQueryOptions({}).queryKey]}
+      />
       <div className="mt-8">
         <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} />
       </div>

@@ -1,12 +1,14 @@
 import { useParams } from 'react-router-dom';
 import { PageSection as Section } from '@/components/ui/page-section';
-import { useModel } from '@/features/models/api/get-model';
+import { getModelQueryOptions, useModel } from '@/features/models/api/get-model';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
 import { FirmwareChart } from '@/features/models/components/firmware-chart';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
 import { ModelMasthead } from '@/features/models/components/model-masthead';
 import { RecentSubmissions } from '@/features/models/components/recent-submissions';
+import { ModeratorModelTools } from '@/features/moderation/components/moderator-model-tools';
+import { getScoreboardQueryOptions } from '@/features/scoreboard/api/get-scoreboard';
 import { ModelThreadSummary } from '@/features/threads/components/model-thread-summary';
 
 export function ModelRoute() {
@@ -18,6 +20,12 @@ export function ModelRoute() {
   return (
     <div>
       <ModelMasthead model={page.model} note={page.note} />
+      <ModeratorModelTools
+        modelSlug={page.model.slug}
+        note={page.note?.body ?? null}
+        hiddenReason={page.model.hiddenReason}
+        affects={[getModelQueryOptions(slug).queryKey, getScoreboardQueryOptions({}).queryKey]}
+      />
       <div className="mt-8">
         <HeadlineFigures figures={page.figures} />
       </div>

@@ -1,22 +1,37 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type QueryKey, useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CatalogueEntryType, CurateEntryInput, MergeEntriesInput } from '@shared/schemas/moderation';
 import { api } from '@/lib/api-client';
+import { getCurationCatalogueQueryOptions } from './get-curation-catalogue';
 import { getPendingEntriesQueryOptions } from './get-pending-entries';
 
 export type CurationAction =
   | { kind: 'curate'; type: CatalogueEntryType; id: number; input: CurateEntryInput }
   | { kind: 'merge'; type: CatalogueEntryType; id: number; input: MergeEntriesInput };
 
+/** What the server answers: the curated entry, or what a merge moved. */
+export type CurationResult =
+  | { id: number; type: CatalogueEntryType; name: string; status: string }
+  | { mergedId: number; intoId: number; movedRecordings: number; movedAcceptedSubmissions: number };
+
 export function curateEntry(action: CurationAction) {
   const path = `/api/moderation/catalogue/${action.type}/${action.id}${action.kind === 'merge' ? '/merge' : ''}`;
-  return api.post<unknown>(path, action.input);
+  return api.post<CurationResult>(path, action.input);
 }
 
-/** Approve, reject, rename or merge a catalogue entry; the pending list refreshes afterwards. */
-export function useCurateEntry() {
+/**
+ * Approve, reject, rename or merge a catalogue entry; the pending list and the
+ * moderators' catalogue refresh afterwards, and so do the pages in `affects`
+ * (their own query keys, passed by the page that composes this).
+ */
+export function useCurateEntry({ affects = [] }: { affects?: QueryKey[] } = {}) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: curateEntry,
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: getPendingEntriesQueryOptions().queryKey }),
+    onSuccess: (_result, action) => {
+      for (const queryKey of [getPendingEntriesQueryOptions().queryKey, getCurationCatalogueQueryOptions().queryKey]) void queryClient.invalidateQueries({ queryKey });
+      // After a merge the merged entry's page is gone (the page moves on to the kept
+      // one): mark the pages stale without refetching the one still on screen.
+      for (const queryKey of affects) void queryClient.invalidateQueries({ queryKey, refetchType: action.kind === 'merge' ? 'none' : 'active' });
+    },
   });
 }
