@@ -215,3 +215,37 @@ export async function findPinnedNote(db: Knex, subject: { modelId: number } | { 
     .first('body', 'pinned_at');
   return row ? { body: row.body as string, pinnedAt: new Date(row.pinned_at).toISOString() } : null;
 }
+
+/**
+ * Where a merged model's old address leads: the slug of the model it was merged
+ * into, following merges of merges (the old name stays an alias that still finds it).
+ */
+export async function findMergedModelTarget(db: Knex, slug: string): Promise<string | undefined> {
+  const row = await db
+    .withRecursive('chain', (q) => {
+      q.select('id', 'slug', 'status', 'merged_into_id', db.raw('0 as depth'))
+        .from('models')
+        .where({ slug, status: 'merged' })
+        .unionAll((u) =>
+          u
+            .select('m.id', 'm.slug', 'm.status', 'm.merged_into_id', db.raw('chain.depth + 1'))
+            .from('models as m')
+            .join('chain', 'chain.merged_into_id', 'm.id')
+            .where('chain.depth', '<', 10),
+        );
+    })
+    .from('chain')
+    .where('status', 'approved')
+    .first('slug');
+  return row?.slug;
+}
+
+/** Where a merged firmware version's old address leads: its model's slug and the kept version. */
+export async function findMergedFirmwareTarget(db: Knex, modelSlug: string, version: string): Promise<{ slug: string; version: string } | undefined> {
+  return db('firmware_versions as old')
+    .join('models as m', 'm.id', 'old.model_id')
+    .join('firmware_versions as kept', 'kept.id', 'old.merged_into_id')
+    .join('models as km', 'km.id', 'kept.model_id')
+    .where({ 'm.slug': modelSlug, 'old.version': version, 'old.status': 'merged', 'kept.status': 'approved' })
+    .first('km.slug as slug', 'kept.version as version');
+}

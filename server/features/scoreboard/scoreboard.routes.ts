@@ -5,9 +5,11 @@ import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
 import type { Db } from '../../db/knex';
+import { NotFoundError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import { scoreboardCsv, writeSubmissionsCsv } from './open-data';
 import { createPageCache, type KeptPage } from './page-cache';
+import { findMergedFirmwareTarget, findMergedModelTarget } from './scoreboard.repository';
 import { getFirmwarePage, getModelPage, getScoreboard } from './scoreboard.service';
 
 // Public, read-only: the scoreboard, model and firmware pages, the method's
@@ -40,12 +42,25 @@ export function scoreboardRouter({ db }: { db: Db }) {
 
   router.get('/models/:slug', validate(modelParams, 'params'), async (_req, res) => {
     const { slug } = res.locals.params;
-    sendJson(res, await pages.get(`model ${slug}`, async () => JSON.stringify(await getModelPage(db, slug))));
+    const page = await pages.get(`model ${slug}`, async () => JSON.stringify(await getModelPage(db, slug))).catch(async (error) => {
+      const kept = error instanceof NotFoundError ? await findMergedModelTarget(db, slug) : undefined;
+      if (!kept) throw error;
+      return kept;
+    });
+    // A merged model's old address leads to the model it became.
+    if (typeof page === 'string') return res.redirect(308, `/api/models/${encodeURIComponent(page)}`);
+    sendJson(res, page);
   });
 
   router.get('/models/:slug/firmware/:version', validate(firmwareParams, 'params'), async (_req, res) => {
     const { slug, version } = res.locals.params;
-    sendJson(res, await pages.get(`firmware ${slug} ${version}`, async () => JSON.stringify(await getFirmwarePage(db, slug, version))));
+    const page = await pages.get(`firmware ${slug} ${version}`, async () => JSON.stringify(await getFirmwarePage(db, slug, version))).catch(async (error) => {
+      const kept = error instanceof NotFoundError ? await findMergedFirmwareTarget(db, slug, version) : undefined;
+      if (!kept) throw error;
+      return kept;
+    });
+    if ('slug' in page) return res.redirect(308, `/api/models/${encodeURIComponent(page.slug)}/firmware/${encodeURIComponent(page.version)}`);
+    sendJson(res, page);
   });
 
   router.get('/methodology', (_req, res) => {

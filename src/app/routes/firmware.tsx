@@ -1,4 +1,4 @@
-import { useParams } from 'react-router-dom';
+import { Navigate, useParams } from 'react-router-dom';
 import { PageSection as Section } from '@/components/ui/page-section';
 import { useFirmware } from '@/features/models/api/get-firmware';
 import { getModelQueryOptions } from '@/features/models/api/get-model';
@@ -16,6 +16,10 @@ export function FirmwareRoute() {
   if (firmware.isPending) return <p className="text-ink-soft">Loading…</p>;
   if (firmware.isError) return <p role="alert" className="text-alert-800">{firmware.error.message}</p>;
   const page = firmware.data;
+  // A merged version's old address answers with the version it became: show that address.
+  if (page.model.slug !== slug || page.firmware.version !== version) {
+    return <Navigate to={`/models/${page.model.slug}/firmware/${page.firmware.version}`} replace />;
+  }
   return (
     <div>
       <ModelMasthead model={page.model} note={page.note} firmware={page.firmware.version} />

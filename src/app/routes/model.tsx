@@ -1,4 +1,4 @@
-import { useParams } from 'react-router-dom';
+import { Navigate, useParams } from 'react-router-dom';
 import { PageSection as Section } from '@/components/ui/page-section';
 import { getModelQueryOptions, useModel } from '@/features/models/api/get-model';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
@@ -17,6 +17,8 @@ export function ModelRoute() {
   if (model.isPending) return <p className="text-ink-soft">Loading…</p>;
   if (model.isError) return <p role="alert" className="text-alert-800">{model.error.message}</p>;
   const page = model.data;
+  // A merged model's old address answers with the model it became: show that address.
+  if (page.model.slug !== slug) return <Navigate to={`/models/${page.model.slug}`} replace />;
   return (
     <div>
       <ModelMasthead model={page.model} note={page.note} />
