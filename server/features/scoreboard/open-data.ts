@@ -6,11 +6,17 @@ import { scoreboardRowOf } from './scoreboard.service';
 // Open data: the scoreboard and every accepted submission's derived metrics as CSV.
 // No rider, no notes, no location, no exact ride time (the month only).
 
+// Names come from riders' proposals: text a spreadsheet would run as a formula gets
+// a leading apostrophe (OWASP, "CSV Injection"); numbers, negative ones too, stay numbers.
+const FORMULA_START = /^[=+\-@\t\r]/;
+const PLAIN_NUMBER = /^-?\d+(\.\d+)?(e[+-]?\d+)?$/i;
+
 export function csvLine(values: unknown[]): string {
   return `${values
     .map((value) => {
       if (value === null || value === undefined) return '';
-      const text = typeof value === 'number' ? (Number.isFinite(value) ? String(Number(value.toPrecision(10))) : '') : String(value);
+      let text = typeof value === 'number' ? (Number.isFinite(value) ? String(Number(value.toPrecision(10))) : '') : String(value);
+      if (FORMULA_START.test(text) && !PLAIN_NUMBER.test(text)) text = `'${text}`;
       return /[",\n\r]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
     })
     .join(',')}\r\n`;
