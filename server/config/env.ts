@@ -51,6 +51,9 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   if (parsed.data.NODE_ENV === 'production' && parsed.data.SESSION_SECRET.startsWith('crosswatt-development')) {
     throw new ConfigError('Invalid configuration: SESSION_SECRET must be set in production');
   }
+  if (parsed.data.NODE_ENV === 'production' && parsed.data.OAUTH_FAKE) {
+    throw new ConfigError('Invalid configuration: OAUTH_FAKE (the local stand-in sign-in service) cannot be used in production');
+  }
   return parsed.data;
 }
 

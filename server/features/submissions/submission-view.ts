@@ -22,8 +22,15 @@ export function toSubmissionView<T extends { riderId: number | null; riderHandle
   const { riderId, riderHandle, riderName, recordings, ...rest } = submission;
   return {
     ...rest,
+    // Next to a handle, the exact start of a ride says where someone was when: the public gets the day only.
+    ...('rideStartedAt' in rest && !privileged && { rideStartedAt: dayOnly(rest.rideStartedAt) }),
     rider: riderId === null ? { handle: null, name: 'deleted rider' } : { handle: riderHandle ?? null, name: riderName ?? 'deleted rider' },
     isOwn: viewer?.id === riderId,
     recordings: recordings.map(({ deviceInfo, ...r }) => (privileged ? { ...r, deviceInfo } : r)),
   };
+}
+
+function dayOnly(value: unknown): string | null {
+  const date = value instanceof Date ? value : typeof value === 'string' ? new Date(value) : null;
+  return date && !Number.isNaN(date.getTime()) ? date.toISOString().slice(0, 10) : null;
 }

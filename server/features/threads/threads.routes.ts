@@ -12,7 +12,7 @@ import {
   setThreadStatusInput,
   threadListQuery,
 } from '../../../shared/schemas/threads';
-import { requireMakerStaff, requireRole, requireUser } from '../../auth/require-user';
+import { requireMakerStaff, requireNotMakerStaff, requireRole, requireUser } from '../../auth/require-user';
 import { postingLimiter } from '../../middleware/rate-limit';
 import { validate } from '../../middleware/validate';
 import * as service from './threads.service';
@@ -72,11 +72,11 @@ export function threadsRouter(deps: service.ThreadDeps) {
     await service.setFollowing(db, req.user!, res.locals.params.id, false);
     res.json({ following: false });
   });
-  router.put('/threads/:id/lock', requireRole('moderator'), threadId, validate(lockThreadInput), async (req, res) => {
+  router.put('/threads/:id/lock', requireRole('moderator'), requireNotMakerStaff, threadId, validate(lockThreadInput), async (req, res) => {
     await service.setThreadLocked(db, req.user!, res.locals.params.id, res.locals.body.locked, res.locals.body.reason);
     res.json(await show(res.locals.params.id, req.user));
   });
-  router.post('/threads/:id/move', requireRole('moderator'), threadId, validate(moveThreadInput), async (req, res) => {
+  router.post('/threads/:id/move', requireRole('moderator'), requireNotMakerStaff, threadId, validate(moveThreadInput), async (req, res) => {
     await service.moveThread(db, req.user!, res.locals.params.id, res.locals.body.modelSlug, res.locals.body.reason);
     res.json(await show(res.locals.params.id, req.user));
   });
@@ -86,7 +86,7 @@ export function threadsRouter(deps: service.ThreadDeps) {
     await service.editPost(deps, req.user!, res.locals.params.id, res.locals.body);
     res.json({ id: res.locals.params.id });
   });
-  router.put('/posts/:id/visibility', requireRole('moderator'), validate(idParams, 'params'), validate(postVisibilityInput), async (req, res) => {
+  router.put('/posts/:id/visibility', requireRole('moderator'), requireNotMakerStaff, validate(idParams, 'params'), validate(postVisibilityInput), async (req, res) => {
     await service.setPostVisibility(db, req.user!, res.locals.params.id, res.locals.body);
     res.json({ id: res.locals.params.id, hidden: res.locals.body.hidden });
   });

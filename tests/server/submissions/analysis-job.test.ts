@@ -121,7 +121,7 @@ describe('who sees a submission before it is accepted', () => {
 });
 
 describe('who sees a submission once it is accepted', () => {
-  it('when a moderator has accepted it, then a visitor sees it, without the devices\' serial numbers', async () => {
+  it('when a moderator has accepted it, then a visitor sees it, without the devices\' serial numbers or the exact start time', async () => {
     const { id } = await storedSubmission(61);
     await analyseSubmission(db, id);
     const moderator = await signedInAgent(app, { handle: 'accepting-moderator', roles: ['moderator'] });
@@ -133,5 +133,8 @@ describe('who sees a submission once it is accepted', () => {
     expect(res.body.status).toBe('accepted');
     expect(res.body.isOwn).toBe(false);
     expect(res.body.recordings.every((r: Record<string, unknown>) => !('deviceInfo' in r))).toBe(true);
+    // The public gets the day of the ride, not the minute it started.
+    expect(res.body.rideStartedAt).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect((await rider.agent.get(`/api/submissions/${id}`)).body.rideStartedAt).toMatch(/T\d{2}:\d{2}/);
   });
 });

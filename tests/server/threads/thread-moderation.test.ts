@@ -69,6 +69,19 @@ describe('hiding a post', () => {
     expect((await db('posts').where({ id: postId }).first()).hidden_reason).toBeNull();
   });
 
+  it("when a moderator who is staff of another maker tries to hide, lock or move a thread, then the answer is 403: makers' staff never moderate riders' posts", async () => {
+    const { body: thread } = await startThread(rider, otherCatalogue.spider.slug);
+    const postId = (await reply(rider, thread.id, "The rival's meter drops out.")).body.id;
+
+    const hide = await write(staffModerator, 'put', `/api/posts/${postId}/visibility`, { hidden: true, reason: 'Not true' });
+    const lock = await write(staffModerator, 'put', `/api/threads/${thread.id}/lock`, { locked: true });
+    const move = await write(staffModerator, 'post', `/api/threads/${thread.id}/move`, { modelSlug: catalogue.spider.slug });
+
+    expect([hide.status, lock.status, move.status]).toEqual([403, 403, 403]);
+    expect(hide.body.error.message).toMatch(/staff cannot do this/);
+    expect((await db('posts').where({ id: postId }).first()).hidden_reason).toBeNull();
+  });
+
   it('when a moderator hides without a reason, then the answer is 400', async () => {
     const { body: thread } = await startThread(rider, catalogue.spider.slug);
     const [opening] = await db('posts').where({ thread_id: thread.id });
