@@ -23,7 +23,7 @@ import { threadsRouter } from './features/threads/threads.routes';
 import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
 import { errorHandler, notFound } from './middleware/error-handler';
-import { writeLimiter } from './middleware/rate-limit';
+import { addressWriteLimiter, writeLimiter } from './middleware/rate-limit';
 import type { Queue } from './jobs/queue';
 
 export interface AppDeps {
@@ -59,7 +59,7 @@ export function createApp(deps: AppDeps) {
   const passport = createPassport({ config: deps.config, db });
   const csrf = createCsrf(deps.config);
   app.use(['/api', '/auth'], cookieParser(), sessionMiddleware({ config: deps.config, db }), passport.initialize(), passport.session());
-  app.use(['/api', '/auth'], writeLimiter(deps.config));
+  app.use(['/api', '/auth'], writeLimiter(deps.config), addressWriteLimiter(deps.config));
   app.use(['/api', '/auth/logout'], csrf.requireCsrfToken);
   app.use('/auth', authRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));

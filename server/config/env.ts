@@ -32,6 +32,7 @@ const configSchema = z.object({
 
   RATE_LIMIT_WINDOW_MS: z.coerce.number().int().positive().default(60_000),
   RATE_LIMIT_WRITES_PER_WINDOW: z.coerce.number().int().positive().default(60),
+  RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW: z.coerce.number().int().positive().default(300),
   RATE_LIMIT_SIGNINS_PER_WINDOW: z.coerce.number().int().positive().default(30),
   /** Thread posts (new threads, replies, edits) per person in ten minutes. */
   RATE_LIMIT_POSTS_PER_TEN_MINUTES: z.coerce.number().int().positive().default(10),

@@ -9,13 +9,23 @@ function personKey(req: Request): string {
   return req.user ? `user:${req.user.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`;
 }
 
-function limiter(windowMs: number, limit: number, message: string, skip?: (req: Request) => boolean): RequestHandler {
+function addressKey(req: Request): string {
+  return `ip:${ipKeyGenerator(req.ip ?? '')}`;
+}
+
+function limiter(
+  windowMs: number,
+  limit: number,
+  message: string,
+  skip?: (req: Request) => boolean,
+  keyGenerator: (req: Request) => string = personKey,
+): RequestHandler {
   return rateLimit({
     windowMs,
     limit,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: personKey,
+    keyGenerator,
     skip,
     handler: (_req, res, _next, options) => {
       res.status(options.statusCode).json({ error: { code: 'too_many_requests', message } });
@@ -34,6 +44,20 @@ export function writeLimiter(config: Config): RequestHandler {
     config.RATE_LIMIT_WRITES_PER_WINDOW,
     'Too many changes in a short time. Wait a minute and try again.',
     (req) => SAFE_METHODS.has(req.method),
+  );
+}
+
+/**
+ * A wider budget per network address, whoever is signed in: many accounts
+ * writing from one address are limited together.
+ */
+export function addressWriteLimiter(config: Config): RequestHandler {
+  return limiter(
+    config.RATE_LIMIT_WINDOW_MS,
+    config.RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW,
+    'Too many changes from your network in a short time. Wait a minute and try again.',
+    (req) => SAFE_METHODS.has(req.method),
+    addressKey,
   );
 }
 

@@ -103,6 +103,20 @@ describe('rate limits', () => {
     expect(answers[2]!.body.error).toEqual({ code: 'too_many_requests', message: 'Too many changes in a short time. Wait a minute and try again.' });
   });
 
+  it('when several accounts write from one address more often than its budget, then the next write gets a JSON 429', async () => {
+    const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW: '3' } });
+    const people = [await signedInAgent(limited.app, { handle: 'shared-desk-1' }), await signedInAgent(limited.app, { handle: 'shared-desk-2' })];
+
+    const answers = [];
+    for (let i = 0; i < 4; i++) {
+      const { agent, csrf } = people[i % 2]!;
+      answers.push(await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ notificationPrefs: { emailOnReply: true } }));
+    }
+
+    expect(answers.map((r) => r.status)).toEqual([200, 200, 200, 429]);
+    expect(answers[3]!.body.error.message).toMatch(/from your network/);
+  });
+
   it('when someone starts sign-ins more often than the limit, then they get a JSON 429', async () => {
     const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_SIGNINS_PER_WINDOW: '2' } });
 

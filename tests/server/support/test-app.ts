@@ -31,6 +31,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     DATABASE_URL: process.env.DATABASE_URL,
     // Tests sign in and write far faster than people; rate-limit tests lower these.
     RATE_LIMIT_WRITES_PER_WINDOW: '10000',
+    RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW: '10000',
     RATE_LIMIT_SIGNINS_PER_WINDOW: '10000',
     RATE_LIMIT_POSTS_PER_TEN_MINUTES: '10000',
     ...overrides,
