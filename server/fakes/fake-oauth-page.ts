@@ -1,3 +1,4 @@
+import { initials } from '../../shared/initials';
 import type { FakeIdentity } from './fake-oauth-identities';
 
 const escapeHtml = (s: string) =>
@@ -71,11 +72,3 @@ ${identities.length ? `<ul>${rows}</ul>` : '<p>None yet: create the first one be
 </main></body></html>`;
 }
 
-function initials(name: string): string {
-  return name
-    .split(/\s+/)
-    .filter(Boolean)
-    .slice(0, 2)
-    .map((part) => part[0]!.toUpperCase())
-    .join('');
-}

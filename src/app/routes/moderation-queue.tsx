@@ -1,7 +1,7 @@
-import { Link, useSearchParams } from 'react-router-dom';
+import { useSearchParams } from 'react-router-dom';
 import { reviewQueueQuery } from '@shared/schemas/moderation';
-import { RequireAccess } from '@/features/auth/components/require-access';
 import type { QueueFilters } from '@/features/moderation/api/get-review-queue';
+import { ModerationPage } from '@/features/moderation/components/moderation-page';
 import { ReviewQueueTable } from '@/features/moderation/components/review-queue-table';
 
 export function ModerationQueueRoute() {
@@ -15,22 +15,8 @@ export function ModerationQueueRoute() {
     setParams(search);
   };
   return (
-    <RequireAccess roles={['moderator']}>
-      {() => (
-        <div className="space-y-6">
-          <header className="flex flex-wrap items-end justify-between gap-3">
-            <div>
-              <p className="text-caption font-semibold uppercase tracking-widest text-ember-700">Moderation</p>
-              <h1 className="text-title font-semibold">Review queue</h1>
-              <p className="max-w-2xl text-ink-soft">Analysed submissions waiting for a decision. The most severe flags come first, then the longest waiting.</p>
-            </div>
-            <Link to="/moderation/catalogue" className="text-fjord-700 underline underline-offset-4">
-              Catalogue proposals
-            </Link>
-          </header>
-          <ReviewQueueTable filters={filters} onFilters={onFilters} />
-        </div>
-      )}
-    </RequireAccess>
+    <ModerationPage title="Review queue" intro="Analysed submissions waiting for a decision. The most severe flags come first, then the longest waiting.">
+      <ReviewQueueTable filters={filters} onFilters={onFilters} />
+    </ModerationPage>
   );
 }

@@ -1,16 +1,8 @@
 import { Link, useNavigate } from 'react-router-dom';
+import { initials } from '@shared/initials';
 import { useMe } from '../api/get-me';
 import { useSignOut } from '../api/sign-out';
 import { signInUrl } from '../sign-in-url';
-
-function initials(name: string) {
-  return name
-    .split(/\s+/)
-    .filter(Boolean)
-    .slice(0, 2)
-    .map((part) => part[0]!.toUpperCase())
-    .join('');
-}
 
 /** The header's right-hand side: Sign in for visitors; name, Account, Admin and Sign out for people. */
 export function UserMenu() {
