@@ -25,12 +25,24 @@ export async function enqueueAnalysis(queue: Queue, submissionId: number) {
   await queue.send(ANALYSE_SUBMISSION_QUEUE, { submissionId }, { singletonKey: String(submissionId) });
 }
 
-export async function workAnalysisQueue(queue: Queue, db: Knex, logger: Logger) {
+/** How often a running worker looks for submissions whose job was lost, and how long they must have been idle. */
+export const LOST_JOB_SWEEP = { everyMs: 60_000, idleSeconds: 120 };
+
+export async function workAnalysisQueue(queue: Queue, db: Knex, logger: Logger, sweep = LOST_JOB_SWEEP) {
   await queue.work<{ submissionId: number }>(ANALYSE_SUBMISSION_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
     await analyseSubmission(db, job.data.submissionId, logger);
   });
-  // Submissions stored while no worker ran (or whose job was lost) are queued again.
-  for (const id of await submissions.findWaitingForAnalysis(db)) await enqueueAnalysis(queue, id);
+  const requeue = async (idleSeconds: number) => {
+    for (const id of await submissions.findWaitingForAnalysis(db, idleSeconds)) await enqueueAnalysis(queue, id);
+  };
+  // Submissions stored while no worker ran are queued again at start; later, those whose
+  // job was lost (say, queueing failed after the upload committed) are picked up by a sweep.
+  await requeue(0);
+  const timer = setInterval(() => {
+    requeue(sweep.idleSeconds).catch((err) => logger.warn({ err }, 'sweep for lost analysis jobs failed'));
+  }, sweep.everyMs);
+  timer.unref();
+  queue.once('stopped', () => clearInterval(timer));
 }
 
 /**

@@ -129,8 +129,12 @@ export async function markFailed(db: Knex, id: number, code: string, message: st
     .update({ status: 'failed', error_code: code, error_message: message, updated_at: db.fn.now() });
 }
 
-export async function findWaitingForAnalysis(db: Knex): Promise<number[]> {
-  const rows = await db('submissions').whereIn('status', ['received', 'analysing']).select('id');
+/** Submissions still waiting for their analysis, untouched for at least `idleSeconds`. */
+export async function findWaitingForAnalysis(db: Knex, idleSeconds = 0): Promise<number[]> {
+  const rows = await db('submissions')
+    .whereIn('status', ['received', 'analysing'])
+    .where('updated_at', '<=', db.raw(`now() - make_interval(secs => ?)`, [idleSeconds]))
+    .select('id');
   return rows.map((r) => r.id);
 }
 

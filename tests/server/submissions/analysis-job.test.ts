@@ -1,7 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { decideSubmission } from '../../../server/features/moderation/moderation.service';
-import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS } from '../../../server/features/submissions/analyse-submission.job';
+import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS, workAnalysisQueue } from '../../../server/features/submissions/analyse-submission.job';
+import { createLogger } from '../../../server/lib/logger';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
 import { createSubmissionInput } from '../../../shared/schemas/submission';
 import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
@@ -86,6 +87,20 @@ describe('the analysis job', () => {
     expect(res.body.errorMessage).toMatch(/could not be completed/);
     const row = await db('submissions').where({ id }).first('attempts');
     expect(row.attempts).toBe(MAX_ANALYSIS_ATTEMPTS);
+  });
+});
+
+describe('lost analysis jobs', () => {
+  it('when a stored submission never got its job while a worker runs, then the sweep queues it and it is analysed', async () => {
+    const separate = await createTestContext({ queue: true });
+    // The worker starts before the submission exists, so only its sweep can find it.
+    await workAnalysisQueue(separate.queue!, separate.db, createLogger({ LOG_LEVEL: 'silent' }), { everyMs: 200, idleSeconds: 60 });
+    const { id } = await storedSubmission(71);
+    await db('submissions').where({ id }).update({ updated_at: db.raw("now() - interval '1 hour'") });
+
+    const res = await waitForStatus(rider.agent, id, ['awaiting_review', 'failed']);
+
+    expect(res.body.status).toBe('awaiting_review');
   });
 });
 
