@@ -18,7 +18,11 @@ export default defineConfig({
     projects: [
       {
         resolve: { alias },
-        test: { name: 'unit', include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.ts'], environment: 'node' },
+        test: {
+          name: 'unit',
+          include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.ts', 'tests/scripts/**/*.test.ts'],
+          environment: 'node',
+        },
       },
       {
         resolve: { alias },
@@ -36,7 +40,7 @@ export default defineConfig({
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
-          globalSetup: ['tests/global-setup.ts'],
+          globalSetup: ['tests/e2e/support/ensure-chromium.ts', 'tests/global-setup.ts'],
           setupFiles: ['tests/server/setup-database.ts'],
           testTimeout: 90_000,
           hookTimeout: 90_000,

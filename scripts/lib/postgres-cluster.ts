@@ -4,6 +4,7 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
+import { ensureDebianPackage, isRootUser, MissingPackageError } from './debian-package';
 
 export const CLUSTER_SUPERUSER = 'crosswatt';
 
@@ -21,7 +22,7 @@ export interface Cluster {
 
 export class ClusterError extends Error {}
 
-const isRoot = () => process.getuid?.() === 0;
+const isRoot = isRootUser;
 
 function findBinDir(): string | undefined {
   const base = '/usr/lib/postgresql';
@@ -37,17 +38,11 @@ function findBinDir(): string | undefined {
 }
 
 function ensureBinaries(log: (line: string) => void): string {
-  const existing = findBinDir();
-  if (existing) return existing;
-  const command = 'apt-get update && apt-get install -y postgresql';
-  if (!isRoot()) {
-    throw new ClusterError(`PostgreSQL is not installed. Install it with: sudo sh -c '${command}'`);
+  try {
+    return ensureDebianPackage({ packageName: 'postgresql', label: 'PostgreSQL', find: findBinDir, log });
+  } catch (err) {
+    throw err instanceof MissingPackageError ? new ClusterError(err.message) : err;
   }
-  log('PostgreSQL is not installed; installing it from Debian packages…');
-  execFileSync('sh', ['-c', `DEBIAN_FRONTEND=noninteractive ${command}`], { stdio: 'inherit' });
-  const installed = findBinDir();
-  if (!installed) throw new ClusterError('PostgreSQL was installed but pg_ctl was not found.');
-  return installed;
 }
 
 // initdb and postgres refuse to run as root: run them as the `postgres` system user.

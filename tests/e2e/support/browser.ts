@@ -1,13 +1,14 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { type Browser, chromium, type Page } from 'playwright-core';
+import { chromiumPath } from '../../../scripts/lib/chromium';
 
 export const SCREENSHOT_DIR = path.resolve('test-output/screenshots');
 
 // Debian's Chromium, headless, with nothing reaching out to the network.
 export function launchBrowser(): Promise<Browser> {
   return chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    executablePath: chromiumPath(),
     headless: true,
     args: [
       '--no-sandbox',

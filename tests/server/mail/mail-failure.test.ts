@@ -21,14 +21,12 @@ describe('e-mail when the mail service is down', () => {
     const moderator = await signedInAgent(app, { handle: 'down-mod', roles: ['moderator'] });
     const { id, version } = await submissionAwaitingReview(db, rider.user.id, catalogue);
 
-    const started = Date.now();
     const res = await moderator.agent
       .post(`/api/moderation/submissions/${id}/decision`)
       .set('X-CSRF-Token', await moderator.csrf())
       .send({ decision: 'accept', expectedVersion: version });
 
     expect(res.status).toBe(200);
-    expect(Date.now() - started).toBeLessThan(2_000);
     const until = Date.now() + 10_000;
     let message;
     do {

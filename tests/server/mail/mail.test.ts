@@ -4,6 +4,7 @@ import { queueMail } from '../../../server/features/mail/mail.service';
 import { createCatalogue, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
+import { waitFor } from '../../support/wait-for';
 import { capturedMail, submissionAwaitingReview } from '../moderation/moderation-fixtures';
 
 const { app, db, config, queue } = await createTestContext({ fakes: true, worker: true });
@@ -45,7 +46,14 @@ describe('e-mail', () => {
     expect(mail.text_body).toContain('The file names firmware 1.9.');
     expect(mail.text_body).toContain(`/submissions/${id}`);
     expect(mail.headers['list-unsubscribe']).toMatch(/\/api\/mail\/unsubscribe\?token=/);
-    const stored = await db('mail_messages').where({ user_id: rider.user.id }).first('status', 'attempts');
+    // The fake service stores the message before the worker marks it sent: wait for that state.
+    const stored = await waitFor(
+      async () => {
+        const row = await db('mail_messages').where({ user_id: rider.user.id }).first('status', 'attempts');
+        return row?.status === 'queued' ? undefined : row;
+      },
+      { what: 'the message to leave the queue' },
+    );
     expect(stored).toEqual({ status: 'sent', attempts: 1 });
   });
 

@@ -12,7 +12,8 @@ function compare(...args: string[]) {
   return { status: run.status, stdout: run.stdout, stderr: run.stderr };
 }
 
-describe('npm run compare', () => {
+// Each case starts a Node process with tsx; on a busy machine that takes seconds, so the bound is generous.
+describe('npm run compare', { timeout: 120_000 }, () => {
   const files = { a: '', b: '', text: '' };
 
   beforeAll(() => {
@@ -24,7 +25,7 @@ describe('npm run compare', () => {
     writeFileSync(files.a, pair.a);
     writeFileSync(files.b, pair.b);
     writeFileSync(files.text, 'not a ride');
-  });
+  }, 120_000);
 
   it('when two rides are compared with --json, then the result carries every contract key', () => {
     const { status, stdout } = compare(files.a, files.b, '--a-position', 'left', '--b-position', 'dual', '--json');
