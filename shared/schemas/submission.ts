@@ -17,6 +17,8 @@ export const SUBMISSION_STATUSES = [
 ] as const;
 export type SubmissionStatus = (typeof SUBMISSION_STATUSES)[number];
 export type Surface = (typeof SURFACES)[number];
+export type RecordingMode = (typeof RECORDING_MODES)[number];
+export type ZeroOffsetAnswer = (typeof ZERO_OFFSET_ANSWERS)[number];
 
 export const SURFACE_LABELS: Record<Surface, string> = {
   smooth_road: 'Smooth road',

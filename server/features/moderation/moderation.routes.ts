@@ -9,7 +9,7 @@ import type { Queue } from '../../jobs/queue';
 import { NotFoundError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import { enqueueAnalysis } from '../submissions/analyse-submission.job';
-import { canSeeSubmission } from '../submissions/submission-view';
+import { canSeeSubmission } from '../submissions/submission.presenter';
 import { curationRouter } from './curation.routes';
 import * as moderation from './moderation.repository';
 import { correctSubmissionTags, decideSubmission, resubmitTags, type TagChangeOutcome } from './moderation.service';

@@ -4,7 +4,7 @@ import { FLAG_GUIDANCE } from '@shared/moderation/flag-guidance';
 import { REJECT_REASON_LABELS } from '@shared/schemas/moderation';
 import { NotFoundError } from '../../lib/errors';
 import { decodeStream } from '../submissions/stream-codec';
-import { toSubmissionView } from '../submissions/submission-view';
+import { presentSubmission } from '../submissions/submission.presenter';
 import { findSubmission } from '../submissions/submissions.repository';
 import * as moderation from './moderation.repository';
 
@@ -38,12 +38,12 @@ export async function getReview(db: Knex, submissionId: number, viewer: Viewer) 
     moderation.decisionHistory(db, submission.id),
   ]);
   return {
-    submission: toSubmissionView(submission, viewer),
+    submission: presentSubmission(submission, viewer),
     decision: decision ? decisionOf(decision) : null,
     flags,
     riderHistory,
     duplicates,
-    deviceChecks: submission.recordings.flatMap((r: RecordingForCheck) => deviceChecks(r)),
+    deviceChecks: submission.recordings.flatMap((r) => deviceChecks(r)),
     history: history.map((h) => ({ ...h, id: Number(h.id), createdAt: new Date(h.createdAt).toISOString() })),
   };
 }
@@ -118,7 +118,7 @@ interface RecordingForCheck {
   modelName: string;
   recordingDeviceName: string;
   recordingDeviceFirmware: string;
-  deviceInfo: DeviceInfo;
+  deviceInfo: DeviceInfo | null;
 }
 
 /** FIT software versions are stored ×100 and read as 3.1 for 310; a tag "3.1.0" or "3.10" means the same. */

@@ -1,13 +1,14 @@
 import { gunzipSync, gzipSync } from 'node:zlib';
 import type { RideStream } from '@shared/analysis/types';
+import { storedDeviceInfo } from './stored-ride-facts';
 
 // What we keep of an uploaded file: the normalised stream the engine needs, as
-// gzip'd typed arrays. Never the original file, never location.
+// gzip'd typed arrays. Never the original file, never location, never a serial number.
 // Layout: u32 header length, JSON header (device, recording statistics, count),
 // then Float64 timestamps and Float32 power, cadence and balance.
 export function encodeStream(stream: RideStream): Buffer {
   const count = stream.timestamps.length;
-  const header = Buffer.from(JSON.stringify({ v: 1, count, device: stream.device, recording: stream.recording }));
+  const header = Buffer.from(JSON.stringify({ v: 1, count, device: storedDeviceInfo(stream.device), recording: stream.recording }));
   const body = Buffer.alloc(4 + header.length + count * (8 + 4 * 3));
   body.writeUInt32LE(header.length, 0);
   header.copy(body, 4);

@@ -1,13 +1,15 @@
 import type { Knex } from 'knex';
-import type { ComparisonResult, QualityFlag } from '@shared/analysis/types';
-import type { RecordingTagsInput, SubmissionStatus } from '@shared/schemas/submission';
+import type { ComparisonResult, DeviceInfo, MeasurementPosition, QualityFlag, RecordingStatistics, Side } from '@shared/analysis/types';
+import type { ModelKind } from '@shared/schemas/catalogue';
+import type { RecordingMode, RecordingTagsInput, SubmissionStatus, Surface, ZeroOffsetAnswer } from '@shared/schemas/submission';
+import { storedDeviceInfo, storedRecordingStats, storedResult } from './stored-ride-facts';
 
 export interface NewRecording {
   side: 'a' | 'b';
   tags: RecordingTagsInput;
   sha256: string;
-  deviceInfo: unknown;
-  recordingStats: unknown;
+  deviceInfo: DeviceInfo;
+  recordingStats: RecordingStatistics;
   stream: Buffer;
 }
 
@@ -46,8 +48,8 @@ export async function insertSubmission(
       zero_offset: r.tags.zeroOffset,
       other_meters_on: r.tags.otherMetersOn,
       sha256: r.sha256,
-      device_info: JSON.stringify(r.deviceInfo),
-      recording_stats: JSON.stringify(r.recordingStats),
+      device_info: JSON.stringify(storedDeviceInfo(r.deviceInfo)),
+      recording_stats: JSON.stringify(storedRecordingStats(r.recordingStats)),
       stream: r.stream,
     })),
   );
@@ -95,7 +97,7 @@ export async function storeResult(db: Knex, id: number, result: ComparisonResult
     .update({
       status: 'awaiting_review',
       method_version: result.methodVersion,
-      result: JSON.stringify(result),
+      result: JSON.stringify(storedResult(result)),
       flags: JSON.stringify(result.flags),
       flag_severity: flagSeverity(result.flags),
       error_code: null,
@@ -146,7 +148,6 @@ const recordingColumns = [
   'r.zero_offset as zeroOffset',
   'r.other_meters_on as otherMetersOn',
   'r.device_info as deviceInfo',
-  'r.recording_stats as recordingStats',
   'r.model_id as modelId',
   'm.slug as modelSlug',
   'm.name as modelName',
@@ -160,7 +161,49 @@ const recordingColumns = [
   'd.name as recordingDeviceName',
 ];
 
-export async function findSubmission(db: Knex, id: number) {
+export interface SubmissionRecordingRow {
+  side: Side;
+  position: MeasurementPosition;
+  recordingDeviceFirmware: string;
+  recordingMode: RecordingMode;
+  zeroOffset: ZeroOffsetAnswer;
+  otherMetersOn: boolean;
+  deviceInfo: DeviceInfo | null;
+  modelId: number;
+  modelSlug: string;
+  modelName: string;
+  modelKind: ModelKind;
+  makerId: number;
+  makerName: string;
+  makerSlug: string;
+  firmwareId: number;
+  firmwareVersion: string;
+  recordingDeviceId: number;
+  recordingDeviceName: string;
+}
+
+export interface SubmissionRow {
+  id: number;
+  riderId: number | null;
+  riderHandle: string | null;
+  riderName: string | null;
+  status: SubmissionStatus;
+  indoor: boolean;
+  surface: Surface;
+  notes: string;
+  /** The stored analysis: its shape is checked where it leaves the server (rideComparisonView). */
+  result: unknown;
+  flags: QualityFlag[];
+  errorCode: string | null;
+  errorMessage: string | null;
+  version: number;
+  createdAt: Date;
+  analysedAt: Date | null;
+  rideStartedAt: Date | null;
+  recordings: SubmissionRecordingRow[];
+}
+
+export async function findSubmission(db: Knex, id: number): Promise<SubmissionRow | undefined> {
   const submission = await db('submissions as s')
     .leftJoin('users as u', 'u.id', 's.rider_id')
     .where('s.id', id)
@@ -183,7 +226,7 @@ export async function findSubmission(db: Knex, id: number) {
       's.ride_started_at as rideStartedAt',
     );
   if (!submission) return undefined;
-  const recordings = await db('submission_recordings as r')
+  const recordings: SubmissionRecordingRow[] = await db('submission_recordings as r')
     .join('models as m', 'm.id', 'r.model_id')
     .join('makers as mk', 'mk.id', 'm.maker_id')
     .join('firmware_versions as f', 'f.id', 'r.firmware_id')
@@ -191,10 +234,19 @@ export async function findSubmission(db: Knex, id: number) {
     .where('r.submission_id', id)
     .select(recordingColumns)
     .orderBy('r.side');
-  return { ...submission, recordings };
+  return { ...(submission as Omit<SubmissionRow, 'recordings'>), recordings };
 }
 
-export async function listByRider(db: Knex, riderId: number) {
+export interface RiderSubmissionRow {
+  id: number;
+  status: SubmissionStatus;
+  createdAt: Date;
+  biasPercent: number | null;
+  flags: QualityFlag[] | null;
+  recordings: Array<{ side: Side; model: string; firmware: string }> | null;
+}
+
+export async function listByRider(db: Knex, riderId: number): Promise<RiderSubmissionRow[]> {
   return db('submissions as s')
     .where('s.rider_id', riderId)
     .select(

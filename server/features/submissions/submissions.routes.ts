@@ -10,7 +10,7 @@ import { fitUpload, uploadedFile } from '../../middleware/fit-upload';
 import { submissionsPerDayLimiter } from '../../middleware/rate-limit';
 import { formatZodError, validate } from '../../middleware/validate';
 import { createSubmission } from './submissions.service';
-import { canSeeSubmission, toSubmissionView } from './submission-view';
+import { canSeeSubmission, presentMySubmission, presentSubmission } from './submission.presenter';
 import * as submissions from './submissions.repository';
 
 const idParams = z.object({ id: z.coerce.number().int().positive('not a submission number') });
@@ -55,7 +55,7 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config 
   router.get('/:id', validate(idParams, 'params'), async (req, res) => {
     const submission = await submissions.findSubmission(db, res.locals.params.id);
     if (!submission || !canSeeSubmission(req.user, submission)) throw new NotFoundError('No such submission, or it is not public yet.');
-    res.json(toSubmissionView(submission, req.user));
+    res.json(presentSubmission(submission, req.user));
   });
 
   return router;
@@ -64,7 +64,8 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config 
 export function mySubmissionsRouter(deps: { db: Db }) {
   const router = Router();
   router.get('/', requireUser, async (req, res) => {
-    res.json({ submissions: await submissions.listByRider(deps.db, req.user!.id) });
+    const rows = await submissions.listByRider(deps.db, req.user!.id);
+    res.json({ submissions: rows.map(presentMySubmission) });
   });
   return router;
 }

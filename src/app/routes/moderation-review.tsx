@@ -2,6 +2,7 @@ import { Link, useParams } from 'react-router-dom';
 import type { Submission } from '@/features/submissions/api/get-submission';
 import { RecordingSummary } from '@/features/submissions/components/recording-summary';
 import { ResultHeadline } from '@/features/submissions/components/result-headline';
+import { formatDay } from '@/lib/format-date';
 import { STATUS_LABELS } from '@/features/submissions/lib/labels';
 import { RequireAccess } from '@/features/auth/components/require-access';
 import { useReview } from '@/features/moderation/api/get-review';
@@ -36,7 +37,7 @@ function ReviewPage({ id }: { id: number }) {
         </h1>
         <p className="text-ink-soft">
           By {s.rider.name}
-          {s.rider.handle ? ` (@${s.rider.handle})` : ''}, {s.indoor ? 'indoors' : 'outdoors'} · sent {new Date(s.createdAt).toLocaleDateString('en-GB')}
+          {s.rider.handle ? ` (@${s.rider.handle})` : ''}, {s.indoor ? 'indoors' : 'outdoors'} · sent {formatDay(s.submittedOn)}
         </p>
         {s.notes && <p className="max-w-3xl whitespace-pre-line rounded-lg bg-paper-deep p-3 text-caption text-ink-soft">“{s.notes}”</p>}
       </header>

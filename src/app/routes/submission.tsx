@@ -6,7 +6,7 @@ import { RecordingSummary } from '@/features/submissions/components/recording-su
 import { SafetyNote } from '@/features/submissions/components/safety-note';
 import { SubmissionProgress } from '@/features/submissions/components/submission-progress';
 import { SubmissionResult } from '@/features/submissions/components/submission-result';
-import { formatDate } from '@/features/submissions/lib/format';
+import { formatDay } from '@/lib/format-date';
 import { SURFACE_LABELS } from '@shared/schemas/submission';
 
 export function SubmissionRoute() {
@@ -40,7 +40,7 @@ export function SubmissionRoute() {
         </h1>
         <p className="text-ink-soft">
           {s.isOwn ? 'Your ride' : `Ridden by ${s.rider.name}`}, {s.indoor ? 'indoors' : 'outdoors'} on {SURFACE_LABELS[s.surface].toLowerCase()} · sent{' '}
-          {formatDate(s.createdAt)}
+          {formatDay(s.submittedOn)}
         </p>
         {s.notes && <p className="max-w-3xl whitespace-pre-line rounded-lg bg-paper-deep p-3 text-caption text-ink-soft">“{s.notes}”</p>}
       </header>

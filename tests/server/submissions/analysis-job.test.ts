@@ -5,6 +5,8 @@ import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS, workAnalysis
 import { createLogger } from '../../../server/lib/logger';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
 import { createSubmissionInput } from '../../../shared/schemas/submission';
+import { submissionView } from '../../../shared/schemas/submission-view';
+import { decodeStream } from '../../../server/features/submissions/stream-codec';
 import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent, type TestAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
@@ -136,20 +138,48 @@ describe('who sees a submission before it is accepted', () => {
 });
 
 describe('who sees a submission once it is accepted', () => {
-  it('when a moderator has accepted it, then a visitor sees it, without the devices\' serial numbers or the exact start time', async () => {
-    const { id } = await storedSubmission(61);
+  let id: number;
+  beforeAll(async () => {
+    ({ id } = await storedSubmission(61));
     await analyseSubmission(db, id);
     const moderator = await signedInAgent(app, { handle: 'accepting-moderator', roles: ['moderator'] });
     await decideSubmission(db, { submissionId: id, moderatorId: moderator.user.id, decision: 'accept' });
+  });
 
+  it("when a visitor asks, then it is shown without the devices' details, the ride's clock times or file hashes", async () => {
     const res = await request(app).get(`/api/submissions/${id}`);
 
     expect(res.status).toBe(200);
+    expect(submissionView.strict().safeParse(res.body).success).toBe(true);
     expect(res.body.status).toBe('accepted');
     expect(res.body.isOwn).toBe(false);
     expect(res.body.recordings.every((r: Record<string, unknown>) => !('deviceInfo' in r))).toBe(true);
     // The public gets the day of the ride, not the minute it started.
-    expect(res.body.rideStartedAt).toMatch(/^\d{4}-\d{2}-\d{2}$/);
-    expect((await rider.agent.get(`/api/submissions/${id}`)).body.rideStartedAt).toMatch(/T\d{2}:\d{2}/);
+    expect(res.body.rideDate).toMatch(/^\d{4}-\d{2}-\d{2}$/);
+    expect(res.body.result.alignment).not.toHaveProperty('startTime');
+    expect(res.body.result).not.toHaveProperty('devices');
+    expect(res.body.result).not.toHaveProperty('recordings');
+    expect(JSON.stringify(res.body)).not.toMatch(/serial|sha256|T\d{2}:\d{2}/i);
+  });
+
+  it('when the rider asks, then the devices\' makes and software are shown but no serial number is', async () => {
+    const res = await rider.agent.get(`/api/submissions/${id}`);
+
+    expect(res.body.recordings[0].deviceInfo.creator).toEqual({ manufacturerId: expect.any(Number), productId: expect.any(Number), softwareVersion: expect.any(Number) });
+    expect(JSON.stringify(res.body)).not.toMatch(/serial/i);
+  });
+
+  it('when the result is stored, then no serial number or clock time of the recordings is kept outside the stream', async () => {
+    const stored = await db('submissions').where({ id }).first('result');
+    const recordings = await db('submission_recordings').where({ submission_id: id }).select('device_info', 'recording_stats', 'stream');
+
+    expect(stored.result).not.toHaveProperty('devices');
+    expect(stored.result.alignment).not.toHaveProperty('startTime');
+    for (const r of recordings) {
+      expect(r.device_info.creator.serialNumber).toBeNull();
+      expect(r.recording_stats).not.toHaveProperty('startTime');
+      expect(r.recording_stats.durationSeconds).toBeGreaterThan(0);
+      expect(decodeStream(r.stream).device.creator.serialNumber).toBeNull();
+    }
   });
 });

@@ -1,19 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { QualityFlag, Side } from '@shared/analysis/types';
-import type { SubmissionStatus } from '@shared/schemas/submission';
+import type { MySubmissionsResponse } from '@shared/schemas/submission-view';
 import { api } from '@/lib/api-client';
 
-export interface MySubmission {
-  id: number;
-  status: SubmissionStatus;
-  createdAt: string;
-  biasPercent: number | null;
-  flags: QualityFlag[] | null;
-  recordings: Array<{ side: Side; model: string; firmware: string }> | null;
-}
-
-export function getMySubmissions(): Promise<{ submissions: MySubmission[] }> {
-  return api.get<{ submissions: MySubmission[] }>('/api/me/submissions');
+export function getMySubmissions(): Promise<MySubmissionsResponse> {
+  return api.get<MySubmissionsResponse>('/api/me/submissions');
 }
 
 export function getMySubmissionsQueryOptions() {

@@ -1,41 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { ComparisonResult, MeasurementPosition, QualityFlag, Side } from '@shared/analysis/types';
-import type { ModelKind } from '@shared/schemas/catalogue';
-import type { SubmissionStatus, Surface } from '@shared/schemas/submission';
+import type { SubmissionStatus } from '@shared/schemas/submission';
+import type { SubmissionRecordingView, SubmissionView } from '@shared/schemas/submission-view';
 import { api } from '@/lib/api-client';
 
-export interface SubmissionRecording {
-  side: Side;
-  position: MeasurementPosition;
-  makerName: string;
-  modelName: string;
-  modelSlug: string;
-  modelKind: ModelKind;
-  firmwareVersion: string;
-  recordingDeviceName: string;
-  recordingDeviceFirmware: string;
-  recordingMode: 'every_second' | 'change_only';
-  zeroOffset: 'yes' | 'no' | 'unsure';
-  otherMetersOn: boolean;
-  deviceInfo?: unknown;
-}
-
-export interface Submission {
-  id: number;
-  status: SubmissionStatus;
-  indoor: boolean;
-  surface: Surface;
-  notes: string;
-  result: ComparisonResult | null;
-  flags: QualityFlag[];
-  errorCode: string | null;
-  errorMessage: string | null;
-  createdAt: string;
-  analysedAt: string | null;
-  rider: { handle: string | null; name: string };
-  isOwn: boolean;
-  recordings: SubmissionRecording[];
-}
+export type Submission = SubmissionView;
+export type SubmissionRecording = SubmissionRecordingView;
 
 /** Statuses during which the background job is still working on the files. */
 export const IN_PROGRESS_STATUSES: readonly SubmissionStatus[] = ['received', 'analysing'];

@@ -1,11 +1,12 @@
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
-import type { ComparisonResult, DropoutEvent } from '@shared/analysis/types';
+import type { DropoutEvent } from '@shared/analysis/types';
+import type { RideComparisonView } from '@shared/schemas/submission-view';
 import { formatClock, formatSignedWatts } from '../lib/format';
 import { axis, CHART_COLOURS, UPlotChart } from './uplot-chart';
 
 /** A − B over the ride, with each meter's power dropouts shaded in its own colour. */
-export function DifferenceChart({ result }: { result: ComparisonResult }) {
+export function DifferenceChart({ result }: { result: RideComparisonView }) {
   const { series, dropouts } = result;
   const data = useMemo<uPlot.AlignedData>(() => {
     const x = series.differenceWatts.map((_, i) => i * series.intervalSeconds);

@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import { useMySubmissions } from '../api/get-my-submissions';
-import { formatDate, formatSignedPercent } from '../lib/format';
+import { formatDay } from '@/lib/format-date';
+import { formatSignedPercent } from '../lib/format';
 import { STATUS_LABELS } from '../lib/labels';
 
 /** The rider's own submissions, newest first, each linking to its result. */
@@ -21,9 +22,9 @@ export function MySubmissionsList() {
   return (
     <ul className="divide-y divide-paper-line overflow-hidden rounded-card border border-paper-line bg-white shadow-card">
       {mine.data.submissions.map((s) => {
-        const a = s.recordings?.find((r) => r.side === 'a');
-        const b = s.recordings?.find((r) => r.side === 'b');
-        const problems = (s.flags ?? []).filter((f) => f.severity !== 'info').length;
+        const a = s.recordings.find((r) => r.side === 'a');
+        const b = s.recordings.find((r) => r.side === 'b');
+        const problems = s.flags.filter((f) => f.severity !== 'info').length;
         return (
           <li key={s.id}>
             <Link to={`/submissions/${s.id}`} className="flex flex-wrap items-center gap-x-5 gap-y-1 px-5 py-4 hover:bg-paper">
@@ -34,7 +35,7 @@ export function MySubmissionsList() {
                   <span className="text-moss-700">{b ? `${b.model} ${b.firmware}` : 'B'}</span>
                 </span>
                 <span className="text-caption text-ink-soft">
-                  #{s.id} · sent {formatDate(s.createdAt)}
+                  #{s.id} · sent {formatDay(s.submittedOn)}
                   {problems > 0 && ` · ${problems} ${problems === 1 ? 'check' : 'checks'} flagged`}
                 </span>
               </span>

@@ -1,10 +1,10 @@
 import type { ReactNode } from 'react';
-import type { ComparisonResult } from '@shared/analysis/types';
+import type { RideComparisonView } from '@shared/schemas/submission-view';
 import { formatDuration, formatLimitsOfAgreement, formatSignedPercent, formatSignedSeconds } from '../lib/format';
 import { LIKE_FOR_LIKE_LABELS } from '../lib/labels';
 
 /** The handful of figures a rider reads first, each with its unit and its uncertainty. */
-export function ResultHeadline({ result }: { result: ComparisonResult }) {
+export function ResultHeadline({ result }: { result: RideComparisonView }) {
   const { agreement, dropouts, alignment, likeForLike } = result;
   const mode = LIKE_FOR_LIKE_LABELS[likeForLike.mode];
   return (

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import type { ComparisonResult } from '@shared/analysis/types';
+import type { RideComparisonView } from '@shared/schemas/submission-view';
 import { BandBiasChart } from './band-bias-chart';
 import { BlandAltmanChart } from './bland-altman-chart';
 import { DifferenceChart } from './difference-chart';
@@ -8,7 +8,7 @@ import { ResultHeadline } from './result-headline';
 import { PeakPowerTable, SteadySegmentsTable } from './result-tables';
 
 /** Everything the analysis found, figures first, then the pictures, then the tables. */
-export function SubmissionResult({ result }: { result: ComparisonResult }) {
+export function SubmissionResult({ result }: { result: RideComparisonView }) {
   return (
     <div className="space-y-10">
       <section aria-labelledby="headline-title" className="space-y-4">
