@@ -4,6 +4,7 @@ import { type Config, publicUrl } from './config/env';
 import { createDb } from './db/knex';
 import { startQueue } from './jobs/queue';
 import { registerWorkers } from './jobs/workers';
+import { closeRecordingTasks } from './features/submissions/recording-tasks';
 import { createLogger } from './lib/logger';
 
 export interface RunningServer {
@@ -35,6 +36,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       server.closeAllConnections();
       await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
       await db.destroy();
+      await closeRecordingTasks();
     },
   };
 }

@@ -1,28 +1,40 @@
-import { FitMessageReaderError, readFitMessages } from 'fit-file-parser/raw';
-import type { FitRawField, FitRawMessage } from 'fit-file-parser/raw';
 import { AnalysisError, formatDuration } from './errors';
-import { crc16Arc } from './fit-crc';
+import { FIT_EPOCH_UNIX_SECONDS, readFieldValue, walkFit, type FitDefinition } from './fit-reader';
+import { fitFileTypeName, type FitMetaMessages, collectMetaMessage, FIT_FILE_ACTIVITY, MESG_RECORD, META_MESSAGES } from './fit-meta-messages';
+import { deviceInfoFromMessages } from './fit-devices';
 import { MAX_CARRY_SECONDS, MIN_OVERLAP_SECONDS } from './method';
-import type { DeviceIdentity, DeviceInfo, RecordingStatistics, RideStream } from './types';
+import type { RecordingStatistics, RideStream } from './types';
 
-// The only module that reads FIT. It keeps record timestamps, power, cadence and
-// balance, plus device identities; positions and everything else stay inside.
+// The only module that turns FIT bytes into a ride: record timestamps, power,
+// cadence, balance and temperature, plus device identities and the power meter's
+// battery reports; positions and everything else stay inside.
 
-/** Unix seconds at the FIT epoch, 1989-12-31T00:00:00Z (FIT SDK profile, date_time). */
-export const FIT_EPOCH_UNIX_SECONDS = 631065600;
+/**
+ * Version of this decoder; stored per recording so recordings decoded by an older
+ * one can be decoded again. 1: fit-file-parser's raw reader. 2: our own reader (all
+ * header variants, chained files, compressed timestamps, bounded cost).
+ */
+export const DECODER_VERSION = 2;
 
-const MESG_FILE_ID = 0;
-const MESG_RECORD = 20;
-const MESG_DEVICE_INFO = 23;
+export { FIT_EPOCH_UNIX_SECONDS };
+
+/**
+ * Most records one file may hold. The densest recordings we know of write 16 records a
+ * second; a day of that is 1.38 million. The count is taken before any memory is set
+ * aside for the records, so a file of millions of tiny records is refused cheaply.
+ */
+export const MAX_RECORDS_PER_FILE = 1_500_000;
+
+/** No ride lasts this long: a recording whose records span more is refused (its clock jumped). */
+export const MAX_RECORDING_SPAN_SECONDS = 48 * 3600;
+
+/** Records may lie this far outside the file's own session start and end (devices round and lag). */
+export const SESSION_TOLERANCE_SECONDS = 3600;
 
 const RECORD_CADENCE = 4;
 const RECORD_POWER = 7;
+const RECORD_TEMPERATURE = 13;
 const RECORD_LEFT_RIGHT_BALANCE = 30;
-
-const SOURCE_ANTPLUS = 1;
-const SOURCE_BLE = 3;
-const ANTPLUS_BIKE_POWER = 11;
-const BLE_BIKE_POWER = 2;
 
 /** Balance byte: bit 0x80 says the low 7 bits are the right leg's share (ANT+ Bicycle Power profile, page 0x10). */
 const BALANCE_RIGHT_BIT = 0x80;
@@ -30,56 +42,163 @@ const BALANCE_PERCENT_MASK = 0x7f;
 
 export function decodeFit(input: Uint8Array | ArrayBuffer): RideStream {
   const bytes = input instanceof Uint8Array ? input : new Uint8Array(input);
-  const fileEnd = verifyFitFile(bytes);
-  const messages = readMessages(bytes.subarray(0, fileEnd));
-  const stream = buildStream(messages);
+  const stream = readRideStream(bytes);
   assertRecordingUsable(stream);
   return stream;
 }
 
-/** Checks signature, sizes and CRCs; returns the end of the first FIT file in the bytes. */
+/** Checks signature, sizes and CRCs of every chained part; returns the number of bytes read. */
 export function verifyFitFile(bytes: Uint8Array): number {
-  const headerSize = bytes[0];
-  const hasSignature =
-    bytes.length >= 12 && bytes[8] === 0x2e && bytes[9] === 0x46 && bytes[10] === 0x49 && bytes[11] === 0x54;
-  if (!hasSignature || (headerSize !== 12 && headerSize !== 14)) {
-    throw new AnalysisError('not_fit', 'This file is not a FIT activity file. Export the original .fit file from your head unit or app.');
-  }
+  walkFit(bytes, () => {});
+  return bytes.length;
+}
+
+/** Reads the records and devices; refuses what is not an activity or holds too many records. */
+export function readRideStream(bytes: Uint8Array): RideStream {
+  // First pass: structure, CRCs, the few non-record messages, and the record count,
+  // before any memory is set aside for records.
+  const meta: FitMetaMessages = { fileTypes: [], devices: [], sessions: [], activityEnd: NaN, creator: null };
+  let recordCount = 0;
+  let hasTemperature = false;
+  let lastDefinition: FitDefinition | null = null;
+  walkFit(bytes, (definition, offset, fitTime) => {
+    if (definition.globalNumber === MESG_RECORD) {
+      if (Number.isNaN(fitTime)) return;
+      if (++recordCount > MAX_RECORDS_PER_FILE) throw tooManyRecords();
+      if (definition !== lastDefinition) {
+        lastDefinition = definition;
+        hasTemperature ||= definition.fields.some((field) => field.num === RECORD_TEMPERATURE);
+      }
+    } else if (META_MESSAGES.has(definition.globalNumber)) {
+      collectMetaMessage(meta, bytes, definition, offset, fitTime);
+    }
+  });
+  assertActivity(meta, recordCount);
+
+  const columns = fillRecords(bytes, recordCount, hasTemperature);
+  sortByTime(columns.timestamps, columns.temperatureCelsius ? [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent, columns.temperatureCelsius] : [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent]);
+  assertPlausibleTimes(columns.timestamps, meta);
+  const { device, powerMeterReports } = deviceInfoFromMessages(meta);
+  return { ...columns, device, powerMeterReports, recording: recordingStatistics(columns.timestamps) };
+}
+
+interface RecordLayout {
+  definition: FitDefinition;
+  power: number;
+  cadence: number;
+  balance: number;
+  temperature: number;
+}
+
+function layoutOf(definition: FitDefinition): RecordLayout {
+  const layout: RecordLayout = { definition, power: -1, cadence: -1, balance: -1, temperature: -1 };
+  // The last field of a number wins when a definition repeats one, as in the FIT SDK.
+  definition.fields.forEach((field, index) => {
+    if (field.num === RECORD_POWER) layout.power = index;
+    else if (field.num === RECORD_CADENCE) layout.cadence = index;
+    else if (field.num === RECORD_LEFT_RIGHT_BALANCE) layout.balance = index;
+    else if (field.num === RECORD_TEMPERATURE) layout.temperature = index;
+  });
+  return layout;
+}
+
+function fillRecords(bytes: Uint8Array, count: number, hasTemperature: boolean) {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const dataEnd = headerSize + view.getUint32(4, true);
-  if (bytes.length < dataEnd + 2) {
-    throw damaged('it ends before its data does, as if the upload or export was cut short');
-  }
-  if (headerSize === 14) {
-    const headerCrc = view.getUint16(12, true);
-    if (headerCrc !== 0 && headerCrc !== crc16Arc(bytes, 0, 12)) throw damaged('its header checksum does not match');
-  }
-  if (view.getUint16(dataEnd, true) !== crc16Arc(bytes, 0, dataEnd)) {
-    throw damaged('its checksum does not match its contents');
-  }
-  return dataEnd + 2;
+  const timestamps = new Float64Array(count);
+  const powerWatts = new Float64Array(count);
+  const cadenceRpm = new Float64Array(count);
+  const rightBalancePercent = new Float64Array(count);
+  const temperatureCelsius = hasTemperature ? new Float64Array(count) : undefined;
+  let layout: RecordLayout | null = null;
+  let n = 0;
+  const value = (index: number, offset: number, definition: FitDefinition) => {
+    if (index < 0) return NaN;
+    const field = definition.fields[index];
+    return readFieldValue(bytes, view, offset + field.offset, field.size, field.baseType, definition.littleEndian);
+  };
+  walkFit(bytes, (definition, offset, fitTime) => {
+    if (definition.globalNumber !== MESG_RECORD || Number.isNaN(fitTime)) return;
+    if (layout === null || layout.definition !== definition) layout = layoutOf(definition);
+    timestamps[n] = fitTime + FIT_EPOCH_UNIX_SECONDS;
+    powerWatts[n] = value(layout.power, offset, definition);
+    cadenceRpm[n] = value(layout.cadence, offset, definition);
+    rightBalancePercent[n] = decodeBalance(value(layout.balance, offset, definition));
+    if (temperatureCelsius) temperatureCelsius[n] = value(layout.temperature, offset, definition);
+    n++;
+  });
+  return { timestamps, powerWatts, cadenceRpm, rightBalancePercent, ...(temperatureCelsius && { temperatureCelsius }) };
 }
 
-function damaged(reason: string): AnalysisError {
-  return new AnalysisError('damaged_file', `This file is damaged or incomplete: ${reason}. Try exporting it again.`);
+function tooManyRecords(): AnalysisError {
+  return new AnalysisError(
+    'too_many_records',
+    `This file holds more than ${MAX_RECORDS_PER_FILE.toLocaleString('en-GB')} records, more than a day of recording at 16 records a second. No ride recording has that many; export the ride itself rather than a merged or generated file.`,
+  );
 }
 
-function readMessages(bytes: Uint8Array): FitRawMessage[] {
-  try {
-    return readFitMessages(bytes, { messageNumbers: [MESG_FILE_ID, MESG_RECORD, MESG_DEVICE_INFO] }).messages;
-  } catch (error) {
-    if (error instanceof FitMessageReaderError) throw damaged('its structure cannot be read');
-    throw error;
+function assertActivity(meta: FitMetaMessages, recordCount: number): void {
+  const known = meta.fileTypes.filter((type) => !Number.isNaN(type));
+  if (known.length > 0 && !known.includes(FIT_FILE_ACTIVITY)) {
+    throw new AnalysisError(
+      'not_activity',
+      `This file is a FIT ${fitFileTypeName(known[0])} file, not a recorded activity. Export the ride itself (the activity file) from your head unit or app.`,
+    );
   }
+  if (known.length === 0 && recordCount === 0) {
+    throw new AnalysisError('not_activity', 'This file is a FIT file but holds no ride records, so it is not a recorded activity. Export the ride itself (the activity file) from your head unit or app.');
+  }
+}
+
+function assertPlausibleTimes(timestamps: Float64Array, meta: FitMetaMessages): void {
+  const count = timestamps.length;
+  if (count < 2) return;
+  const span = timestamps[count - 1] - timestamps[0];
+  if (span > MAX_RECORDING_SPAN_SECONDS) {
+    throw new AnalysisError(
+      'implausible_timestamps',
+      `This recording spans ${formatSpan(span)}, from ${isoDay(timestamps[0])} to ${isoDay(timestamps[count - 1])}; no ride lasts more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h. Some records carry a wrong time (the device's clock jumped), so the ride cannot be lined up with the other file.`,
+    );
+  }
+  const starts = meta.sessions.map((s) => s.start).filter((t) => !Number.isNaN(t));
+  const ends = [...meta.sessions.map((s) => s.end), meta.activityEnd].filter((t) => !Number.isNaN(t));
+  if (starts.length === 0 || ends.length === 0) return;
+  const from = Math.min(...starts) + FIT_EPOCH_UNIX_SECONDS - SESSION_TOLERANCE_SECONDS;
+  const to = Math.max(...ends) + FIT_EPOCH_UNIX_SECONDS + SESSION_TOLERANCE_SECONDS;
+  let outside = 0;
+  for (let i = 0; i < count; i++) if (timestamps[i] < from || timestamps[i] > to) outside++;
+  if (outside > 0) {
+    throw new AnalysisError(
+      'implausible_timestamps',
+      `This recording has ${outside === 1 ? 'a record' : `${outside} records`} dated more than an hour outside the ride's own start and end as the file itself gives them. The device's clock jumped, so the ride cannot be lined up with the other file.`,
+    );
+  }
+}
+
+function formatSpan(seconds: number): string {
+  const days = seconds / 86400;
+  return days >= 2 ? `${Math.round(days).toLocaleString('en-GB')} days` : `${Math.round(seconds / 3600)} h`;
+}
+
+function isoDay(unixSeconds: number): string {
+  const date = new Date(unixSeconds * 1000);
+  return Number.isNaN(date.getTime()) ? 'an impossible date' : date.toISOString().slice(0, 10);
 }
 
 export function assertRecordingUsable(stream: RideStream): void {
   let hasPower = false;
   for (let i = 0; i < stream.powerWatts.length && !hasPower; i++) hasPower = stream.powerWatts[i] >= 0;
   if (!hasPower) {
-    throw new AnalysisError('no_power', 'This recording has no power data. Was the power meter paired with the head unit on this ride?');
+    throw new AnalysisError(
+      'no_power',
+      stream.timestamps.length === 0
+        ? 'This recording holds no records at all, so it has no power data. Export the full ride from the device that recorded it.'
+        : 'This recording has no power data. Was the power meter paired with the head unit on this ride?',
+    );
   }
   const duration = stream.recording.endTime - stream.recording.startTime;
+  if (duration > MAX_RECORDING_SPAN_SECONDS) {
+    throw new AnalysisError('implausible_timestamps', `This recording spans ${formatSpan(duration)}; no ride lasts more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h.`);
+  }
   if (duration < MIN_OVERLAP_SECONDS) {
     throw new AnalysisError(
       'too_short',
@@ -88,120 +207,18 @@ export function assertRecordingUsable(stream: RideStream): void {
   }
 }
 
-function buildStream(messages: FitRawMessage[]): RideStream {
-  let recordCount = 0;
-  for (const message of messages) if (message.globalMessageNumber === MESG_RECORD && message.timestamp !== undefined) recordCount++;
-
-  const timestamps = new Float64Array(recordCount);
-  const powerWatts = new Float64Array(recordCount);
-  const cadenceRpm = new Float64Array(recordCount);
-  const rightBalancePercent = new Float64Array(recordCount);
-  let creator: DeviceIdentity = emptyIdentity();
-  let creatorSoftware: number | null = null;
-  let powerMeter: DeviceIdentity | null = null;
-  let n = 0;
-
-  for (const message of messages) {
-    if (message.globalMessageNumber === MESG_RECORD) {
-      if (message.timestamp === undefined) continue;
-      timestamps[n] = message.timestamp + FIT_EPOCH_UNIX_SECONDS;
-      powerWatts[n] = NaN;
-      cadenceRpm[n] = NaN;
-      rightBalancePercent[n] = NaN;
-      for (const field of message.fields) {
-        if (field.fieldNumber === RECORD_POWER) powerWatts[n] = readUnsigned(field, message.littleEndian);
-        else if (field.fieldNumber === RECORD_CADENCE) cadenceRpm[n] = readUnsigned(field, message.littleEndian);
-        else if (field.fieldNumber === RECORD_LEFT_RIGHT_BALANCE) rightBalancePercent[n] = decodeBalance(readUnsigned(field, message.littleEndian));
-      }
-      n++;
-    } else if (message.globalMessageNumber === MESG_FILE_ID) {
-      const fields = byNumber(message);
-      creator = {
-        manufacturerId: optional(readUnsigned(fields.get(1), message.littleEndian)),
-        productId: optional(readUnsigned(fields.get(2), message.littleEndian)),
-        serialNumber: optional(readUnsigned(fields.get(3), message.littleEndian)),
-        softwareVersion: null,
-      };
-    } else if (message.globalMessageNumber === MESG_DEVICE_INFO) {
-      const fields = byNumber(message);
-      const identity = deviceIdentity(fields, message.littleEndian);
-      const deviceIndex = readUnsigned(fields.get(0), message.littleEndian);
-      if (deviceIndex === 0) creatorSoftware ??= identity.softwareVersion;
-      if (powerMeter === null && isPowerMeter(fields, message.littleEndian)) powerMeter = identity;
-    }
-  }
-  sortByTime(timestamps, [powerWatts, cadenceRpm, rightBalancePercent]);
-  const device: DeviceInfo = { creator: { ...creator, softwareVersion: creatorSoftware }, powerMeter };
-  return { timestamps, powerWatts, cadenceRpm, rightBalancePercent, device, recording: recordingStatistics(timestamps) };
-}
-
-function emptyIdentity(): DeviceIdentity {
-  return { manufacturerId: null, productId: null, serialNumber: null, softwareVersion: null };
-}
-
-function byNumber(message: FitRawMessage): Map<number, FitRawField> {
-  return new Map(message.fields.map((field) => [field.fieldNumber, field]));
-}
-
-function deviceIdentity(fields: Map<number, FitRawField>, littleEndian: boolean): DeviceIdentity {
-  const software = readUnsigned(fields.get(5), littleEndian);
-  return {
-    manufacturerId: optional(readUnsigned(fields.get(2), littleEndian)),
-    productId: optional(readUnsigned(fields.get(4), littleEndian)),
-    serialNumber: optional(readUnsigned(fields.get(3), littleEndian)),
-    // software_version has scale 100 in the FIT profile.
-    softwareVersion: Number.isNaN(software) ? null : software / 100,
-  };
-}
-
-function isPowerMeter(fields: Map<number, FitRawField>, littleEndian: boolean): boolean {
-  const deviceType = readUnsigned(fields.get(1), littleEndian);
-  const sourceType = readUnsigned(fields.get(25), littleEndian);
-  if (sourceType === SOURCE_BLE) return deviceType === BLE_BIKE_POWER;
-  return (Number.isNaN(sourceType) || sourceType <= SOURCE_ANTPLUS) && deviceType === ANTPLUS_BIKE_POWER;
-}
-
-/** Unsigned FIT base types by id: byte width and whether zero is the invalid value (the "z" types). */
-const UNSIGNED_BASE_TYPES: Record<number, { width: 1 | 2 | 4; zeroInvalid: boolean }> = {
-  0x00: { width: 1, zeroInvalid: false },
-  0x02: { width: 1, zeroInvalid: false },
-  0x04: { width: 2, zeroInvalid: false },
-  0x06: { width: 4, zeroInvalid: false },
-  0x0a: { width: 1, zeroInvalid: true },
-  0x0b: { width: 2, zeroInvalid: true },
-  0x0c: { width: 4, zeroInvalid: true },
-  0x0d: { width: 1, zeroInvalid: false },
-};
-
-/** First element of an unsigned field; NaN when absent, of another type, or the type's invalid value. */
-function readUnsigned(field: FitRawField | undefined, littleEndian: boolean): number {
-  const type = field === undefined ? undefined : UNSIGNED_BASE_TYPES[field.baseType & 0x1f];
-  if (field === undefined || type === undefined || field.bytes.length < type.width) return NaN;
-  const b = field.bytes;
-  let value: number;
-  if (type.width === 1) value = b[0];
-  else if (type.width === 2) value = littleEndian ? b[0] | (b[1] << 8) : (b[0] << 8) | b[1];
-  else value = (littleEndian ? b[0] | (b[1] << 8) | (b[2] << 16) | (b[3] << 24) : (b[0] << 24) | (b[1] << 16) | (b[2] << 8) | b[3]) >>> 0;
-  const invalid = type.zeroInvalid ? 0 : 2 ** (8 * type.width) - 1;
-  return value === invalid ? NaN : value;
-}
-
-function optional(value: number): number | null {
-  return Number.isNaN(value) ? null : value;
-}
-
 function decodeBalance(raw: number): number {
   if (Number.isNaN(raw) || (raw & BALANCE_RIGHT_BIT) === 0) return NaN;
   const percent = raw & BALANCE_PERCENT_MASK;
   return percent <= 100 ? percent : NaN;
 }
 
-/** Records are normally in time order; a rare out-of-order file is sorted rather than rejected. */
+/** Records are normally in time order; an out-of-order file is sorted (stably) rather than rejected. */
 function sortByTime(timestamps: Float64Array, columns: Float64Array[]): void {
   let sorted = true;
   for (let i = 1; i < timestamps.length && sorted; i++) sorted = timestamps[i] >= timestamps[i - 1];
   if (sorted) return;
-  const order = Array.from(timestamps.keys()).sort((x, y) => timestamps[x] - timestamps[y]);
+  const order = Uint32Array.from(timestamps.keys()).sort((x, y) => timestamps[x] - timestamps[y] || x - y);
   for (const column of [timestamps, ...columns]) {
     const copy = column.slice();
     for (let i = 0; i < order.length; i++) column[i] = copy[order[i]];

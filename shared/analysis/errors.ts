@@ -2,7 +2,11 @@ import type { Side } from './types';
 
 export type AnalysisErrorCode =
   | 'not_fit'
+  | 'not_activity'
   | 'damaged_file'
+  | 'ended_early'
+  | 'implausible_timestamps'
+  | 'too_many_records'
   | 'no_power'
   | 'too_short'
   | 'no_overlap'

@@ -1,3 +1,5 @@
+import { MAX_RECORDING_SPAN_SECONDS } from './decode-fit';
+import { AnalysisError } from './errors';
 import { MAX_CARRY_SECONDS } from './method';
 import type { RideStream } from './types';
 
@@ -14,6 +16,10 @@ export interface SecondGrid {
 export function toSecondGrid(stream: RideStream): SecondGrid {
   const start = Math.floor(stream.recording.startTime);
   const length = stream.timestamps.length === 0 ? 0 : Math.floor(stream.recording.endTime) - start + 1;
+  // The decoder refuses such recordings; this guards every other way a stream arrives.
+  if (!(length <= MAX_RECORDING_SPAN_SECONDS + 1)) {
+    throw new AnalysisError('implausible_timestamps', `This recording spans more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h, which no ride does; some of its records carry a wrong time.`);
+  }
   return {
     start,
     length,
@@ -26,15 +32,49 @@ export function toSecondGrid(stream: RideStream): SecondGrid {
 /**
  * Mean of the samples within each second, then each value carried across a gap of
  * up to MAX_CARRY_SECONDS to the device's next sample of that field (change-only
- * recording is normal); longer gaps stay NaN.
+ * recording is normal); longer gaps stay NaN. Work is one pass over the records
+ * (sorted by time, as the decoder leaves them) plus filling the grid; samples
+ * outside [start, start + length) are ignored.
  */
 export function resample(times: Float64Array, values: Float64Array, start: number, length: number): Float64Array {
-  const sums = new Float64Array(length);
-  const counts = new Uint16Array(length);
+  const grid = new Float64Array(length).fill(NaN);
+  let second = -1;
+  let sum = 0;
+  let count = 0;
+  let last = -1;
+  const flush = () => {
+    if (count === 0) return;
+    if (last >= 0 && second - last > 1 && second - last <= MAX_CARRY_SECONDS) grid.fill(grid[last], last + 1, second);
+    grid[second] = sum / count;
+    last = second;
+  };
   for (let i = 0; i < times.length; i++) {
     const value = values[i];
     if (Number.isNaN(value)) continue;
+    const s = Math.floor(times[i]) - start;
+    if (!(s >= 0 && s < length)) continue;
+    if (s < second) return resampleUnsorted(times, values, start, length);
+    if (s !== second) {
+      flush();
+      second = s;
+      sum = 0;
+      count = 0;
+    }
+    sum += value;
+    count++;
+  }
+  flush();
+  return grid;
+}
+
+/** The same for records out of time order: per-second sums over the grid. */
+function resampleUnsorted(times: Float64Array, values: Float64Array, start: number, length: number): Float64Array {
+  const sums = new Float64Array(length);
+  const counts = new Uint32Array(length);
+  for (let i = 0; i < times.length; i++) {
+    const value = values[i];
     const second = Math.floor(times[i]) - start;
+    if (Number.isNaN(value) || !(second >= 0 && second < length)) continue;
     sums[second] += value;
     counts[second]++;
   }

@@ -19,6 +19,18 @@ export interface DeviceInfo {
   powerMeter: DeviceIdentity | null;
 }
 
+/** One device_info message of the power meter, as the file gave it (battery and wear over the ride). */
+export interface PowerMeterReport {
+  /** UTC seconds; null when the message carries no time. */
+  time: number | null;
+  /** FIT battery_status: 1 new, 2 good, 3 ok, 4 low, 5 critical, 6 charging, 7 unknown (FIT SDK profile). */
+  batteryStatus: number | null;
+  /** battery_voltage in volts (the file stores 1/256 V). */
+  batteryVolts: number | null;
+  /** cum_operating_time: the sensor's total running time, in seconds. */
+  cumulativeOperatingSeconds: number | null;
+}
+
 export interface RecordingStatistics {
   recordCount: number;
   /** UTC seconds of the first and last record. */
@@ -41,7 +53,11 @@ export interface RideStream {
   cadenceRpm: Float64Array;
   /** The right leg's share of total power in percent; NaN when absent or the side is unknown. */
   rightBalancePercent: Float64Array;
+  /** Record temperature in °C, parallel to timestamps; present only when the file records it. */
+  temperatureCelsius?: Float64Array;
   device: DeviceInfo;
+  /** Every device_info message of the power meter, in file order (set by the decoder). */
+  powerMeterReports?: PowerMeterReport[];
   recording: RecordingStatistics;
 }
 

@@ -1,11 +1,10 @@
 import type { Knex } from 'knex';
-import { compareRecordings } from '@shared/analysis/compare-recordings';
 import { AnalysisError } from '@shared/analysis/errors';
 import type { CompareOptions } from '@shared/analysis/types';
 import { AFTER_DRIVETRAIN_KINDS, type ModelKind } from '@shared/schemas/catalogue';
 import type { Queue } from '../../jobs/queue';
 import type { Logger } from '../../lib/logger';
-import { decodeStream } from './stream-codec';
+import { compareStoredRecordings } from './recording-tasks';
 import * as submissions from './submissions.repository';
 
 export const ANALYSE_SUBMISSION_QUEUE = 'analyse-submission';
@@ -63,7 +62,8 @@ export async function analyseSubmission(db: Knex, id: number, logger?: Logger): 
       aAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(a.modelKind as ModelKind),
       bAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(b.modelKind as ModelKind),
     };
-    const result = compareRecordings(decodeStream(a.stream), decodeStream(b.stream), options);
+    // In a worker thread: a long pair takes seconds of CPU, which the web process's requests must not wait for.
+    const result = await compareStoredRecordings(a.stream, b.stream, options);
     await submissions.storeResult(db, id, result);
   } catch (err) {
     if (err instanceof AnalysisError) {

@@ -1,16 +1,15 @@
-import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
-import { decodeFit } from '@shared/analysis/decode-fit';
 import { AnalysisError, formatDuration } from '@shared/analysis/errors';
 import { MAX_CLOCK_OFFSET_SECONDS, MIN_OVERLAP_SECONDS } from '@shared/analysis/method';
-import type { RideStream, Side } from '@shared/analysis/types';
+import type { RecordingStatistics, Side } from '@shared/analysis/types';
 import type { CreateSubmissionInput } from '@shared/schemas/submission';
 import { findUsableFirmware, findUsableModel, findUsableRecordingDevice } from '../catalogue/catalogue.repository';
 import { AppError, ConflictError, ValidationError } from '../../lib/errors';
 import { isUniqueViolation } from '../../lib/pg-errors';
 import type { Queue } from '../../jobs/queue';
 import { enqueueAnalysis } from './analyse-submission.job';
-import { encodeStream } from './stream-codec';
+import { prepareRecording, RecordingTaskError } from './recording-tasks';
+import type { PreparedRecording } from './recording-tasks.worker';
 import * as submissions from './submissions.repository';
 
 export interface UploadedFile {
@@ -41,8 +40,12 @@ export async function createSubmission(
 ): Promise<{ id: number }> {
   const { db } = deps;
   await checkTags(db, riderId, input);
-  const streams = { a: decode(files.a.buffer, 'a'), b: decode(files.b.buffer, 'b') };
-  const hashes = { a: sha256(files.a.buffer), b: sha256(files.b.buffer) };
+  // Both files are decoded and checked in worker threads, side by side.
+  const [preparedA, preparedB] = await Promise.allSettled([prepare(files.a.buffer, 'a'), prepare(files.b.buffer, 'b')]);
+  if (preparedA.status === 'rejected') throw preparedA.reason;
+  if (preparedB.status === 'rejected') throw preparedB.reason;
+  const streams = { a: preparedA.value, b: preparedB.value };
+  const hashes = { a: streams.a.sha256, b: streams.b.sha256 };
   if (hashes.a === hashes.b) {
     throw new UnusableFileError('b', 'identical_files', 'Both files are the same recording. Choose the file from the other device for B.');
   }
@@ -71,7 +74,7 @@ export async function createSubmission(
           sha256: hashes[side],
           deviceInfo: streams[side].device,
           recordingStats: streams[side].recording,
-          stream: encodeStream(streams[side]),
+          stream: streams[side].stored,
         })),
       ),
     );
@@ -90,24 +93,23 @@ function duplicate(id: number) {
   return new ConflictError('These two files were uploaded before.', { submissionId: id, url: `/submissions/${id}` });
 }
 
-function sha256(bytes: Buffer) {
-  return createHash('sha256').update(bytes).digest('hex');
-}
-
-function decode(bytes: Buffer, side: Side): RideStream {
+async function prepare(bytes: Buffer, side: Side): Promise<PreparedRecording> {
   try {
-    return decodeFit(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+    return await prepareRecording(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   } catch (err) {
     if (err instanceof AnalysisError) {
       throw new UnusableFileError(side, err.code, err.message.replace(/^This (file|recording)/, `The ${SIDE_LABEL[side]} file`));
     }
-    throw new UnusableFileError(side, 'damaged_file', `The ${SIDE_LABEL[side]} file cannot be read as a FIT activity file.`);
+    if (err instanceof RecordingTaskError) {
+      throw new UnusableFileError(side, 'too_costly', `The ${SIDE_LABEL[side]} file takes more ${err.reason === 'time' ? 'time' : 'memory'} to read than any ride recording does, so it was not read to the end. Export the ride again from the device that recorded it.`);
+    }
+    throw err;
   }
 }
 
 // A quick look at the two time ranges before anything is stored; the analysis job
 // then finds the exact clock offset and overlap.
-function checkOverlap(a: RideStream, b: RideStream) {
+function checkOverlap(a: { recording: RecordingStatistics }, b: { recording: RecordingStatistics }) {
   const start = Math.max(a.recording.startTime, b.recording.startTime - MAX_CLOCK_OFFSET_SECONDS);
   const end = Math.min(a.recording.endTime, b.recording.endTime + MAX_CLOCK_OFFSET_SECONDS);
   const overlap = end - start;

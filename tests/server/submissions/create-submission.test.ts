@@ -1,6 +1,8 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { MAX_FIT_FILE_BYTES } from '../../../shared/limits';
+import { MAX_RECORDS_PER_FILE } from '../../../shared/analysis/decode-fit';
+import { FILE_TYPE, simpleActivity, tinyRecordFile } from '../../shared/analysis/fit-bytes';
 import { recordingFit } from '../../shared/analysis/fit-files';
 import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent, type TestAgent } from '../support/sign-in';
@@ -77,10 +79,22 @@ describe('POST /api/submissions with bad input', () => {
   const farApart = recordingFit({ seconds: 900, start: 1_600_000_000 });
   const truncated = asBuffer(other.a).subarray(0, Math.floor(other.a.length * 0.6));
   const withoutPower = recordingFit({ seconds: 900, power: () => 0xffff });
+  const flipped = Buffer.from(other.b);
+  flipped[Math.floor(flipped.length / 2)] ^= 0x10;
+  const rideStart = 1_717_225_200;
+  const settings = simpleActivity({ seconds: 900, fileType: FILE_TYPE.settings });
+  const oneRecordAYearOn = simpleActivity({ seconds: 900, start: rideStart, time: (i) => rideStart + i + (i === 450 ? 365 * 86400 : 0) });
+  const tooShort = recordingFit({ seconds: 300 });
+  const tooManyRecords = tinyRecordFile(MAX_RECORDS_PER_FILE + 1);
 
   const cases: Array<{ when: string; send: () => ReturnType<typeof upload>; status: number; code: string; field?: string; message: RegExp }> = [
-    { when: 'file A is a PNG renamed .fit', send: () => upload([['fileA', PNG_BYTES, 'ride.fit'], ['fileB', asBuffer(other.b)]]), status: 400, code: 'not_fit', field: 'fileA', message: /not a FIT activity file/ },
-    { when: 'file B is truncated', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', truncated]]), status: 400, code: 'damaged_file', field: 'fileB', message: /damaged or incomplete/ },
+    { when: 'file A is a PNG renamed .fit', send: () => upload([['fileA', PNG_BYTES, 'ride.fit'], ['fileB', asBuffer(other.b)]]), status: 400, code: 'not_fit', field: 'fileA', message: /not a FIT file/ },
+    { when: 'file B is truncated', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', truncated]]), status: 400, code: 'ended_early', field: 'fileB', message: /The second file ended early: its header promises/ },
+    { when: 'file B has a changed byte', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', flipped]]), status: 400, code: 'damaged_file', field: 'fileB', message: /The second file is damaged: its checksum does not match/ },
+    { when: 'file A is a settings file', send: () => upload([['fileA', asBuffer(settings)], ['fileB', asBuffer(other.b)]]), status: 400, code: 'not_activity', field: 'fileA', message: /FIT settings file, not a recorded activity/ },
+    { when: 'one record of file B is dated a year later', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(oneRecordAYearOn)]]), status: 400, code: 'implausible_timestamps', field: 'fileB', message: /spans 365 days/ },
+    { when: 'file B lasts 5 minutes', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(tooShort)]]), status: 400, code: 'too_short', field: 'fileB', message: /too short/ },
+    { when: 'file B holds more records than the cap', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(tooManyRecords)]]), status: 400, code: 'too_many_records', field: 'fileB', message: /more than 1,500,000 records/ },
     { when: 'file B has no power', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(withoutPower)]]), status: 400, code: 'no_power', field: 'fileB', message: /no power data/ },
     { when: 'the two recordings do not overlap', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(farApart)]]), status: 400, code: 'no_overlap', field: 'files', message: /do not overlap in time/ },
     { when: 'file B is missing', send: () => upload([['fileA', asBuffer(other.a)]]), status: 400, code: 'validation_failed', field: 'fileB', message: /exactly two FIT files/ },

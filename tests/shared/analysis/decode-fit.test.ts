@@ -88,7 +88,7 @@ describe('decodeFit privacy and device info', () => {
 
     const stream = decodeFit(a);
 
-    expect(Object.keys(stream).sort()).toEqual(['cadenceRpm', 'device', 'powerWatts', 'recording', 'rightBalancePercent', 'timestamps']);
+    expect(Object.keys(stream).sort()).toEqual(['cadenceRpm', 'device', 'powerMeterReports', 'powerWatts', 'recording', 'rightBalancePercent', 'timestamps']);
     expect(JSON.stringify({ ...stream, timestamps: [], powerWatts: [], cadenceRpm: [], rightBalancePercent: [] })).not.toMatch(/position|latitude|longitude|"lat"|"long"/i);
   });
 
@@ -133,10 +133,10 @@ describe('decodeFit verification errors', () => {
     expect(error.message).toMatch(/not a FIT/);
   });
 
-  it('when the file is cut short, then the error is damaged_file', () => {
+  it('when the file is cut short, then the error is ended_early', () => {
     const bytes = recordingFit({ seconds: 700 });
 
-    expect(decodeError(bytes.subarray(0, bytes.length - 100)).code).toBe('damaged_file');
+    expect(decodeError(bytes.subarray(0, bytes.length - 100)).code).toBe('ended_early');
   });
 
   it('when one byte of the data is changed, then the CRC mismatch is damaged_file', () => {

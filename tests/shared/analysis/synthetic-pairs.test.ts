@@ -140,8 +140,8 @@ describe('synthetic pairs: errors', () => {
     expect(codeOf(() => compareFitFiles(new TextEncoder().encode('not a ride'), good.b, DIRECT))).toBe('not_fit');
   });
 
-  it('when B is truncated, then the error is damaged_file', () => {
-    expect(codeOf(() => compareFitFiles(good.a, good.b.subarray(0, good.b.length - 1), DIRECT))).toBe('damaged_file');
+  it('when B is truncated, then the error is ended_early', () => {
+    expect(codeOf(() => compareFitFiles(good.a, good.b.subarray(0, good.b.length - 1), DIRECT))).toBe('ended_early');
   });
 
   it('when B has a flipped byte, then the CRC mismatch is damaged_file', () => {

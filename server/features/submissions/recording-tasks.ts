@@ -1,0 +1,75 @@
+import { availableParallelism } from 'node:os';
+import { createRequire } from 'node:module';
+import { pathToFileURL } from 'node:url';
+import Piscina from 'piscina';
+import { AnalysisError } from '@shared/analysis/errors';
+import type { ComparisonResult, CompareOptions } from '@shared/analysis/types';
+import type { PreparedRecording, RecordingTask, TaskOutcome } from './recording-tasks.worker';
+
+// A small pool of worker threads for decoding uploads and analysing pairs, off the
+// web process's event loop. Each task has a time limit and each thread a heap limit,
+// so no file, however built, can stall or kill the server: the task fails instead.
+
+/** Generous: a 25 MB file decodes in about a second on one core. */
+export const TASK_TIME_LIMIT_MS = 60_000;
+const HEAP_LIMIT_MB = 1024;
+
+/** A task that ran out of time or memory, or whose thread died. */
+export class RecordingTaskError extends Error {
+  constructor(readonly reason: 'time' | 'memory' | 'crash', cause: unknown) {
+    super(`recording task failed (${reason})`, { cause });
+    this.name = 'RecordingTaskError';
+  }
+}
+
+let pool: Piscina<RecordingTask, TaskOutcome<unknown>> | null = null;
+
+function tsxLoaderArgs(): string[] {
+  // Worker threads start plain Node: give them tsx's loader, as the main process has.
+  if (process.execArgv.some((arg) => arg.includes('tsx'))) return process.execArgv;
+  const loader = createRequire(import.meta.url).resolve('tsx');
+  return ['--import', pathToFileURL(loader).href];
+}
+
+function recordingPool() {
+  pool ??= new Piscina<RecordingTask, TaskOutcome<unknown>>({
+    filename: new URL('./recording-tasks.worker.ts', import.meta.url).href,
+    execArgv: tsxLoaderArgs(),
+    minThreads: 0,
+    maxThreads: Math.max(2, availableParallelism()),
+    idleTimeout: 30_000,
+    resourceLimits: { maxOldGenerationSizeMb: HEAP_LIMIT_MB },
+  });
+  return pool;
+}
+
+async function run<T>(task: RecordingTask, timeLimitMs: number): Promise<T> {
+  let outcome: TaskOutcome<unknown>;
+  try {
+    outcome = await recordingPool().run(task, { signal: AbortSignal.timeout(timeLimitMs) });
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    const name = (err as { name?: string }).name;
+    if (name === 'AbortError' || name === 'TimeoutError') throw new RecordingTaskError('time', err);
+    if (code === 'ERR_WORKER_OUT_OF_MEMORY') throw new RecordingTaskError('memory', err);
+    throw new RecordingTaskError('crash', err);
+  }
+  if (!outcome.ok) throw new AnalysisError(outcome.error.code, outcome.error.message);
+  return outcome.value as T;
+}
+
+/** Decodes and checks one uploaded file; throws AnalysisError for a file the engine cannot use. */
+export function prepareRecording(bytes: Uint8Array, timeLimitMs = TASK_TIME_LIMIT_MS): Promise<PreparedRecording> {
+  return run<PreparedRecording>({ kind: 'prepare', bytes }, timeLimitMs).then((prepared) => ({ ...prepared, stored: Buffer.from(prepared.stored) }));
+}
+
+/** Runs the engine on two stored streams. */
+export function compareStoredRecordings(a: Uint8Array, b: Uint8Array, options: CompareOptions): Promise<ComparisonResult> {
+  return run<ComparisonResult>({ kind: 'compare', a, b, options }, TASK_TIME_LIMIT_MS);
+}
+
+export async function closeRecordingTasks(): Promise<void> {
+  const closing = pool;
+  pool = null;
+  await closing?.close();
+}
