@@ -21,14 +21,19 @@ export default defineConfig({
         test: {
           name: 'unit',
           include: ['tests/shared/**/*.test.ts', 'tests/client/**/*.test.ts', 'tests/scripts/**/*.test.ts'],
+          exclude: ['**/*.process.test.ts', '**/node_modules/**'],
           environment: 'node',
+          // Bounds, not goals: on a busy 2-core machine a 4-hour simulated ride takes seconds.
+          testTimeout: 60_000,
+          hookTimeout: 60_000,
         },
       },
       {
         resolve: { alias },
         test: {
           name: 'api',
-          include: ['tests/server/**/*.test.ts'],
+          // *.process.test.ts start real Crosswatt processes (with their own PostgreSQL) and signal them.
+          include: ['tests/server/**/*.test.ts', 'tests/scripts/**/*.process.test.ts'],
           globalSetup: ['tests/global-setup.ts'],
           setupFiles: ['tests/server/setup-database.ts'],
           testTimeout: 30_000,

@@ -32,11 +32,24 @@ export async function startServer(config: Config): Promise<RunningServer> {
     url,
     server,
     async close() {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-      server.closeAllConnections();
+      await closeHttpServer(server);
       await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
       await db.destroy();
       await closeRecordingTasks();
     },
   };
+}
+
+/** Stops taking connections, lets requests in flight finish for a few seconds, then cuts the rest. */
+export async function closeHttpServer(server: Server, graceMs = 5_000): Promise<void> {
+  const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+  server.closeIdleConnections();
+  let timer: NodeJS.Timeout | undefined;
+  const grace = new Promise<void>((resolve) => {
+    timer = setTimeout(resolve, graceMs);
+  });
+  await Promise.race([closed, grace]);
+  clearTimeout(timer);
+  server.closeAllConnections();
+  await closed;
 }

@@ -4,19 +4,16 @@ import { loadConfig } from './config/env';
 import { createDb } from './db/knex';
 import { startQueue } from './jobs/queue';
 import { registerWorkers } from './jobs/workers';
+import { createShutdown } from './lib/graceful-shutdown';
 import { createLogger } from './lib/logger';
 
 const config = loadConfig();
 const logger = createLogger(config);
+const shutdown = createShutdown({ log: (line) => logger.info(line) });
+shutdown.handleSignals();
 const db = createDb(config.DATABASE_URL);
+shutdown.add('the database connections', () => db.destroy());
 const queue = await startQueue(config.DATABASE_URL, logger);
+shutdown.add('the job queue', () => queue.stop({ graceful: true, wait: true, timeout: 10_000 }), 20_000);
 await registerWorkers({ queue, db, logger, config });
 logger.info('Crosswatt worker is running');
-
-const shutdown = async () => {
-  await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
-  await db.destroy();
-  process.exit(0);
-};
-process.once('SIGINT', shutdown);
-process.once('SIGTERM', shutdown);

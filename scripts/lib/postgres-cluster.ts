@@ -1,6 +1,6 @@
 // A private PostgreSQL cluster from Debian's packages, listening on loopback only.
 // `npm start` keeps one in .data/postgres; the test run makes a throwaway one.
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync, type SpawnSyncOptionsWithStringEncoding, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -46,10 +46,14 @@ function ensureBinaries(log: (line: string) => void): string {
 }
 
 // initdb and postgres refuse to run as root: run them as the `postgres` system user.
+// `detached` gives the server a session of its own: a Ctrl-C or a SIGTERM to our process
+// group must not reach PostgreSQL before the app has stopped using it.
 function run(binDir: string, program: string, args: string[]) {
   const bin = path.join(binDir, program);
   const [file, argv] = isRoot() ? ['runuser', ['-u', 'postgres', '--', bin, ...args]] : [bin, args];
-  return spawnSync(file, argv, { encoding: 'utf8' });
+  // spawnSync honours `detached` (a new session, as spawn does) though its options type omits it.
+  const options: SpawnSyncOptionsWithStringEncoding & { detached: boolean } = { encoding: 'utf8', detached: true };
+  return spawnSync(file, argv, options);
 }
 
 function ownForCluster(dir: string) {
@@ -75,12 +79,20 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
     ]);
     if (init.status !== 0) throw new ClusterError(`initdb failed: ${init.stderr || init.stdout}`);
   }
+  const ownerFile = `${absolute}.owner`;
+  const stopServer = () => {
+    const fast = run(binDir, 'pg_ctl', ['stop', '-w', '-t', '20', '-m', 'fast', '-D', absolute]);
+    if (fast.status !== 0 && run(binDir, 'pg_ctl', ['status', '-D', absolute]).status === 0) {
+      run(binDir, 'pg_ctl', ['stop', '-w', '-t', '20', '-m', 'immediate', '-D', absolute]);
+    }
+  };
+  let reused = false;
   if (run(binDir, 'pg_ctl', ['status', '-D', absolute]).status === 0) {
-    throw new ClusterError(`The database in ${dataDir} is already in use: is Crosswatt running already?`);
+    reused = takeOverLeftover({ dataDir, ownerFile, port, postmaster: readPostmaster(absolute), stop: stopServer, log });
   }
   const logFile = path.join(absolute, 'server.log');
   const options = `-c listen_addresses=127.0.0.1 -p ${port} -k ${absolute} -c fsync=off`;
-  const started = run(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
+  const started = reused ? { status: 0, stderr: '', stdout: '' } : run(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
   if (started.status !== 0) {
     const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-6).join('\n') : '';
     const busy = /could not bind|Address already in use/.test(tail);
@@ -90,6 +102,7 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
         : `PostgreSQL did not start: ${started.stderr || started.stdout}\n${tail}`,
     );
   }
+  fs.writeFileSync(ownerFile, `${process.pid}\n`);
   let stopped = false;
   return {
     port,
@@ -97,9 +110,65 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
     stop() {
       if (stopped) return;
       stopped = true;
-      run(binDir, 'pg_ctl', ['stop', '-w', '-m', 'fast', '-D', absolute]);
+      stopServer();
+      fs.rmSync(ownerFile, { force: true });
     },
   };
+}
+
+export interface Postmaster {
+  pid: number;
+  port: number;
+}
+
+/** postmaster.pid: the server's process id on line 1 and its port on line 4. */
+export function readPostmaster(dataDir: string): Postmaster | undefined {
+  try {
+    const lines = fs.readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n');
+    const pid = Number(lines[0]);
+    const port = Number(lines[3]);
+    return Number.isInteger(pid) && Number.isInteger(port) ? { pid, port } : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function processIsAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (err) {
+    return (err as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/**
+ * A cluster is already running on this data folder. When the Crosswatt that started it
+ * is still alive, refuse; when it is gone (killed, crashed), reuse the cluster if it
+ * listens on our port, else stop it so it starts again on ours. Returns true when reused.
+ */
+export function takeOverLeftover(options: {
+  dataDir: string;
+  ownerFile: string;
+  port: number;
+  postmaster: Postmaster | undefined;
+  stop: () => void;
+  log: (line: string) => void;
+  isAlive?: (pid: number) => boolean;
+}): boolean {
+  const { dataDir, ownerFile, port, postmaster, stop, log, isAlive = processIsAlive } = options;
+  const owner = fs.existsSync(ownerFile) ? Number(fs.readFileSync(ownerFile, 'utf8').trim()) : undefined;
+  if (owner && owner !== process.pid && isAlive(owner)) {
+    throw new ClusterError(`The database in ${dataDir} is in use by a running Crosswatt (process ${owner}): stop that one first.`);
+  }
+  const what = `PostgreSQL left running by an earlier Crosswatt on ${dataDir} (process ${postmaster?.pid ?? '?'}, port ${postmaster?.port ?? '?'})`;
+  if (postmaster?.port === port) {
+    log(`Reusing ${what}.`);
+    return true;
+  }
+  log(`Stopping ${what}; starting it again on port ${port}.`);
+  stop();
+  return false;
 }
 
 export async function ensureDatabase(adminUrl: string, database: string, template?: string) {

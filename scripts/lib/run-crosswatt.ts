@@ -5,6 +5,7 @@ import { ConfigError, loadConfig } from '../../server/config/env';
 import { createDb } from '../../server/db/knex';
 import { runMigrations } from '../../server/db/migrate';
 import { startLocalFakes } from '../../server/fakes/start-fakes';
+import { createShutdown } from '../../server/lib/graceful-shutdown';
 import { createLogger } from '../../server/lib/logger';
 import { startServer } from '../../server/start-server';
 import { seedDemoIfEmpty } from './demo-seed';
@@ -18,6 +19,8 @@ export interface RunOptions {
   afterStart?: (apiUrl: string) => Promise<(() => unknown) | void>;
   /** The address people open, when it is not the API server's own (Vite in dev). */
   publicUrl?: string;
+  /** Load the demo world into an empty database (default true). */
+  seedDemo?: boolean;
 }
 
 // Captured at start: a Vite build later sets NODE_ENV=production in this process.
@@ -26,23 +29,13 @@ const env: Record<string, string | undefined> = { NODE_ENV: 'development', ...pr
 export function runCrosswatt(options: RunOptions = {}) {
   const port = Number(env.PORT ?? 3000);
   const pgPort = Number(env.CROSSWATT_PG_PORT ?? 54329);
-  const cleanups: Array<() => unknown> = [];
-  let stopping = false;
-
-  async function shutdown(code: number) {
-    if (stopping) return;
-    stopping = true;
-    for (const cleanup of cleanups.reverse()) {
-      try {
-        await cleanup();
-      } catch (err) {
-        console.error(err);
-      }
-    }
-    process.exit(code);
-  }
-  process.once('SIGINT', () => void shutdown(0));
-  process.once('SIGTERM', () => void shutdown(0));
+  const dataDir = env.CROSSWATT_DATA_DIR ?? '.data/postgres';
+  const shutdown = createShutdown();
+  shutdown.handleSignals();
+  process.on('uncaughtException', (err) => {
+    console.error(err);
+    void shutdown.stop(1);
+  });
 
   async function main() {
     if (!(await portIsFree(port))) {
@@ -50,18 +43,20 @@ export function runCrosswatt(options: RunOptions = {}) {
     }
     let databaseUrl = env.DATABASE_URL;
     if (!databaseUrl) {
-      const cluster: Cluster = startCluster({ dataDir: '.data/postgres', port: pgPort });
-      cleanups.push(() => cluster.stop());
+      const cluster: Cluster = startCluster({ dataDir, port: pgPort });
+      // Last step of the shutdown, and a safety net: pg_ctl is synchronous, so it runs even in 'exit'.
+      shutdown.add('PostgreSQL', () => cluster.stop(), 30_000);
+      process.on('exit', () => cluster.stop());
       await ensureDatabase(cluster.urlFor('postgres'), 'crosswatt');
       databaseUrl = cluster.urlFor('crosswatt');
-      console.log(`PostgreSQL is running on 127.0.0.1:${pgPort} (data in .data/postgres)`);
+      console.log(`PostgreSQL is running on 127.0.0.1:${pgPort} (data in ${dataDir})`);
     }
     const logger = createLogger({ LOG_LEVEL: (env.LOG_LEVEL as 'info') ?? 'warn' });
     const db = createDb(databaseUrl);
-    cleanups.push(() => db.destroy());
+    shutdown.add('the database connections', () => db.destroy());
     await runMigrations(db);
     const fakes = await startLocalFakes({ db, logger });
-    cleanups.push(() => fakes.stop());
+    shutdown.add('the local fakes', () => fakes.stop());
     await options.beforeServer?.();
     const config = loadConfig({
       LOG_LEVEL: 'warn',
@@ -72,15 +67,15 @@ export function runCrosswatt(options: RunOptions = {}) {
       ...fakes.env,
     });
     const running = await startServer(config);
-    cleanups.push(() => running.close());
-    await seedDemoIfEmpty({ db, config, log: console.log });
+    shutdown.add('the server and its worker', () => running.close(), 30_000);
+    if (options.seedDemo !== false) await seedDemoIfEmpty({ db, config, log: console.log });
     const stopAfter = await options.afterStart?.(running.url);
-    if (stopAfter) cleanups.push(stopAfter);
+    if (stopAfter) shutdown.add('the dev server', stopAfter);
     console.log(`\nCrosswatt is running at ${options.publicUrl ?? running.url}  (Ctrl-C to stop)`);
   }
 
   main().catch((err) => {
     console.error(err instanceof ClusterError || err instanceof ConfigError ? err.message : err);
-    void shutdown(1);
+    void shutdown.stop(1);
   });
 }
