@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { recordingTagsInput } from './submission';
+import { day } from './day';
+import { recordingTagsInput, SUBMISSION_STATUSES } from './submission';
 
 /** Why a moderator rejects a submission: a fixed list, so riders and statistics can rely on it. */
 export const REJECT_REASONS = [
@@ -106,3 +107,22 @@ export const pinNoteInput = z.object({
 export const hideModelInput = z.object({
   reason: note.pipe(z.string().min(3, 'say why it is hidden (at least 3 characters)').max(280, 'keep it under 280 characters')),
 });
+
+// ——— answers ———
+
+/** The last decision on a submission, as its rider and the public see it. */
+export const decisionView = z.object({
+  reason: z.string().nullable(),
+  reasonLabel: z.string().nullable(),
+  note: z.string().nullable(),
+  decidedOn: day,
+});
+export type DecisionView = z.infer<typeof decisionView>;
+
+export const submissionDecisionResponse = z.object({
+  id: z.number(),
+  status: z.enum(SUBMISSION_STATUSES),
+  version: z.number(),
+  decision: decisionView.nullable(),
+});
+export type SubmissionDecisionResponse = z.infer<typeof submissionDecisionResponse>;

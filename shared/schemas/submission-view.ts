@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { MEASUREMENT_POSITIONS } from '../analysis/types';
 import { MODEL_KINDS } from './catalogue';
+import { day } from './day';
 import { RECORDING_MODES, SUBMISSION_STATUSES, SURFACES, ZERO_OFFSET_ANSWERS } from './submission';
 
 // What the API shows of a submission, field by field. Nothing here carries a
@@ -10,8 +11,6 @@ import { RECORDING_MODES, SUBMISSION_STATUSES, SURFACES, ZERO_OFFSET_ANSWERS } f
 const num = z.number();
 const maybe = num.nullable();
 const side = z.enum(['a', 'b']);
-/** A calendar day, YYYY-MM-DD (UTC). */
-export const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
 
 const flag = z.object({ code: z.string(), severity: z.enum(['info', 'warning', 'severe']), message: z.string() });
 const dropoutSummary = z.object({
@@ -149,8 +148,3 @@ export const mySubmissionView = z.object({
 export type MySubmissionView = z.infer<typeof mySubmissionView>;
 export const mySubmissionsResponse = z.object({ submissions: z.array(mySubmissionView) });
 export type MySubmissionsResponse = z.infer<typeof mySubmissionsResponse>;
-
-/** The day (UTC) of a time, for responses that must not say more. */
-export function dayOf(value: Date | string | number): string {
-  return new Date(value).toISOString().slice(0, 10);
-}

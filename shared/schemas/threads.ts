@@ -127,7 +127,8 @@ export interface LinkedSubmission {
   /** Power dropouts of this model's recording. */
   powerDropouts: number | null;
   firmware: string;
-  rideStartedAt: string;
+  /** The day of the ride (YYYY-MM-DD). */
+  rideDate: string;
 }
 
 export interface PostView {
@@ -142,15 +143,17 @@ export interface PostView {
   hidden: { reason: string } | null;
   isOpening: boolean;
   isOfficialResponse: boolean;
-  createdAt: string;
-  editedAt: string | null;
+  /** Days (YYYY-MM-DD): a post's time of day is nobody's business. */
+  createdOn: string;
+  editedOn: string | null;
+  /** Only for the author, while they may still edit: an exact time. */
   editableUntil: string | null;
   linkedSubmissions: LinkedSubmission[];
 }
 
 export interface LinkableSubmission {
   id: number;
-  rideStartedAt: string;
+  rideDate: string;
   firmware: string;
   side: 'a' | 'b';
   biasPercent: number | null;
@@ -174,8 +177,9 @@ export interface ThreadSummary {
   replyCount: number;
   makerResponded: boolean;
   hasOfficialResponse: boolean;
-  lastActivityAt: string;
-  createdAt: string;
+  /** Days (YYYY-MM-DD). */
+  lastActivityOn: string;
+  createdOn: string;
 }
 
 export interface ThreadListResponse {
@@ -209,7 +213,7 @@ export interface ModelThreadSummary {
   openCount: number;
   totalCount: number;
   /** Threads where the maker has said something, latest activity first. */
-  threads: Array<Pick<ThreadSummary, 'id' | 'title' | 'status' | 'fixedIn' | 'lastActivityAt' | 'hasOfficialResponse'>>;
+  threads: Array<Pick<ThreadSummary, 'id' | 'title' | 'status' | 'fixedIn' | 'lastActivityOn' | 'hasOfficialResponse'>>;
 }
 
 export type NotificationKind = 'reply' | 'official_response' | 'status';

@@ -1,7 +1,8 @@
 import type { Knex } from 'knex';
 import type { DeviceInfo } from '@shared/analysis/types';
 import { FLAG_GUIDANCE } from '@shared/moderation/flag-guidance';
-import { REJECT_REASON_LABELS } from '@shared/schemas/moderation';
+import { dayOf } from '@shared/schemas/day';
+import { type DecisionView, REJECT_REASON_LABELS } from '@shared/schemas/moderation';
 import { NotFoundError } from '../../lib/errors';
 import { decodeStream } from '../submissions/stream-codec';
 import { presentSubmission } from '../submissions/submission.presenter';
@@ -48,13 +49,14 @@ export async function getReview(db: Knex, submissionId: number, viewer: Viewer) 
   };
 }
 
-export function decisionOf(row: { decisionReason?: string | null; decisionNote?: string | null; decidedAt?: Date | string | null }) {
+/** The last decision, with its day only: riders and the public read it too. */
+export function decisionOf(row: { decisionReason?: string | null; decisionNote?: string | null; decidedAt?: Date | string | null }): DecisionView | null {
   if (!row.decidedAt) return null;
   return {
     reason: row.decisionReason ?? null,
     reasonLabel: row.decisionReason ? (REJECT_REASON_LABELS as Record<string, string>)[row.decisionReason] ?? row.decisionReason : null,
     note: row.decisionNote ?? null,
-    decidedAt: new Date(row.decidedAt).toISOString(),
+    decidedOn: dayOf(row.decidedAt),
   };
 }
 

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { dayOf } from '@shared/schemas/day';
 import type { ScoreboardCsvQuery, ScoreboardQuery, ScoreboardSort } from '@shared/schemas/statistics';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import type { DropoutTagRow, StatisticsRow } from '../statistics/figures';
@@ -213,7 +214,7 @@ export async function findPinnedNote(db: Knex, subject: { modelId: number } | { 
   const row = await db('moderator_notes')
     .where('modelId' in subject ? { model_id: subject.modelId } : { firmware_id: subject.firmwareId })
     .first('body', 'pinned_at');
-  return row ? { body: row.body as string, pinnedAt: new Date(row.pinned_at).toISOString() } : null;
+  return row ? { body: row.body as string, pinnedAt: dayOf(row.pinned_at) } : null;
 }
 
 /**

@@ -1,7 +1,7 @@
 import type { DeviceIdentity, DeviceInfo } from '@shared/analysis/types';
+import { dayOf } from '@shared/schemas/day';
 import {
   type DeviceInfoView,
-  dayOf,
   type MySubmissionView,
   rideComparisonView,
   type SubmissionView,

@@ -1,7 +1,9 @@
 import type { Knex } from 'knex';
 import { DELETED_RIDER_NAME } from '../../../shared/roles';
+import { dayOf } from '../../../shared/schemas/day';
 import type {
   FirmwareRef,
+  LinkableSubmission,
   LinkedSubmission,
   PersonRef,
   ThreadListQuery,
@@ -169,8 +171,8 @@ function toSummary(r: Record<string, any>): ThreadSummary {
     replyCount: r.reply_count,
     makerResponded: r.maker_responded_at !== null,
     hasOfficialResponse: r.has_official_response,
-    lastActivityAt: iso(r.last_activity_at)!,
-    createdAt: iso(r.created_at)!,
+    lastActivityOn: dayOf(r.last_activity_at),
+    createdOn: dayOf(r.created_at),
   };
 }
 
@@ -361,14 +363,14 @@ export async function linkedSubmissions(db: Db, postIds: number[], modelId: numb
       loaUpperPercent: r.loa_upper_percent,
       powerDropouts: r.side === 'a' ? r.a_power_dropouts : r.b_power_dropouts,
       firmware: r.version,
-      rideStartedAt: iso(r.ride_started_at)!,
+      rideDate: dayOf(r.ride_started_at),
     });
     byPost.set(r.post_id, list);
   }
   return byPost;
 }
 
-export async function linkableSubmissions(db: Db, riderId: number, modelId: number): Promise<Array<{ id: number; rideStartedAt: string; firmware: string; side: 'a' | 'b'; biasPercent: number | null }>> {
+export async function linkableSubmissions(db: Db, riderId: number, modelId: number): Promise<LinkableSubmission[]> {
   const rows = await db('submissions as s')
     .join('submission_recordings as r', 'r.submission_id', 's.id')
     .join('firmware_versions as f', 'f.id', 'r.firmware_id')
@@ -378,7 +380,7 @@ export async function linkableSubmissions(db: Db, riderId: number, modelId: numb
     .select('s.id', 's.ride_started_at', 'f.version', 'r.side', 's.bias_percent');
   return rows.map((r) => ({
     id: r.id,
-    rideStartedAt: iso(r.ride_started_at)!,
+    rideDate: dayOf(r.ride_started_at),
     firmware: r.version,
     side: r.side as 'a' | 'b',
     biasPercent: r.bias_percent,

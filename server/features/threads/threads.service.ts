@@ -15,6 +15,7 @@ import {
   type ThreadListQuery,
   type ThreadListResponse,
 } from '../../../shared/schemas/threads';
+import { dayOf } from '../../../shared/schemas/day';
 import { assertIndependentOf, isStaffOf } from '../../auth/require-user';
 import type { Config } from '../../config/env';
 import type { Queue } from '../../jobs/queue';
@@ -85,7 +86,7 @@ export async function getModelThreadSummary(db: Knex, slug: string): Promise<Mod
   return {
     openCount: counts.open,
     totalCount: counts.total,
-    threads: withMaker.map(({ id, title, status, fixedIn, lastActivityAt, hasOfficialResponse }) => ({ id, title, status, fixedIn, lastActivityAt, hasOfficialResponse })),
+    threads: withMaker.map(({ id, title, status, fixedIn, lastActivityOn, hasOfficialResponse }) => ({ id, title, status, fixedIn, lastActivityOn, hasOfficialResponse })),
   };
 }
 
@@ -103,8 +104,8 @@ function toPostView(post: threads.PostRow, viewer: Viewer, linked: PostView['lin
     hidden: post.hiddenReason ? { reason: post.hiddenReason } : null,
     isOpening: post.isOpening,
     isOfficialResponse: post.isOfficialResponse,
-    createdAt: post.createdAt.toISOString(),
-    editedAt: post.editedAt ? post.editedAt.toISOString() : null,
+    createdOn: dayOf(post.createdAt),
+    editedOn: post.editedAt ? dayOf(post.editedAt) : null,
     editableUntil: ownEditable ? new Date(editableUntil).toISOString() : null,
     linkedSubmissions: post.hiddenReason && !isModerator ? [] : linked,
   };

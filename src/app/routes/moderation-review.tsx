@@ -51,7 +51,7 @@ function ReviewPage({ id }: { id: number }) {
           <DecisionForm submissionId={s.id} status={s.status} version={s.version} suggestedReason={suggested} />
           {data.decision && (
             <p className="text-caption text-ink-soft">
-              Last decision {new Date(data.decision.decidedAt).toLocaleString('en-GB')}
+              Last decision {formatDay(data.decision.decidedOn)}
               {data.decision.reasonLabel ? `: ${data.decision.reasonLabel}` : ''}
               {data.decision.note ? ` — “${data.decision.note}”` : ''}
             </p>

@@ -1,4 +1,3 @@
-import type { Express } from 'express';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { createThread } from '../../../server/features/threads/threads.service';
@@ -6,6 +5,7 @@ import { ensureUser } from '../../../server/features/users/users.service';
 import { submissionAwaitingReview } from '../moderation/moderation-fixtures';
 import { createCatalogue } from '../support/catalogue-factory';
 import { signedInAgent } from '../support/sign-in';
+import { routesOf } from '../support/route-table';
 import { createTestContext } from '../support/test-app';
 
 // Every state-changing route of the app × every kind of person → the expected
@@ -110,35 +110,9 @@ const rules: Record<string, Rule> = {
 
 const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;
 
-interface Layer {
-  rawPath?: string | string[];
-  route?: { path: string; methods: Record<string, boolean> };
-  handle?: { stack?: Layer[] };
-}
-
-/** "METHOD /path" for every state-changing route, read from Express 5's router stack. */
-function writeRoutes(app: Express): string[] {
-  const found: string[] = [];
-  const walk = (stack: Layer[], prefix: string) => {
-    for (const layer of stack) {
-      const paths = Array.isArray(layer.rawPath) ? layer.rawPath : [layer.rawPath ?? ''];
-      for (const path of paths) {
-        if (layer.route) {
-          const full = `${prefix}${layer.route.path}`.replace(/(.)\/$/, '$1');
-          for (const method of WRITE_METHODS) if (layer.route.methods[method]) found.push(`${method.toUpperCase()} ${full}`);
-        } else if (layer.handle?.stack) {
-          walk(layer.handle.stack, `${prefix}${path === '/' ? '' : path}`);
-        }
-      }
-    }
-  };
-  walk((app as unknown as { router: { stack: Layer[] } }).router.stack, '');
-  return [...new Set(found)].sort();
-}
-
 const { app, db, config } = await createTestContext({ fakes: true });
 const catalogue = await createCatalogue(db);
-const routes = writeRoutes(app);
+const routes = routesOf(app, WRITE_METHODS);
 
 describe('the permission matrix', () => {
   const fixture = {} as Fixture;

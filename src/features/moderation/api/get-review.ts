@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { RejectReason } from '@shared/schemas/moderation';
+import type { DecisionView, RejectReason } from '@shared/schemas/moderation';
 import { api } from '@/lib/api-client';
 
 export interface ReviewFlag {
@@ -12,7 +12,7 @@ export interface ReviewFlag {
 
 export interface Review<S = unknown> {
   submission: S & { id: number; status: string; version: number };
-  decision: { reason: string | null; reasonLabel: string | null; note: string | null; decidedAt: string } | null;
+  decision: DecisionView | null;
   flags: ReviewFlag[];
   riderHistory: { accepted: number; rejected: number; sentBack: number; withdrawn: number; other: number };
   duplicates: Array<{

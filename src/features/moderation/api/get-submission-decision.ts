@@ -1,13 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { SubmissionDecisionResponse } from '@shared/schemas/moderation';
 import type { SubmissionStatus } from '@shared/schemas/submission';
 import { api } from '@/lib/api-client';
 
-export interface SubmissionDecision {
-  id: number;
-  status: SubmissionStatus;
-  version: number;
-  decision: { reason: string | null; reasonLabel: string | null; note: string | null; decidedAt: string } | null;
-}
+export type SubmissionDecision = SubmissionDecisionResponse;
 
 export function getSubmissionDecision(id: number): Promise<SubmissionDecision> {
   return api.get<SubmissionDecision>(`/api/submissions/${id}/decision`);

@@ -3,7 +3,7 @@ import type { PostView, ThreadDetail } from '@shared/schemas/threads';
 import { useEditPost } from '../api/edit-post';
 import { useSetPostVisibility } from '../api/hide-post';
 import { useMarkOfficialResponse } from '../api/mark-official-response';
-import { formatWhen } from '../lib/format';
+import { formatDay } from '@/lib/format-date';
 import { quietButtonClass } from './form-field';
 import { LinkedSubmissions } from './linked-submissions';
 import { MakerStaffBadge } from './maker-staff-badge';
@@ -46,11 +46,11 @@ export function PostCard({ post, thread, pinned = false }: PostCardProps) {
         {post.isOfficialResponse && !pinned && (
           <span className="rounded-full bg-fjord-100 px-2 py-0.5 text-caption font-semibold text-fjord-900">Official response</span>
         )}
-        <time dateTime={post.createdAt} className="text-caption text-ink-faint">
-          {formatWhen(post.createdAt)}
+        <time dateTime={post.createdOn} className="text-caption text-ink-faint">
+          {formatDay(post.createdOn)}
         </time>
-        {post.editedAt && (
-          <span className="text-caption italic text-ink-faint" title={`Edited ${formatWhen(post.editedAt)}`}>
+        {post.editedOn && (
+          <span className="text-caption italic text-ink-faint" title={`Edited ${formatDay(post.editedOn)}`}>
             edited
           </span>
         )}

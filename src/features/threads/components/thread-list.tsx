@@ -1,6 +1,6 @@
 import { Link } from 'react-router-dom';
 import type { ThreadSummary } from '@shared/schemas/threads';
-import { formatAgo } from '../lib/format';
+import { formatDay } from '@/lib/format-date';
 import { ThreadStatusBadge } from './thread-status-badge';
 
 export function ThreadList({ threads }: { threads: ThreadSummary[] }) {
@@ -15,7 +15,7 @@ export function ThreadList({ threads }: { threads: ThreadSummary[] }) {
             </Link>
             <p className="text-caption text-ink-faint">
               {t.author.name}
-              {t.firmware && ` · firmware ${t.firmware.version}`} · {t.replyCount} {t.replyCount === 1 ? 'reply' : 'replies'} · active {formatAgo(t.lastActivityAt)}
+              {t.firmware && ` · firmware ${t.firmware.version}`} · {t.replyCount} {t.replyCount === 1 ? 'reply' : 'replies'} · active {formatDay(t.lastActivityOn)}
               {t.locked && ' · locked'}
             </p>
           </div>

@@ -1,8 +1,4 @@
-const dateTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
-
-export function formatWhen(iso: string): string {
-  return dateTime.format(new Date(iso));
-}
+import { formatDay } from '@/lib/format-date';
 
 /** "3 min ago", "5 h ago", then the date. */
 export function formatAgo(iso: string, now = Date.now()): string {
@@ -10,7 +6,7 @@ export function formatAgo(iso: string, now = Date.now()): string {
   if (minutes < 1) return 'just now';
   if (minutes < 60) return `${minutes} min ago`;
   if (minutes < 24 * 60) return `${Math.round(minutes / 60)} h ago`;
-  return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(iso));
+  return formatDay(iso);
 }
 
 export function formatSignedPercent(value: number | null): string {
