@@ -18,5 +18,5 @@ export default defineConfig({
     port: Number(process.env.VITE_PORT ?? 5173),
     proxy: { '/api': apiTarget, '/auth': apiTarget },
   },
-  build: { outDir: 'dist', emptyOutDir: true, sourcemap: true },
+  build: { outDir: 'dist', emptyOutDir: true, sourcemap: false },
 });

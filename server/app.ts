@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express from 'express';
 import helmet from 'helmet';
@@ -31,6 +32,8 @@ export interface AppDeps {
   db: Db;
   logger: Logger;
   queue?: Queue;
+  /** The built client; default: dist/ of the checkout. */
+  clientDist?: string;
 }
 
 const clientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
@@ -50,6 +53,7 @@ export function createApp(deps: AppDeps) {
       },
     }),
   );
+  app.use(compression());
   app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(express.json({ limit: '200kb' }));
   app.use(express.urlencoded({ extended: false, limit: '50kb' }));
@@ -78,7 +82,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);
 
-  serveClient(app);
+  serveClient(app, deps.clientDist ?? clientDist);
   app.use(notFound);
   app.use(errorHandler);
   return app;
@@ -86,9 +90,24 @@ export function createApp(deps: AppDeps) {
 
 // The built client is served by the same process; unknown non-API paths get
 // index.html so React Router can render them (including its own not-found page).
-function serveClient(app: express.Express) {
-  const indexHtml = path.join(clientDist, 'index.html');
+// Vite puts a content hash in every file name under assets/, so those are cached
+// for a year and never revalidated; index.html and the other files are asked for
+// again each time, so a deploy reaches everyone at once. Source maps are not
+// served (the build does not write them; any left over are refused).
+export const HASHED_ASSET_MAX_AGE_SECONDS = 365 * 24 * 3600;
+
+function serveClient(app: express.Express, dist: string) {
+  const indexHtml = path.join(dist, 'index.html');
   if (!fs.existsSync(indexHtml)) return;
-  app.use(express.static(clientDist, { index: false, maxAge: '1h' }));
-  app.get(/^\/(?!api\/|auth\/).*/, (_req, res) => res.sendFile(indexHtml));
+  app.get(/^\/(?!api\/|auth\/).*\.map$/, notFound);
+  app.use(
+    express.static(dist, {
+      index: false,
+      setHeaders: (res, file) => {
+        const hashed = path.relative(dist, file).startsWith(`assets${path.sep}`);
+        res.setHeader('Cache-Control', hashed ? `public, max-age=${HASHED_ASSET_MAX_AGE_SECONDS}, immutable` : 'no-cache');
+      },
+    }),
+  );
+  app.get(/^\/(?!api\/|auth\/).*/, (_req, res) => res.sendFile(indexHtml, { headers: { 'Cache-Control': 'no-cache' } }));
 }

@@ -69,6 +69,8 @@ const ROUTES: Record<string, RouteRule> = {
   'GET /auth/github/callback': { visitor: 'public' },
   // The built client (index.html for every other path).
   'GET /^\\/(?!api\\/|auth\\/).*': { visitor: 'public', paths: () => ['/', '/models/x'] },
+  // Source maps of the built client are refused.
+  'GET /^\\/(?!api\\/|auth\\/).*\\.map$': { visitor: 'public', paths: () => ['/assets/index.js.map'] },
 };
 
 let report: SeedDemoReport;
