@@ -1,10 +1,26 @@
-// How Crosswatt writes its figures: units always, uncertainty always, a true minus sign.
+// How Crosswatt writes its figures: units always, uncertainty always, a true minus
+// sign, an explicit plus for differences, and "–" for a figure the method could not
+// give. A value that rounds to zero is written without a sign ("0.0 %", never
+// "−0.0 %" or "+0.0 %"), whichever page shows it.
 
-const minus = (text: string) => text.replace('-', '−');
+export const MINUS = '\u2212';
+export const NONE = '–';
 
-export function signedPercent(value: number, digits = 1): string {
-  const text = value.toFixed(digits);
-  return `${value > 0 && Number(text) !== 0 ? '+' : ''}${minus(text)} %`;
+/** -0.04 → "0.0", -1.23 → "−1.2": a real minus sign, none on a rounded zero. */
+export function plain(value: number, digits: number): string {
+  const text = Math.abs(value).toFixed(digits);
+  return Number(text) !== 0 && value < 0 ? `${MINUS}${text}` : text;
+}
+
+/** -1.23 → "−1.2", 1.23 → "+1.2", 0.04 → "0.0". */
+export function signed(value: number, digits: number): string {
+  const text = plain(value, digits);
+  return Number(Math.abs(value).toFixed(digits)) !== 0 && value > 0 ? `+${text}` : text;
+}
+
+/** The one signed-percent formatter: "+1.8 %", "−0.4 %", "0.0 %", "–" when there is no figure. */
+export function signedPercent(value: number | null | undefined, digits = 1): string {
+  return value == null ? NONE : `${signed(value, digits)} %`;
 }
 
 /** `+1.8 % ± 0.6` for a symmetric interval given by its bounds. */
@@ -13,7 +29,7 @@ export function percentPlusMinus(mean: number, lower: number, upper: number, dig
 }
 
 export function percentRange(lower: number, upper: number, digits = 1): string {
-  return `${minus(lower.toFixed(digits))} to ${minus(upper.toFixed(digits))} %`;
+  return `${plain(lower, digits)} to ${plain(upper, digits)} %`;
 }
 
 export function perHour(value: number): string {
@@ -34,5 +50,5 @@ export function pValue(p: number): string {
 }
 
 export function seconds(value: number): string {
-  return `${minus(value.toFixed(Number.isInteger(value) ? 0 : 1))} s`;
+  return `${plain(value, Number.isInteger(value) ? 0 : 1)} s`;
 }

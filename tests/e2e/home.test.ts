@@ -31,4 +31,25 @@ describe('home page in the browser', () => {
 
     await expect(page.getByRole('heading', { name: 'This page dropped out' }).isVisible()).resolves.toBe(true);
   });
+
+  it('when a page\'s chunk is gone after a deploy, then our own page offers a reload, and each page has its own title', async () => {
+    const page = await e2e.browser.newPage();
+    await page.goto(e2e.baseUrl);
+    await page.getByRole('heading', { level: 1 }).waitFor();
+    expect(await page.title()).toBe('Power meter accuracy from real rides · Crosswatt');
+    // The old build's methodology chunk no longer exists on the server.
+    await page.route(/\/assets\/methodology-[^/]+\.js$/, (route) => route.fulfill({ status: 404, body: 'gone' }));
+
+    await page.evaluate(() => {
+      window.history.pushState({}, '', '/methodology');
+      window.dispatchEvent(new PopStateEvent('popstate'));
+    });
+
+    await page.getByRole('heading', { name: 'Crosswatt has been updated' }).waitFor();
+    expect(await page.getByRole('button', { name: 'Reload the page' }).isVisible()).toBe(true);
+    await saveScreenshot(page, 'stale-chunk');
+    await page.unroute(/\/assets\/methodology-[^/]+\.js$/);
+    await page.getByRole('button', { name: 'Reload the page' }).click();
+    await page.waitForFunction(() => document.title === 'Methodology · Crosswatt');
+  });
 });

@@ -1,3 +1,4 @@
+import { formatDayAndTime } from '@/lib/format-date';
 import { useState } from 'react';
 import type { AuditEntry } from '@shared/schemas/auth';
 import { useAuditLog } from '../api/get-audit-log';
@@ -32,7 +33,7 @@ export function AuditLogTable() {
           <tbody>
             {log.data.entries.map((entry) => (
               <tr key={entry.id} className="border-t border-paper-line align-top">
-                <td className="whitespace-nowrap px-4 py-2 text-ink-soft">{new Date(entry.createdAt).toLocaleString()}</td>
+                <td className="whitespace-nowrap px-4 py-2 text-ink-soft">{formatDayAndTime(entry.createdAt)}</td>
                 <td className="px-4 py-2">{entry.actor ? `@${entry.actor.handle || 'deleted'}` : 'system'}</td>
                 <td className="px-4 py-2 font-medium">{entry.action}</td>
                 <td className="px-4 py-2">

@@ -1,3 +1,4 @@
+import { formatDay } from '@/lib/format-date';
 import { type FormEvent, useState } from 'react';
 import { GRANTABLE_ROLES } from '@shared/roles';
 import type { AdminUser } from '@shared/schemas/auth';
@@ -142,7 +143,7 @@ function UserRow({
           ))}
         </select>
       </td>
-      <td className="px-4 py-2 text-ink-soft">{new Date(user.createdAt).toLocaleDateString()}</td>
+      <td className="px-4 py-2 text-ink-soft">{formatDay(user.createdAt)}</td>
     </tr>
   );
 }

@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { FirmwareSummary } from '@shared/schemas/statistics';
 import { NotEnoughData } from '@/components/ui/not-enough-data';
-import { percentPlusMinus, pValue, perHour, ratio, signedPercent } from '@/lib/format-figures';
+import { percentPlusMinus, plain, pValue, perHour, ratio, signedPercent } from '@/lib/format-figures';
 
 export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: string; firmware: FirmwareSummary[] }) {
   return (
@@ -48,7 +48,7 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
                 <td className="px-4 py-3 tabular-nums">
                   {!c ? '—' : c.biasDifference ? (
                     <>
-                      {signedPercent(c.biasDifference.differencePercent)} ({c.biasDifference.lowerPercent.toFixed(1)} to {c.biasDifference.upperPercent.toFixed(1)})
+                      {signedPercent(c.biasDifference.differencePercent)} ({plain(c.biasDifference.lowerPercent, 1)} to {plain(c.biasDifference.upperPercent, 1)})
                       <div className="text-caption text-ink-faint">
                         vs {c.from}, Welch {pValue(c.biasDifference.pValue)}
                       </div>

@@ -1,3 +1,4 @@
+import { formatDayAndTime } from '@/lib/format-date';
 import { Link } from 'react-router-dom';
 import { REJECT_REASON_LABELS } from '@shared/schemas/moderation';
 import type { Review } from '../api/get-review';
@@ -88,7 +89,7 @@ export function ReviewEvidence({ review }: { review: Review }) {
           <ol className="mt-4 space-y-1 text-caption text-ink-soft">
             {review.history.map((h) => (
               <li key={h.id}>
-                {new Date(h.createdAt).toLocaleString('en-GB')}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by {h.actorHandle ?? 'someone'}
+                {formatDayAndTime(h.createdAt)}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by {h.actorHandle ?? 'someone'}
                 {h.reason ? ` (${h.reason})` : ''}
               </li>
             ))}

@@ -1,8 +1,8 @@
+import { signedPercent } from '@/lib/format-figures';
 import { Link } from 'react-router-dom';
 import { type QueueFilters, type QueueRow, useReviewQueue } from '../api/get-review-queue';
 import { SeverityBadge } from './severity-badge';
 
-const signed = (value: number | null, digits = 1) => (value == null ? '–' : `${value > 0 ? '+' : value < 0 ? '−' : ''}${Math.abs(value).toFixed(digits)} %`);
 const waited = (iso: string) => {
   const days = Math.floor((Date.now() - new Date(iso).getTime()) / 86_400_000);
   return days === 0 ? 'today' : days === 1 ? '1 day' : `${days} days`;
@@ -124,10 +124,10 @@ function QueueTableRow({ row }: { row: QueueRow }) {
         </span>
       </td>
       <td className="px-4 py-3 text-right tabular-nums">
-        <span className="font-semibold">{signed(row.biasPercent)}</span>
+        <span className="font-semibold">{signedPercent(row.biasPercent)}</span>
         {row.loaLowerPercent != null && row.loaUpperPercent != null && (
           <span className="block text-ink-faint">
-            LoA {signed(row.loaLowerPercent)} to {signed(row.loaUpperPercent)}
+            LoA {signedPercent(row.loaLowerPercent)} to {signedPercent(row.loaUpperPercent)}
           </span>
         )}
       </td>

@@ -1,3 +1,4 @@
+import { formatDayAndTime } from '@/lib/format-date';
 import { useState } from 'react';
 import { useOutbox } from '../api/get-outbox';
 
@@ -19,7 +20,7 @@ export function OutboxList() {
               <summary className="flex cursor-pointer flex-wrap items-baseline gap-x-4 gap-y-1 p-4">
                 <span className="font-semibold text-ink">{m.subject || '(no subject)'}</span>
                 <span className="text-caption text-ink-soft">to {m.recipients.join(', ')}</span>
-                <span className="ml-auto text-caption text-ink-faint">{new Date(m.receivedAt).toLocaleString('en-GB')}</span>
+                <span className="ml-auto text-caption text-ink-faint">{formatDayAndTime(m.receivedAt)}</span>
               </summary>
               <pre className="overflow-x-auto whitespace-pre-wrap border-t border-paper-line p-4 font-sans text-caption text-ink">{m.text}</pre>
             </details>

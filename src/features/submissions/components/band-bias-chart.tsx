@@ -1,7 +1,8 @@
+import { signedPercent } from '@/lib/format-figures';
 import { useMemo } from 'react';
 import uPlot from 'uplot';
 import type { BandBias } from '@shared/analysis/types';
-import { formatDuration, formatSignedPercent } from '../lib/format';
+import { formatDuration } from '../lib/format';
 import { drawZeroLine } from './difference-chart';
 import { axis, CHART_COLOURS, chartFont, UPlotChart } from './uplot-chart';
 
@@ -68,7 +69,7 @@ export function BandBiasChart({ bands }: { bands: BandBias[] }) {
             {bands.map((b) => (
               <tr key={b.label} className="border-t border-paper-line">
                 <td className="py-1">{b.label}</td>
-                <td className="py-1 text-right">{formatSignedPercent(b.percent)}</td>
+                <td className="py-1 text-right">{signedPercent(b.percent)}</td>
                 <td className="py-1 text-right">{formatDuration(b.matchedSeconds)}</td>
               </tr>
             ))}

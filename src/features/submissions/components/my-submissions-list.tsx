@@ -1,7 +1,8 @@
+import { signedPercent } from '@/lib/format-figures';
 import { Link } from 'react-router-dom';
 import { useMySubmissions } from '../api/get-my-submissions';
 import { formatDay } from '@/lib/format-date';
-import { formatSignedPercent } from '../lib/format';
+
 import { STATUS_LABELS } from '../lib/labels';
 
 /** The rider's own submissions, newest first, each linking to its result. */
@@ -39,7 +40,7 @@ export function MySubmissionsList() {
                   {problems > 0 && ` · ${problems} ${problems === 1 ? 'check' : 'checks'} flagged`}
                 </span>
               </span>
-              <span className="text-lead font-semibold tabular-nums text-ink">{formatSignedPercent(s.biasPercent)}</span>
+              <span className="text-lead font-semibold tabular-nums text-ink">{signedPercent(s.biasPercent)}</span>
               <span className="rounded-full bg-fjord-100 px-3 py-0.5 text-caption font-semibold text-fjord-900">{STATUS_LABELS[s.status]}</span>
             </Link>
           </li>

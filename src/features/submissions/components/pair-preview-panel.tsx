@@ -1,5 +1,6 @@
+import { signedPercent } from '@/lib/format-figures';
 import type { PairPreviewState } from '../hooks/use-pair-preview';
-import { formatDuration, formatLimitsOfAgreement, formatSignedPercent, formatSignedSeconds } from '../lib/format';
+import { formatDuration, formatLimitsOfAgreement, formatSignedSeconds } from '../lib/format';
 import { FlagList } from './flag-list';
 
 /** The browser's own first look at the pair, before anything is uploaded. */
@@ -37,7 +38,7 @@ export function PairPreviewPanel({ state }: { state: PairPreviewState }) {
             />
             <PreviewFigure
               term="First bias, A vs B"
-              value={formatSignedPercent(state.answer.preview.biasPercent)}
+              value={signedPercent(state.answer.preview.biasPercent)}
               note={`LoA ${formatLimitsOfAgreement(state.answer.preview.lowerLimitPercent, state.answer.preview.upperLimitPercent)}`}
               accent
             />

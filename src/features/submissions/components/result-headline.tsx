@@ -1,6 +1,7 @@
+import { signedPercent } from '@/lib/format-figures';
 import type { ReactNode } from 'react';
 import type { RideComparisonView } from '@shared/schemas/submission-view';
-import { formatDuration, formatLimitsOfAgreement, formatSignedPercent, formatSignedSeconds } from '../lib/format';
+import { formatDuration, formatLimitsOfAgreement, formatSignedSeconds } from '../lib/format';
 import { LIKE_FOR_LIKE_LABELS } from '../lib/labels';
 
 /** The handful of figures a rider reads first, each with its unit and its uncertainty. */
@@ -12,13 +13,13 @@ export function ResultHeadline({ result }: { result: RideComparisonView }) {
       <Figure
         term="Bias, A against B"
         wide
-        value={<span className="text-ember-700">{formatSignedPercent(likeForLike.percent)}</span>}
+        value={<span className="text-ember-700">{signedPercent(likeForLike.percent)}</span>}
         detail={
           <>
             Limits of agreement {formatLimitsOfAgreement(agreement.lowerLimitPercent, agreement.upperLimitPercent)} over{' '}
             {agreement.blockCount} blocks of {agreement.blockSeconds} s.
             {likeForLike.naivePercent != null && likeForLike.mode !== 'direct' && (
-              <> Totals as recorded: {formatSignedPercent(likeForLike.naivePercent)}.</>
+              <> Totals as recorded: {signedPercent(likeForLike.naivePercent)}.</>
             )}
           </>
         }

@@ -1,5 +1,6 @@
+import { signedPercent } from '@/lib/format-figures';
 import type { Peaks, SteadySegment } from '@shared/analysis/types';
-import { formatClock, formatDuration, formatSignedPercent, formatWatts } from '../lib/format';
+import { formatClock, formatDuration, formatWatts } from '../lib/format';
 
 const th = 'px-3 py-2 text-left text-caption font-semibold text-ink-soft';
 const td = 'px-3 py-2 tabular-nums';
@@ -24,7 +25,7 @@ export function PeakPowerTable({ peaks }: { peaks: Peaks }) {
               </th>
               <td className={`${td} text-right`}>{formatWatts(p.aWatts)}</td>
               <td className={`${td} text-right`}>{formatWatts(p.bWatts)}</td>
-              <td className={`${td} text-right font-semibold`}>{formatSignedPercent(p.percent)}</td>
+              <td className={`${td} text-right font-semibold`}>{signedPercent(p.percent)}</td>
             </tr>
           ))}
           <tr className="border-t-2 border-paper-line">
@@ -66,7 +67,7 @@ export function SteadySegmentsTable({ segments }: { segments: SteadySegment[] })
               <td className={td}>{formatDuration(s.durationSeconds)}</td>
               <td className={`${td} text-right`}>{formatWatts(s.aWatts)}</td>
               <td className={`${td} text-right`}>{formatWatts(s.bWatts)}</td>
-              <td className={`${td} text-right font-semibold`}>{formatSignedPercent(s.percent)}</td>
+              <td className={`${td} text-right font-semibold`}>{signedPercent(s.percent)}</td>
             </tr>
           ))}
         </tbody>

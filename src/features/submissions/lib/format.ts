@@ -1,17 +1,5 @@
-// How Crosswatt writes numbers: a real minus sign, a thin space before the unit,
-// an explicit plus for differences, and "–" for a figure the method could not give.
-const MINUS = '\u2212';
-const NONE = '–';
-
-function signed(value: number, digits: number): string {
-  const text = Math.abs(value).toFixed(digits);
-  if (Number(text) === 0) return text;
-  return `${value < 0 ? MINUS : '+'}${text}`;
-}
-
-export function formatSignedPercent(value: number | null | undefined, digits = 1): string {
-  return value == null ? NONE : `${signed(value, digits)} %`;
-}
+// The ride result's figures, written the way src/lib/format-figures.ts writes every figure.
+import { NONE, signed } from '@/lib/format-figures';
 
 export function formatSignedWatts(value: number | null | undefined, digits = 0): string {
   return value == null ? NONE : `${signed(value, digits)} W`;

@@ -1,6 +1,7 @@
+import { signedPercent } from '@/lib/format-figures';
 import { Link } from 'react-router-dom';
 import type { LinkedSubmission } from '@shared/schemas/threads';
-import { formatSignedPercent } from '../lib/format';
+
 
 /** Evidence linked to a post: each submission's headline figures, inline. */
 export function LinkedSubmissions({ submissions }: { submissions: LinkedSubmission[] }) {
@@ -13,11 +14,11 @@ export function LinkedSubmissions({ submissions }: { submissions: LinkedSubmissi
             <span className="font-semibold text-fjord-700">#{s.id}</span>
             <span className="text-ink-soft">fw {s.firmware} as {s.side.toUpperCase()}</span>
             <span className="font-semibold tabular-nums text-ink" title="A relative to B">
-              A vs B {formatSignedPercent(s.biasPercent)}
+              A vs B {signedPercent(s.biasPercent)}
             </span>
             {s.loaLowerPercent !== null && s.loaUpperPercent !== null && (
               <span className="tabular-nums text-ink-soft">
-                limits {formatSignedPercent(s.loaLowerPercent)} to {formatSignedPercent(s.loaUpperPercent)}
+                limits {signedPercent(s.loaLowerPercent)} to {signedPercent(s.loaUpperPercent)}
               </span>
             )}
             {s.powerDropouts !== null && <span className="tabular-nums text-ink-soft">{s.powerDropouts} power {s.powerDropouts === 1 ? "dropout" : "dropouts"}</span>}

@@ -1,6 +1,7 @@
+import { signedPercent } from '@/lib/format-figures';
 import { MAX_LINKED_SUBMISSIONS } from '@shared/schemas/threads';
 import { useLinkableSubmissions } from '../api/get-linkable-submissions';
-import { formatSignedPercent } from '../lib/format';
+
 
 /** The rider's own accepted submissions of this model, to link as evidence. */
 export function SubmissionPicker({ modelSlug, selected, onChange }: { modelSlug: string; selected: number[]; onChange: (ids: number[]) => void }) {
@@ -15,7 +16,7 @@ export function SubmissionPicker({ modelSlug, selected, onChange }: { modelSlug:
         {submissions.map((s) => (
           <label key={s.id} className="flex items-center gap-2 rounded-lg border border-paper-line px-2.5 py-1 text-caption">
             <input type="checkbox" checked={selected.includes(s.id)} onChange={() => toggle(s.id)} />
-            #{s.id} · fw {s.firmware} · A vs B {formatSignedPercent(s.biasPercent)}
+            #{s.id} · fw {s.firmware} · A vs B {signedPercent(s.biasPercent)}
           </label>
         ))}
       </div>

@@ -9,7 +9,3 @@ export function formatAgo(iso: string, now = Date.now()): string {
   return formatDay(iso);
 }
 
-export function formatSignedPercent(value: number | null): string {
-  if (value === null) return '–';
-  return `${value > 0 ? '+' : value < 0 ? '−' : '±'}${Math.abs(value).toFixed(1)} %`;
-}
