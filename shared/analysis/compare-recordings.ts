@@ -1,8 +1,8 @@
 import { agreementOf, matchedBlocks } from './agreement';
 import { findClockOffset } from './alignment';
 import { cadenceBands, powerBands } from './bands';
-import { biasOverMatched, matchedSeconds } from './bias';
-import { findCadenceLag } from './cadence-lag';
+import { biasOverMatched, energySeconds, matchedSeconds } from './bias';
+import { alignCadences, findCadenceLag } from './cadence-lag';
 import { assertRecordingUsable, decodeFit } from './decode-fit';
 import { differenceSeries } from './difference-series';
 import { analyseDropouts } from './dropouts';
@@ -23,7 +23,7 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
   forEachSide({ a, b }, (stream) => assertRecordingUsable(stream));
   const grids = { a: toSecondGrid(a), b: toSecondGrid(b) };
 
-  const { clockOffsetSeconds, correlation } = findClockOffset(grids.a, grids.b);
+  const { clockOffsetSeconds, correlation, smoothingWindowSeconds, outsideWindow } = findClockOffset(grids.a, grids.b);
   const timeline = sharedTimeline(grids.a, grids.b, clockOffsetSeconds);
   const overlapSeconds = countBothReporting(timeline.aPower, timeline.bPower);
   if (overlapSeconds === 0) {
@@ -35,13 +35,16 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
       `These recordings overlap for only ${formatDuration(overlapSeconds)}; a comparison needs at least ${formatDuration(MIN_OVERLAP_SECONDS)} of riding recorded by both.`,
     );
   }
-  const alignment = { clockOffsetSeconds, overlapSeconds, correlation, startTime: timeline.start, endTime: timeline.start + timeline.length };
+  const alignment = { clockOffsetSeconds, outsideWindow, overlapSeconds, correlation, startTime: timeline.start, endTime: timeline.start + timeline.length };
 
-  const { dropouts, aPowerDropout, bPowerDropout } = analyseDropouts(timeline);
+  const cadenceLag = findCadenceLag(timeline);
+  // A lag the search could not pin down is not removed: shifting by a bound would invent events.
+  const cadence = alignCadences(timeline, cadenceLag && !cadenceLag.outsideWindow ? cadenceLag.lagSeconds : 0);
+  const { dropouts, aPowerDropout, bPowerDropout } = analyseDropouts(timeline, { cadence, smoothingWindowSeconds });
   const comparable = comparablePower(timeline, options);
   const matched = matchedSeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout);
-  const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, matched);
-  const naive = biasOverMatched(timeline.aPower, timeline.bPower, matchedSeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout));
+  const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, energySeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout));
+  const naive = biasOverMatched(timeline.aPower, timeline.bPower, energySeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout));
   const likeForLike = {
     mode: comparable.mode,
     percent: bias.percent,
@@ -49,8 +52,7 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
     leg: comparable.leg,
     expectedDrivetrainPercent: comparable.expectedDrivetrainPercent,
   };
-  const cadenceLag = findCadenceLag(timeline.aCadence, timeline.bCadence);
-  const smoothing = smoothingSignature(comparable.a, comparable.b, matched);
+  const smoothing = { ...smoothingSignature(comparable.a, comparable.b, matched), windowSeconds: smoothingWindowSeconds };
 
   return {
     methodVersion: METHOD_VERSION,
@@ -65,6 +67,7 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
     dropouts,
     cadenceLagSeconds: cadenceLag?.lagSeconds ?? null,
     cadenceLagCorrelation: cadenceLag?.correlation ?? null,
+    cadenceLagOutsideWindow: cadenceLag?.outsideWindow ?? false,
     peaks: analysePeaks(comparable.a, comparable.b),
     powerBands: powerBands(comparable.a, comparable.b, matched),
     cadenceBands: cadenceBands(comparable.a, comparable.b, matched, timeline.aCadence, timeline.bCadence),
@@ -73,6 +76,7 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
     smoothing,
     flags: qualityFlags({
       alignment,
+      cadenceLag,
       bias,
       likeForLike,
       smoothing,

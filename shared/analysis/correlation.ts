@@ -96,3 +96,23 @@ export function blockMeans(values: Float64Array, width: number): Float64Array {
   }
   return out;
 }
+
+/** Mean of the numbers among values[i − width + 1 … i] (a head unit's trailing average), NaN where there are none. */
+export function trailingMean(values: Float64Array, width: number): Float64Array {
+  const out = new Float64Array(values.length);
+  let sum = 0;
+  let count = 0;
+  for (let i = 0; i < values.length; i++) {
+    if (values[i] === values[i]) {
+      sum += values[i];
+      count++;
+    }
+    const leaving = i - width;
+    if (leaving >= 0 && values[leaving] === values[leaving]) {
+      sum -= values[leaving];
+      count--;
+    }
+    out[i] = count > 0 ? sum / count : NaN;
+  }
+  return out;
+}

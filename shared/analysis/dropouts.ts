@@ -14,12 +14,30 @@ export interface DropoutAnalysis {
   bPowerDropout: Uint8Array;
 }
 
-export function analyseDropouts(timeline: SharedTimeline): DropoutAnalysis {
+export interface DropoutContext {
+  /** Both cadences on one clock (the cadence lag removed); the timeline's own when absent. */
+  cadence?: { a: Float64Array; b: Float64Array };
+  /** Each recording's trailing power average in s (1 = none), as the alignment found it. */
+  smoothingWindowSeconds?: { a: number; b: number };
+}
+
+/**
+ * Method version 2. A power dropout is a run of a device's silence while the partner
+ * pedals of its own: the partner reads riding power and, where it records cadence, a
+ * cadence of at least CADENCE_THRESHOLD_RPM (lag removed); without cadence, its power
+ * must still read riding power one smoothing window later, so an average spilling into a
+ * coast is not taken for pedalling. Cadence dropouts are looked for after the lag is removed.
+ */
+export function analyseDropouts(timeline: SharedTimeline, context: DropoutContext = {}): DropoutAnalysis {
+  const cadence = context.cadence ?? { a: timeline.aCadence, b: timeline.bCadence };
+  const windows = context.smoothingWindowSeconds ?? { a: 1, b: 1 };
   const pedallingSeconds = countPedallingSeconds(timeline.aPower, timeline.bPower);
-  const aPower = dropoutEvents(silentWhileOtherActive(timeline.aPower, timeline.bPower, POWER_THRESHOLD_WATTS));
-  const bPower = dropoutEvents(silentWhileOtherActive(timeline.bPower, timeline.aPower, POWER_THRESHOLD_WATTS));
-  const aCadence = dropoutEvents(silentWhileOtherActive(timeline.aCadence, timeline.bCadence, CADENCE_THRESHOLD_RPM));
-  const bCadence = dropoutEvents(silentWhileOtherActive(timeline.bCadence, timeline.aCadence, CADENCE_THRESHOLD_RPM));
+  const aPedals = pedallingOfItsOwn(timeline.aPower, cadence.a, windows.a);
+  const bPedals = pedallingOfItsOwn(timeline.bPower, cadence.b, windows.b);
+  const aPower = dropoutEvents(silentWhile(timeline.aPower, bPedals));
+  const bPower = dropoutEvents(silentWhile(timeline.bPower, aPedals));
+  const aCadence = dropoutEvents(silentWhileOtherActive(cadence.a, cadence.b, CADENCE_THRESHOLD_RPM));
+  const bCadence = dropoutEvents(silentWhileOtherActive(cadence.b, cadence.a, CADENCE_THRESHOLD_RPM));
   return {
     dropouts: {
       a: { power: summarise(aPower, pedallingSeconds), cadence: summarise(aCadence, pedallingSeconds) },
@@ -29,6 +47,32 @@ export function analyseDropouts(timeline: SharedTimeline): DropoutAnalysis {
     aPowerDropout: eventMask(aPower, timeline.length),
     bPowerDropout: eventMask(bPower, timeline.length),
   };
+}
+
+/** 1 where a device shows pedalling of its own: riding power, and cadence where it records cadence. */
+export function pedallingOfItsOwn(power: Float64Array, cadence: Float64Array, smoothingWindowSeconds: number): Uint8Array {
+  const mask = new Uint8Array(power.length);
+  const later = Math.max(0, smoothingWindowSeconds - 1);
+  for (let i = 0; i < power.length; i++) {
+    if (!(power[i] >= POWER_THRESHOLD_WATTS)) continue;
+    const c = cadence[i];
+    if (c === c) {
+      if (c >= CADENCE_THRESHOLD_RPM) mask[i] = 1;
+    } else if (later === 0 || power[Math.min(power.length - 1, i + later)] >= POWER_THRESHOLD_WATTS) {
+      mask[i] = 1;
+    }
+  }
+  return mask;
+}
+
+/** 1 where the device reports nothing or zero while `active` is set. */
+function silentWhile(own: Float64Array, active: Uint8Array): Uint8Array {
+  const mask = new Uint8Array(own.length);
+  for (let i = 0; i < own.length; i++) {
+    const value = own[i];
+    if ((value !== value || value === 0) && active[i] === 1) mask[i] = 1;
+  }
+  return mask;
 }
 
 /** Pedalling: either device reports power above zero. */

@@ -1,5 +1,7 @@
 import { formatDuration } from './errors';
 import { SMOOTHING_MISMATCH_RATIO } from './smoothing';
+import type { CadenceLag } from './cadence-lag';
+import { MAX_CADENCE_LAG_SECONDS, MAX_CLOCK_OFFSET_SECONDS } from './method';
 import type { Alignment, Bias, LikeForLike, QualityFlag, Side, Smoothing } from './types';
 import type { SecondGrid } from './timeline';
 
@@ -11,11 +13,14 @@ const IMPLAUSIBLE_POWER_SECONDS = 5;
 const IMPLAUSIBLE_CADENCE_RPM = 250;
 const MANY_GAPS = 10;
 const MANY_GAP_FRACTION = 0.05;
+/** Estimated head-unit averages this many seconds apart count as a smoothing mismatch (method 2). */
+const SMOOTHING_WINDOW_MISMATCH_SECONDS = 2;
 
 const DEVICE_NAMES: Record<Side, string> = { a: 'Device A', b: 'Device B' };
 
 export interface FlagInputs {
   alignment: Alignment;
+  cadenceLag: CadenceLag | null;
   bias: Bias;
   likeForLike: LikeForLike;
   smoothing: Smoothing;
@@ -29,6 +34,20 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
   const { alignment, bias, likeForLike, smoothing } = inputs;
   if (alignment.overlapSeconds < COMFORTABLE_OVERLAP_SECONDS) {
     flags.push({ code: 'short_overlap', severity: 'warning', message: `The recordings share only ${formatDuration(alignment.overlapSeconds)}; longer rides give firmer numbers.` });
+  }
+  if (alignment.outsideWindow) {
+    flags.push({
+      code: 'estimate_on_bound',
+      severity: 'severe',
+      message: `The best clock offset lies outside the ±${MAX_CLOCK_OFFSET_SECONDS} s the comparison searches, so the two recordings are not lined up and every figure is doubtful; check both devices' clocks.`,
+    });
+  }
+  if (inputs.cadenceLag?.outsideWindow) {
+    flags.push({
+      code: 'estimate_on_bound',
+      severity: 'warning',
+      message: `The cadence lag sits beyond the ±${MAX_CADENCE_LAG_SECONDS} s the comparison searches; the cadence figures of this ride are not usable.`,
+    });
   }
   if (alignment.correlation < LOW_CORRELATION) {
     flags.push({ code: 'low_correlation', severity: 'severe', message: 'The two power traces barely move together: these may not be recordings of the same ride.' });
@@ -55,7 +74,15 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
   if (likeForLike.mode === 'mixed') {
     flags.push({ code: 'mixed_comparison', severity: 'warning', message: 'One meter measures a single leg and the other does not measure that leg on its own, so leg imbalance is mixed into the difference.' });
   }
-  if (smoothing.ratio !== null && (smoothing.ratio > SMOOTHING_MISMATCH_RATIO || smoothing.ratio < 1 / SMOOTHING_MISMATCH_RATIO)) {
+  const windows = smoothing.windowSeconds;
+  if (windows && Math.abs(windows.a - windows.b) >= SMOOTHING_WINDOW_MISMATCH_SECONDS) {
+    const smoother = windows.a > windows.b ? DEVICE_NAMES.a : DEVICE_NAMES.b;
+    flags.push({
+      code: 'smoothing_mismatch',
+      severity: 'warning',
+      message: `${smoother}'s recording looks averaged over about ${Math.max(windows.a, windows.b)} s; head units that average power blur short efforts and peaks (the bias still counts).`,
+    });
+  } else if (smoothing.ratio !== null && (smoothing.ratio > SMOOTHING_MISMATCH_RATIO || smoothing.ratio < 1 / SMOOTHING_MISMATCH_RATIO)) {
     const smoother = smoothing.ratio < 1 ? DEVICE_NAMES.a : DEVICE_NAMES.b;
     flags.push({ code: 'smoothing_mismatch', severity: 'warning', message: `${smoother}'s recording looks much smoother than the other's; head units that average power blur short efforts.` });
   }

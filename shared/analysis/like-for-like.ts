@@ -52,6 +52,8 @@ function hasBalance(rightBalance: Float64Array): boolean {
 function doubledLeg(power: Float64Array, rightBalance: Float64Array, leg: 'left' | 'right'): Float64Array {
   const out = new Float64Array(power.length);
   for (let i = 0; i < power.length; i++) {
+    // No power, no share: zero, not unknown, so energy sums (method 2) keep the second.
+    if (power[i] === 0) continue;
     const rightShare = rightBalance[i] / 100;
     out[i] = 2 * power[i] * (leg === 'right' ? rightShare : 1 - rightShare);
   }

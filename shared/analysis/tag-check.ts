@@ -43,8 +43,9 @@ export interface TagCheck {
 
 /**
  * Compares one recording's tags with its file. A field the file does not report is
- * never a disagreement; versions are compared as numbers at the FIT resolution of
- * 0.01 (software_version has scale 100), so "1.2", "1.20" and 1.2 agree.
+ * never a disagreement; versions are compared by their first two numbers at the FIT
+ * resolution of 0.01 (software_version has scale 100), so "1.2", "1.20", "1.2.0" and 1.2
+ * agree (as the review page's device checks read them).
  */
 export function checkTags(device: DeviceInfo, tags: RecordingTagsForCheck, catalogue: TagCatalogue): TagCheck {
   const meterVersion = device.powerMeter?.softwareVersion ?? null;
@@ -95,10 +96,10 @@ function productNameOf(identity: DeviceIdentity): string | null {
   return typeof name === 'string' && name.trim() !== '' ? name.trim() : null;
 }
 
-/** Hundredths of a version: "1.2" → 120, "v4.75" → 475; null for text that is not one or two numbers. */
+/** Hundredths of a version from its first two numbers: "1.2" → 120, "v4.75" → 475, "2.1.0" → 210; null for other text. */
 export function versionHundredths(version: string | number): number | null {
   if (typeof version === 'number') return Number.isFinite(version) ? Math.round(version * 100) : null;
-  const match = /^\s*v?(\d+)(?:\.(\d+))?\s*$/i.exec(version);
+  const match = /^\s*v?(\d+)(?:\.(\d+))?(?:[.\-+][0-9a-z.\-+]*)?\s*$/i.exec(version);
   if (!match) return null;
   const value = Number(`${match[1]}.${match[2] ?? '0'}`);
   return Math.round(value * 100);
@@ -106,7 +107,7 @@ export function versionHundredths(version: string | number): number | null {
 
 function sameVersion(tagged: string, inFile: number): boolean {
   const a = versionHundredths(tagged);
-  // Text the file's resolution cannot express (say "2.3.1") is not contradicted by it.
+  // Text that is not a version at all is not contradicted by the file.
   return a === null || a === versionHundredths(inFile);
 }
 

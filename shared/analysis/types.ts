@@ -80,6 +80,8 @@ export interface CompareOptions {
 export interface Alignment {
   /** Seconds A's timestamps run ahead of B's: A stamps at T + offset what B stamps at T. */
   clockOffsetSeconds: number;
+  /** Method 2: the best offset lies outside the search window, so the comparison is not of one moment. */
+  outsideWindow?: boolean;
   overlapSeconds: number;
   correlation: number;
   /** UTC seconds, on B's clock, of the first and one past the last shared second. */
@@ -199,6 +201,8 @@ export interface Smoothing {
   bVariation: number | null;
   /** aVariation / bVariation: well below 1 means A looks smoother than B. */
   ratio: number | null;
+  /** Method 2: the trailing power average each recording appears to carry, in s (1 = none), found while aligning. */
+  windowSeconds?: { a: number; b: number };
 }
 
 export interface DifferenceSeries {
@@ -223,6 +227,8 @@ export interface ComparisonResult {
   dropouts: Dropouts;
   cadenceLagSeconds: number | null;
   cadenceLagCorrelation: number | null;
+  /** Method 2: the best cadence lag lies beyond the search window. */
+  cadenceLagOutsideWindow?: boolean;
   peaks: Peaks;
   powerBands: BandBias[];
   cadenceBands: BandBias[];

@@ -27,4 +27,17 @@ export const FLAG_GUIDANCE: Record<string, { check: string; likelyReason?: Rejec
   smoothing_mismatch: { check: 'One head unit averages power; peaks are blurred but the bias still counts.' },
   short_overlap: { check: 'Short rides give loose figures; accept if nothing else is wrong.' },
   drivetrain_loss: { check: 'Expected for hubs and trainers; the bias is reported as measured.' },
+  estimate_on_bound: {
+    check:
+      'An estimate sits on the edge of what the comparison searches. For the clock offset, the two recordings are probably not lined up: compare the power traces and the start times, and reject unless the efforts visibly match. For the cadence lag, only the cadence figures are affected.',
+    likelyReason: 'not_same_ride',
+  },
+  firmware_tag_mismatch: {
+    check: "The file's own device data names another firmware than the tag. Correct the tag to the file's version when the catalogue lists it (the ride then counts for that version); otherwise send it back to the rider.",
+    likelyReason: 'wrong_tag',
+  },
+  device_tag_mismatch: {
+    check: "The file was written by another recording device (or device firmware) than the tag says. Correct the tag; it matters for smoothing and dropout figures, not for the bias.",
+    likelyReason: 'wrong_tag',
+  },
 };

@@ -1,10 +1,8 @@
 import type { Knex } from 'knex';
 import { AnalysisError } from '@shared/analysis/errors';
-import type { CompareOptions } from '@shared/analysis/types';
-import { AFTER_DRIVETRAIN_KINDS, type ModelKind } from '@shared/schemas/catalogue';
 import type { Queue } from '../../jobs/queue';
 import type { Logger } from '../../lib/logger';
-import { compareStoredRecordings } from './recording-tasks';
+import { compareStoredSubmission } from './ride-comparison';
 import * as submissions from './submissions.repository';
 
 export const ANALYSE_SUBMISSION_QUEUE = 'analyse-submission';
@@ -55,15 +53,7 @@ export async function analyseSubmission(db: Knex, id: number, logger?: Logger): 
   const attempts = await submissions.markAnalysing(db, id);
   if (attempts === undefined) return;
   try {
-    const [a, b] = stored.recordings;
-    const options: CompareOptions = {
-      aPosition: a.position,
-      bPosition: b.position,
-      aAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(a.modelKind as ModelKind),
-      bAfterDrivetrain: AFTER_DRIVETRAIN_KINDS.includes(b.modelKind as ModelKind),
-    };
-    // In a worker thread: a long pair takes seconds of CPU, which the web process's requests must not wait for.
-    const result = await compareStoredRecordings(a.stream, b.stream, options);
+    const result = await compareStoredSubmission(db, stored.recordings);
     await submissions.storeResult(db, id, result);
   } catch (err) {
     if (err instanceof AnalysisError) {

@@ -13,8 +13,12 @@ export interface NewRecording {
   stream: Buffer;
 }
 
-export async function findIdByFileHashes(db: Knex, aSha256: string, bSha256: string): Promise<number | undefined> {
-  const row = await db('submissions').where({ a_sha256: aSha256, b_sha256: bSha256 }).first('id');
+/** The earlier submission of the same two files in either order (A and B swapped is the same ride). */
+export async function findIdBySameFiles(db: Knex, aSha256: string, bSha256: string): Promise<number | undefined> {
+  const row = await db('submissions')
+    .where((q) => q.where({ a_sha256: aSha256, b_sha256: bSha256 }).orWhere({ a_sha256: bSha256, b_sha256: aSha256 }))
+    .orderBy('id')
+    .first('id');
   return row?.id;
 }
 
@@ -59,19 +63,46 @@ export async function insertSubmission(
 export interface StoredRecording {
   side: 'a' | 'b';
   position: 'left' | 'right' | 'dual' | 'total';
+  modelId: number;
   modelKind: string;
+  firmwareId: number;
+  recordingDeviceId: number;
+  recordingDeviceFirmware: string;
   stream: Buffer;
+}
+
+/** Both stored recordings of a submission with the tags the comparison needs, A first. */
+export async function findStoredRecordings(db: Knex, id: number): Promise<StoredRecording[]> {
+  return db('submission_recordings as r')
+    .join('models as m', 'm.id', 'r.model_id')
+    .where('r.submission_id', id)
+    .select(
+      'r.side',
+      'r.position',
+      'r.model_id as modelId',
+      'm.kind as modelKind',
+      'r.firmware_id as firmwareId',
+      'r.recording_device_id as recordingDeviceId',
+      'r.recording_device_firmware as recordingDeviceFirmware',
+      'r.stream',
+    )
+    .orderBy('r.side');
 }
 
 export async function findForAnalysis(db: Knex, id: number) {
   const submission = await db('submissions').where({ id }).first('id', 'status', 'attempts');
   if (!submission) return undefined;
-  const recordings: StoredRecording[] = await db('submission_recordings as r')
-    .join('models as m', 'm.id', 'r.model_id')
-    .where('r.submission_id', id)
-    .select('r.side', 'r.position', 'm.kind as modelKind', 'r.stream')
-    .orderBy('r.side');
+  const recordings = await findStoredRecordings(db, id);
   return { id: submission.id as number, status: submission.status as SubmissionStatus, attempts: submission.attempts as number, recordings };
+}
+
+/** What the tag check compares a recording's tags with: its model's firmware versions and every recording device. */
+export async function findTagCatalogue(db: Knex, modelId: number): Promise<{ firmware: { id: number; version: string }[]; recordingDevices: { id: number; name: string }[] }> {
+  const [firmware, recordingDevices] = await Promise.all([
+    db('firmware_versions').where({ model_id: modelId }).whereNot('status', 'rejected').select('id', 'version'),
+    db('recording_devices').whereNot('status', 'rejected').select('id', 'name'),
+  ]);
+  return { firmware, recordingDevices };
 }
 
 /** Moves a submission into analysis; false when it is no longer waiting for it. */
@@ -94,8 +125,13 @@ export function flagSeverity(flags: QualityFlag[]): number {
 export async function storeResult(db: Knex, id: number, result: ComparisonResult): Promise<boolean> {
   const count = await db('submissions')
     .where({ id, status: 'analysing' })
-    .update({
-      status: 'awaiting_review',
+    .update({ status: 'awaiting_review', ...resultColumns(db, result) });
+  return count === 1;
+}
+
+/** The stored result, its flags and its headline columns, as one update (also used by re-analysis). */
+export function resultColumns(db: Knex, result: ComparisonResult) {
+  return {
       method_version: result.methodVersion,
       result: JSON.stringify(storedResult(result)),
       flags: JSON.stringify(result.flags),
@@ -120,8 +156,7 @@ export async function storeResult(db: Knex, id: number, result: ComparisonResult
       b_cadence_dropouts: result.dropouts.b.cadence.count,
       analysed_at: db.fn.now(),
       updated_at: db.fn.now(),
-    });
-  return count === 1;
+  };
 }
 
 export async function markFailed(db: Knex, id: number, code: string, message: string): Promise<void> {

@@ -50,7 +50,8 @@ export async function createSubmission(
     throw new UnusableFileError('b', 'identical_files', 'Both files are the same recording. Choose the file from the other device for B.');
   }
   checkOverlap(streams.a, streams.b);
-  const existing = await submissions.findIdByFileHashes(db, hashes.a, hashes.b);
+  // The same two files with A and B swapped are the same ride: refused like an exact re-upload.
+  const existing = await submissions.findIdBySameFiles(db, hashes.a, hashes.b);
   if (existing) throw duplicate(existing);
 
   let id: number;
@@ -80,7 +81,7 @@ export async function createSubmission(
     );
   } catch (err) {
     if (isUniqueViolation(err)) {
-      const raced = await submissions.findIdByFileHashes(db, hashes.a, hashes.b);
+      const raced = await submissions.findIdBySameFiles(db, hashes.a, hashes.b);
       if (raced) throw duplicate(raced);
     }
     throw err;

@@ -5,7 +5,7 @@ import { createSubmission } from '../../../server/features/submissions/submissio
 import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
-import { asBuffer } from '../submissions/fit-pairs';
+import { asBuffer, cleanPair } from '../submissions/fit-pairs';
 import { submissionAwaitingReview } from './moderation-fixtures';
 
 const { app, db } = await createTestContext({ fakes: true });
@@ -66,11 +66,12 @@ describe('the review page', () => {
   it('when the same ride comes again with other files, then the review lists it as a near-identical duplicate, with the rider history and the device checks', async () => {
     const original = await submissionAwaitingReview(db, rider.user.id, catalogue, { seed: 7001 });
     await moderator.agent.post(`/api/moderation/submissions/${original.id}/decision`).set('X-CSRF-Token', await moderator.csrf()).send({ decision: 'accept', expectedVersion: original.version });
-    // The same two recordings as B and A: other files by hash, the same ride.
+    // The same ride written by another head unit: other files by hash, the same streams.
     const input = createSubmissionInput.parse(submissionMeta(catalogue));
+    const other = cleanPair(7001, { headUnitSerial: 987_654 });
     const { id: again } = await createSubmission({ db }, rider.user.id, input, {
-      a: { buffer: asBuffer(original.pair.b), originalName: 'b.fit' },
-      b: { buffer: asBuffer(original.pair.a), originalName: 'a.fit' },
+      a: { buffer: asBuffer(other.a), originalName: 'a.fit' },
+      b: { buffer: asBuffer(other.b), originalName: 'b.fit' },
     });
     await analyseSubmission(db, again);
 

@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { decideSubmission } from '../../../server/features/moderation/moderation.service';
 import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS, workAnalysisQueue } from '../../../server/features/submissions/analyse-submission.job';
 import { createLogger } from '../../../server/lib/logger';
+import { METHOD_VERSION } from '../../../shared/analysis/method';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
 import { createSubmissionInput } from '../../../shared/schemas/submission';
 import { submissionView } from '../../../shared/schemas/submission-view';
@@ -11,6 +12,9 @@ import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/
 import { signedInAgent, type TestAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
 import { asBuffer, cleanPair } from './fit-pairs';
+import { insertFirmware } from '../../../server/features/catalogue/catalogue.repository';
+import { versionOrder } from '../../../shared/schemas/catalogue';
+import { simulatePair } from '../../../shared/simulator/pair';
 
 const { app, db, queue } = await createTestContext({ fakes: true, worker: true });
 
@@ -56,7 +60,7 @@ describe('the analysis job', () => {
     const res = await waitForStatus(rider.agent, upload.body.id, ['awaiting_review', 'failed']);
 
     expect(res.body.status).toBe('awaiting_review');
-    expect(res.body.result.methodVersion).toBe(1);
+    expect(res.body.result.methodVersion).toBe(METHOD_VERSION);
     // Known truth from the simulator: A (spider) reads 3 % high against B (dual pedals).
     expect(res.body.result.bias.percent).toBeCloseTo(pair.truth.biasPercent, 0);
     expect(res.body.result.alignment.overlapSeconds).toBeGreaterThan(1000);
@@ -64,6 +68,31 @@ describe('the analysis job', () => {
     const row = await db('submissions').where({ id: upload.body.id }).first();
     expect(row.bias_percent).toBeCloseTo(res.body.result.bias.percent, 9);
     expect(row.a_power_dropouts).toBe(0);
+  });
+
+  it("when A's firmware tag contradicts the version its file reports, then the analysis raises a severe firmware_tag_mismatch flag", async () => {
+    // Issue 14: demo pair 01 tagged 2.2 while its file reports 1.2 showed "No flags" in the queue.
+    const reported = await insertFirmware(db, { modelId: catalogue.spider.id, version: '1.2', versionOrder: versionOrder('1.2'), releasedOn: '2026-01-01', status: 'approved' });
+    const tagged = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.2', versionOrder: versionOrder('2.2'), releasedOn: '2026-02-01', status: 'approved' });
+    const pair = simulatePair({
+      seed: 61,
+      durationSeconds: 1200,
+      a: { position: 'total', scale: 1.03, sensor: { productId: 9, serialNumber: 4242, softwareVersion: 1.2 } },
+      b: { position: 'dual' },
+    });
+    const meta = submissionMeta(catalogue);
+    const input = createSubmissionInput.parse({ ...meta, a: { ...meta.a, firmwareId: tagged.id } });
+    const { id } = await createSubmission({ db }, rider.user.id, input, {
+      a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+      b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+    });
+
+    await analyseSubmission(db, id);
+
+    const row = await db('submissions').where({ id }).first('flags', 'flag_severity');
+    expect(row.flags).toContainEqual({ code: 'firmware_tag_mismatch', severity: 'severe', message: "Device A's power meter firmware is tagged 2.2, but its file reports 1.2." });
+    expect(row.flag_severity).toBe(3);
+    expect(reported.id).not.toBe(tagged.id);
   });
 
   it('when the job runs twice for the same submission, then there is one result and the second run changes nothing', async () => {

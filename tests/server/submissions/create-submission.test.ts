@@ -72,6 +72,19 @@ describe('POST /api/submissions', () => {
     expect(res.status).toBe(409);
     expect(res.body.error.details).toEqual({ submissionId: first.id, url: `/submissions/${first.id}` });
   });
+
+  it('when the same ride is uploaded again with A and B swapped (and the tags swapped), then it is refused like an exact re-upload and nothing is stored', async () => {
+    // Issue 14: demo pair 03 as A/B, then as B/A, was accepted as a new submission.
+    const first = await db('submissions').orderBy('id').first('id');
+    const meta = submissionMeta(catalogue);
+    const before = await rowCounts();
+
+    const res = await upload([['fileA', asBuffer(pair.b)], ['fileB', asBuffer(pair.a)]], { ...meta, a: meta.b, b: meta.a });
+
+    expect(res.status).toBe(409);
+    expect(res.body.error.details).toEqual({ submissionId: first.id, url: `/submissions/${first.id}` });
+    expect(await rowCounts()).toEqual(before);
+  });
 });
 
 describe('POST /api/submissions with bad input', () => {

@@ -75,7 +75,8 @@ describe('tag check', () => {
     expect(versionHundredths('1.20')).toBe(120);
     expect(versionHundredths('v4.75')).toBe(475);
     expect(versionHundredths(1.2)).toBe(120);
-    expect(versionHundredths('2.3.1')).toBeNull();
+    expect(versionHundredths('2.3.1')).toBe(230);
+    expect(versionHundredths('beta')).toBeNull();
     expect(formatVersion(1.05)).toBe('1.05');
     expect(formatVersion(2)).toBe('2.0');
   });
