@@ -1,10 +1,7 @@
 import { Link } from 'react-router-dom';
-import { DRIVETRAIN_LOSS_FRACTION } from '@shared/analysis/like-for-like';
 import {
   BLOCK_SECONDS,
   LIMITS_OF_AGREEMENT_Z,
-  MAX_CADENCE_LAG_SECONDS,
-  MAX_CARRY_SECONDS,
   MAX_CLOCK_OFFSET_SECONDS,
   METHOD_VERSION,
   MIN_OVERLAP_SECONDS,
@@ -14,6 +11,7 @@ import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
 import { PageSection } from '@/components/ui/page-section';
+import { RideComparisonMethod } from '@/features/methodology/components/ride-comparison-method';
 
 export function MethodologyRoute() {
   return (
@@ -40,53 +38,7 @@ export function MethodologyRoute() {
         </p>
       </PageSection>
 
-      <PageSection title="One comparison, step by step">
-        <ol className="list-decimal space-y-2 pl-5">
-          <li>
-            <strong>Timeline.</strong> Each recording is put on a one-second grid. A gap of up to {MAX_CARRY_SECONDS} s keeps the last value (head units that
-            record only on change do this all the time); a longer gap counts as no data.
-          </li>
-          <li>
-            <strong>Clock offset.</strong> The two power traces are slid against each other by up to ±{MAX_CLOCK_OFFSET_SECONDS} s and fixed where they move
-            together best. A head unit that averages power looks a little late, so its offset includes that delay.
-          </li>
-          <li>
-            <strong>Dropouts.</strong> A meter drops out when it reports nothing, or zero, for at least 3 s while the other meter reads at least 50 W (power)
-            or 30 rpm (cadence). Rates are per pedalling hour.
-          </li>
-          <li>
-            <strong>Bias and agreement.</strong> Only seconds where both meters read power and neither is in a dropout count. Bias is 100 × (ΣA / ΣB − 1);
-            agreement uses {BLOCK_SECONDS}-second blocks (Bland–Altman limits, Pearson and Lin's concordance, Deming regression), and the bias is also split by
-            power band and cadence band.
-          </li>
-          <li>
-            <strong>Like for like.</strong> Two meters that measure the same thing are compared directly. A single-leg meter against a dual meter that records
-            left/right balance is compared with the dual meter's same leg; without balance the comparison is marked mixed, because the rider's leg balance
-            is in it. Hubs and trainers measure after the chain and are expected to read about {Math.round(DRIVETRAIN_LOSS_FRACTION * 1000) / 10} % lower
-            (drivetrain loss).
-          </li>
-          <li>
-            <strong>Sprints, cadence and steady stretches.</strong> Best efforts from 1 s to 20 min, how fast each meter reaches 80 % of a sprint's peak, the
-            cadence delay (within ±{MAX_CADENCE_LAG_SECONDS} s), and stretches of at least a minute of steady riding.
-          </li>
-          <li>
-            <strong>Quality flags.</strong> Short overlap, traces that barely move together (perhaps not the same ride), a bias beyond 15 %, identical files,
-            implausible values, many long gaps, a mixed comparison, or one recording much smoother than the other. Moderators see the flags before they
-            accept a ride.
-          </li>
-        </ol>
-      </PageSection>
-
-      <PageSection title="Known limits of this method">
-        <ul className="list-disc space-y-2 pl-5">
-          <li>
-            When one head unit records cadence only on change and the cadence delay between the meters is 3 s or more, the moment a rider stops or starts
-            pedalling can count as a short cadence dropout.
-          </li>
-          <li>Different head units smooth power differently; that shows as a smoothing flag and slightly wider limits of agreement, not as bias.</li>
-          <li>Only the first activity in a FIT file is read; files joined from several recordings should be exported separately.</li>
-        </ul>
-      </PageSection>
+      <RideComparisonMethod />
 
       <PageSection title="From rides to a model's figures">
         <ul className="list-disc space-y-2 pl-5">
