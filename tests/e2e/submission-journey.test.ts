@@ -98,7 +98,7 @@ describe('a rider submits a paired recording in the browser', () => {
     await page.locator('#file-b').setInputFiles(demoPair('b'));
     await page.locator('#file-a-error').waitFor();
 
-    expect(await page.locator('#file-a-error').textContent()).toContain('not a FIT activity file');
+    expect(await page.locator('#file-a-error').textContent()).toContain('is not a FIT file');
     expect(await page.locator('#file-a').getAttribute('aria-invalid')).toBe('true');
     expect(await page.locator('#file-b-error').count()).toBe(0);
 
