@@ -58,6 +58,10 @@ export function createApp(deps: AppDeps) {
   app.use(express.json({ limit: '200kb' }));
   app.use(express.urlencoded({ extended: false, limit: '50kb' }));
 
+  // Health first: it must answer 503 while PostgreSQL is down, and the session store
+  // (read for any request that carries a cookie) would turn that into a 500.
+  app.use('/api/health', healthRouter(db));
+
   // Sign-in: cookies → session → passport → write rate limit → CSRF check on
   // every state-changing request (GETs and the OAuth callbacks are exempt).
   const passport = createPassport({ config: deps.config, db });
@@ -79,7 +83,6 @@ export function createApp(deps: AppDeps) {
   app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
   app.use('/api', scoreboardRouter({ db }));
-  app.use('/api/health', healthRouter(db));
   app.use('/api', notFound);
 
   serveClient(app, deps.clientDist ?? clientDist);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedWholeNumber, idNumber, singleLineText } from './fields';
 import { GRANTABLE_ROLES, ROLES } from '../roles';
 
 // Handles follow the provider's rules: letters, digits and single hyphens, not at
@@ -14,6 +15,9 @@ export const personNameSchema = z
   .string()
   .transform((s) => s.replace(/[\u0000-\u001f\u007f]/g, '').trim())
   .pipe(z.string().min(1, 'enter a name').max(80, 'keep it under 80 characters'));
+
+/** A name someone types (account settings, the local provider's form): control characters are refused. */
+export const personNameInput = singleLineText().trim().min(1, 'enter a name').max(80, 'keep it under 80 characters');
 
 export const makerSummarySchema = z.object({ id: z.number(), slug: z.string(), name: z.string() });
 export type MakerSummary = z.infer<typeof makerSummarySchema>;
@@ -52,7 +56,7 @@ export const signInQuerySchema = z.object({
 
 export const updateAccountInput = z
   .object({
-    name: personNameSchema.optional(),
+    name: personNameInput.optional(),
     notificationPrefs: notificationPrefsSchema.partial().optional(),
   })
   .strict();
@@ -67,7 +71,7 @@ export type DeleteAccountInput = z.infer<typeof deleteAccountInput>;
 export const adminUserListQuery = z.object({
   q: z.string().trim().max(80).optional(),
   role: z.enum(ROLES).optional(),
-  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  page: boundedWholeNumber(1, 10_000).default(1),
 });
 export type AdminUserListQuery = z.infer<typeof adminUserListQuery>;
 
@@ -89,25 +93,25 @@ const pageFields = { page: z.number(), pageSize: z.number(), total: z.number() }
 export const adminUserListSchema = z.object({ users: z.array(adminUserSchema), ...pageFields });
 export type AdminUserList = z.infer<typeof adminUserListSchema>;
 
-export const userIdParams = z.object({ userId: z.coerce.number().int().positive() });
+export const userIdParams = z.object({ userId: idNumber() });
 export const roleParams = userIdParams.extend({ role: z.enum(GRANTABLE_ROLES) });
 
 export const grantRoleInput = z.object({
   role: z.enum(GRANTABLE_ROLES),
-  reason: z.string().trim().max(500).optional(),
+  reason: singleLineText().trim().max(500).optional(),
 });
 export type GrantRoleInput = z.infer<typeof grantRoleInput>;
 
 export const verifyMakerStaffInput = z.object({
   makerId: z.number().int().positive(),
-  reason: z.string().trim().max(500).optional(),
+  reason: singleLineText().trim().max(500).optional(),
 });
 export type VerifyMakerStaffInput = z.infer<typeof verifyMakerStaffInput>;
 
 export const auditLogQuery = z.object({
   subjectType: z.string().trim().max(40).optional(),
   action: z.string().trim().max(60).optional(),
-  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  page: boundedWholeNumber(1, 10_000).default(1),
 });
 export type AuditLogQuery = z.infer<typeof auditLogQuery>;
 
@@ -130,6 +134,6 @@ export type AuditLog = z.infer<typeof auditLogSchema>;
 // The local fake provider's "create an identity" form.
 export const fakeIdentityInput = z.object({
   login: handleSchema,
-  name: personNameSchema,
+  name: personNameInput,
   email: z.email('enter an e-mail address').max(200),
 });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idNumber, singleLineText } from './fields';
 import { MEASUREMENT_POSITIONS } from '../analysis/types';
 
 export const MODEL_KINDS = ['crank_arm', 'pedal', 'spider', 'spindle', 'hub', 'trainer'] as const;
@@ -18,7 +19,7 @@ export const MODEL_KIND_LABELS: Record<ModelKind, string> = {
 /** Hubs and trainers measure after the chain, so they read lower by the drivetrain loss. */
 export const AFTER_DRIVETRAIN_KINDS: readonly ModelKind[] = ['hub', 'trainer'];
 
-const name = z.string().trim().min(2, 'at least 2 characters').max(80, 'at most 80 characters');
+const name = singleLineText().trim().min(2, 'at least 2 characters').max(80, 'at most 80 characters');
 export const versionString = z
   .string()
   .trim()
@@ -28,12 +29,12 @@ export const proposeCatalogueEntryInput = z.discriminatedUnion('type', [
   z.object({ type: z.literal('maker'), name }),
   z.object({
     type: z.literal('model'),
-    makerId: z.coerce.number().int().positive(),
+    makerId: idNumber('choose a maker'),
     name,
     position: z.enum(MEASUREMENT_POSITIONS),
     kind: z.enum(MODEL_KINDS),
   }),
-  z.object({ type: z.literal('firmware'), modelId: z.coerce.number().int().positive(), version: versionString }),
+  z.object({ type: z.literal('firmware'), modelId: idNumber('choose a model'), version: versionString }),
   z.object({ type: z.literal('recording_device'), name, kind: z.enum(RECORDING_DEVICE_KINDS) }),
 ]);
 export type ProposeCatalogueEntryInput = z.infer<typeof proposeCatalogueEntryInput>;

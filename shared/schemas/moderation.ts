@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { day } from './day';
+import { boundedWholeNumber, idNumber, singleLineText } from './fields';
 import { recordingTagsInput, SUBMISSION_STATUSES } from './submission';
 
 /** Why a moderator rejects a submission: a fixed list, so riders and statistics can rely on it. */
@@ -33,7 +34,7 @@ const note = z
   .transform((s) => s.replace(/[\u0000-\u0009\u000b-\u001f\u007f]/g, '').trim())
   .pipe(z.string().max(1000, 'at most 1000 characters'));
 
-const expectedVersion = z.coerce.number({ message: 'say which version of the submission you saw' }).int().positive();
+const expectedVersion = idNumber('say which version of the submission you saw');
 
 /** One decision on a submission; the version is the one the moderator saw. */
 export const decideSubmissionInput = z.discriminatedUnion('decision', [
@@ -73,11 +74,11 @@ export type CorrectTagsInput = z.infer<typeof correctTagsInput>;
 
 export const reviewQueueQuery = z.object({
   flag: z.string().trim().regex(/^[a-z_]{1,40}$/, 'a flag code like low_correlation').optional(),
-  maker: z.coerce.number().int().positive().optional(),
-  model: z.coerce.number().int().positive().optional(),
+  maker: idNumber().optional(),
+  model: idNumber().optional(),
   /** Only submissions waiting at least this many days. */
-  minAgeDays: z.coerce.number().int().min(0).max(3650).optional(),
-  page: z.coerce.number().int().min(1).max(10_000).default(1),
+  minAgeDays: boundedWholeNumber(0, 3650).optional(),
+  page: boundedWholeNumber(1, 10_000).default(1),
 });
 export type ReviewQueueQuery = z.infer<typeof reviewQueueQuery>;
 
@@ -85,7 +86,7 @@ export type ReviewQueueQuery = z.infer<typeof reviewQueueQuery>;
 export const CATALOGUE_ENTRY_TYPES = ['maker', 'model', 'firmware', 'recording_device'] as const;
 export type CatalogueEntryType = (typeof CATALOGUE_ENTRY_TYPES)[number];
 
-const entryName = z.string().trim().min(1, 'enter a name').max(80, 'at most 80 characters');
+const entryName = singleLineText().trim().min(1, 'enter a name').max(80, 'at most 80 characters');
 
 export const curateEntryInput = z.discriminatedUnion('action', [
   z.object({ action: z.literal('approve') }),
@@ -95,7 +96,7 @@ export const curateEntryInput = z.discriminatedUnion('action', [
 export type CurateEntryInput = z.infer<typeof curateEntryInput>;
 
 export const mergeEntriesInput = z.object({
-  intoId: z.coerce.number({ message: 'choose the entry to keep' }).int().positive('choose the entry to keep'),
+  intoId: idNumber('choose the entry to keep'),
   reason: note.pipe(z.string().min(3, 'say why they are the same (at least 3 characters)')),
 });
 export type MergeEntriesInput = z.infer<typeof mergeEntriesInput>;

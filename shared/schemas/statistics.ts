@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedWholeNumber } from './fields';
 import { MEASUREMENT_POSITIONS } from '../analysis/types';
 import { MODEL_KINDS } from './catalogue';
 
@@ -29,8 +30,8 @@ export const scoreboardQuery = z.object({
   ...filters,
   sort: z.enum(SCOREBOARD_SORTS).default('evidence'),
   order: z.enum(['asc', 'desc']).default('desc'),
-  page: z.coerce.number().int('a whole number').min(1, 'at least 1').max(10_000).default(1),
-  pageSize: z.coerce.number().int('a whole number').min(1, 'at least 1').max(100, 'at most 100').default(25),
+  page: boundedWholeNumber(1, 10_000).default(1),
+  pageSize: boundedWholeNumber(1, 100).default(25),
 });
 export type ScoreboardQuery = z.infer<typeof scoreboardQuery>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { idNumber, multiLineText, singleLineText } from './fields';
 import { MEASUREMENT_POSITIONS } from '../analysis/types';
 import { MAX_NOTES_LENGTH } from '../limits';
 
@@ -27,8 +28,7 @@ export const SURFACE_LABELS: Record<Surface, string> = {
   trainer: 'Trainer',
 };
 
-const id = (what: string) =>
-  z.coerce.number({ message: `choose a ${what}` }).int().positive(`choose a ${what}`);
+const id = (what: string) => idNumber(`choose a ${what}`);
 
 /** What the rider says about one of the two recordings. */
 export const recordingTagsInput = z.object({
@@ -36,7 +36,7 @@ export const recordingTagsInput = z.object({
   firmwareId: id('firmware version'),
   position: z.enum(MEASUREMENT_POSITIONS, { message: 'choose left, right, dual or total' }),
   recordingDeviceId: id('recording device'),
-  recordingDeviceFirmware: z.string().trim().max(40, 'at most 40 characters').default(''),
+  recordingDeviceFirmware: singleLineText().trim().max(40, 'at most 40 characters').default(''),
   recordingMode: z.enum(RECORDING_MODES, { message: 'choose every second or change-only' }),
   zeroOffset: z.enum(ZERO_OFFSET_ANSWERS, { message: 'say whether you did a zero offset' }),
   otherMetersOn: z.boolean({ message: 'say whether other meters were switched on' }),
@@ -49,6 +49,6 @@ export const createSubmissionInput = z.object({
   b: recordingTagsInput,
   indoor: z.boolean({ message: 'say whether the ride was indoors' }),
   surface: z.enum(SURFACES, { message: 'choose a surface' }),
-  notes: z.string().trim().max(MAX_NOTES_LENGTH, `at most ${MAX_NOTES_LENGTH} characters`).default(''),
+  notes: multiLineText().trim().max(MAX_NOTES_LENGTH, `at most ${MAX_NOTES_LENGTH} characters`).default(''),
 });
 export type CreateSubmissionInput = z.infer<typeof createSubmissionInput>;

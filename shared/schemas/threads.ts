@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { boundedWholeNumber, idNumber, multiLineText, singleLineText } from './fields';
 
 // Discussion threads: riders report what they see on a model, makers' verified
 // staff answer. One set of schemas for the forms and the server.
@@ -19,24 +20,17 @@ export const MAX_LINKED_SUBMISSIONS = 6;
 export const POST_EDIT_WINDOW_MINUTES = 30;
 export const HIDE_REASON_MAX = 300;
 
-// Control characters (other than line breaks and tabs in bodies) never belong in text people read.
-const CONTROL_CHARS = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/;
-
-const threadTitle = z
-  .string()
+const threadTitle = singleLineText()
   .trim()
   .min(8, 'at least 8 characters: say what you see')
-  .max(THREAD_TITLE_MAX, `at most ${THREAD_TITLE_MAX} characters`)
-  .refine((s) => !CONTROL_CHARS.test(s) && !/[\r\n\t]/.test(s), 'one line of plain text');
+  .max(THREAD_TITLE_MAX, `at most ${THREAD_TITLE_MAX} characters`);
 
-const postBody = z
-  .string()
+const postBody = multiLineText()
   .trim()
   .min(2, 'write at least a few words')
-  .max(POST_BODY_MAX, `at most ${POST_BODY_MAX} characters`)
-  .refine((s) => !CONTROL_CHARS.test(s), 'contains characters that are not text');
+  .max(POST_BODY_MAX, `at most ${POST_BODY_MAX} characters`);
 
-const id = z.coerce.number().int().positive();
+const id = idNumber();
 
 const submissionIds = z
   .array(id)
@@ -75,7 +69,7 @@ export type SetThreadStatusInput = z.input<typeof setThreadStatusInput>;
 
 export const officialResponseInput = z.object({ postId: id });
 
-const reason = z.string().trim().min(3, 'give a short reason').max(HIDE_REASON_MAX, `at most ${HIDE_REASON_MAX} characters`);
+const reason = singleLineText().trim().min(3, 'give a short reason').max(HIDE_REASON_MAX, `at most ${HIDE_REASON_MAX} characters`);
 
 export const postVisibilityInput = z.discriminatedUnion('hidden', [
   z.object({ hidden: z.literal(true), reason }),
@@ -92,7 +86,7 @@ export const threadListQuery = z.object({
   open: flag.optional(),
   makerResponded: flag.optional(),
   firmwareId: id.optional(),
-  page: z.coerce.number().int().min(1).max(1000).default(1),
+  page: boundedWholeNumber(1, 1000).default(1),
 });
 export type ThreadListQuery = z.infer<typeof threadListQuery>;
 

@@ -7,10 +7,11 @@ import { NotFoundError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import * as curation from './curation.repository';
 import { curateEntry, hideModel, mergeEntries, pinNote } from './curation.service';
+import { idNumber } from '@shared/schemas/fields';
 
 const entryParams = z.object({
   type: z.enum(CATALOGUE_ENTRY_TYPES, { message: 'one of maker, model, firmware, recording_device' }),
-  id: z.coerce.number().int().positive('not an entry number'),
+  id: idNumber('not an entry number'),
 });
 const noteParams = z.object({ subject: z.enum(['model', 'firmware'], { message: 'model or firmware' }), id: z.coerce.number().int().positive() });
 const modelParams = z.object({ id: z.coerce.number().int().positive('not a model number') });

@@ -12,8 +12,9 @@ import { formatZodError, validate } from '../../middleware/validate';
 import { createSubmission } from './submissions.service';
 import { canSeeSubmission, presentMySubmission, presentSubmission } from './submission.presenter';
 import * as submissions from './submissions.repository';
+import { idNumber } from '@shared/schemas/fields';
 
-const idParams = z.object({ id: z.coerce.number().int().positive('not a submission number') });
+const idParams = z.object({ id: idNumber('not a submission number') });
 
 function parseMeta(raw: unknown) {
   let json: unknown;

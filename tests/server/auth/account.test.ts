@@ -12,13 +12,24 @@ describe("a rider's account", () => {
     const res = await agent
       .patch('/api/account')
       .set('X-CSRF-Token', await csrf())
-      .send({ name: '  Lapwing <b>Commutes</b>\u0007 ', notificationPrefs: { emailOnReply: false } });
+      .send({ name: '  Lapwing <b>Commutes</b> ', notificationPrefs: { emailOnReply: false } });
 
     expect(res.status).toBe(200);
     const me = (await agent.get('/api/me')).body;
-    // Stored as typed (minus control characters); the client renders it as text, never HTML.
+    // Stored as typed; the client renders it as text, never HTML.
     expect(me.name).toBe('Lapwing <b>Commutes</b>');
     expect(me.notificationPrefs).toEqual({ emailOnDecision: true, emailOnReply: false });
+  });
+
+  it('when the new name carries a control character, then it is refused and the name is unchanged', async () => {
+    const { agent, csrf } = await signedInAgent(app, { handle: 'lapwing-bell' });
+    const before = (await agent.get('/api/me')).body.name;
+
+    const res = await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ name: 'Lapwing\u0007 Bell' });
+
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/one line of plain text/);
+    expect((await agent.get('/api/me')).body.name).toBe(before);
   });
 
   it('when the name is empty or fields are unknown, then the answer is 400 naming the problem', async () => {
