@@ -1,7 +1,8 @@
+import { signedPercent } from '@/lib/format-figures';
 import type { CadenceStep } from '@shared/analysis/cadence-steps';
 import type { DropoutRow } from '@shared/analysis/dropout-rows';
 import type { Sprint } from '@shared/analysis/types';
-import { formatClock, formatSignedPercent, formatSignedSeconds, formatWatts } from '../lib/format';
+import { formatClock, formatSignedSeconds, formatWatts } from '../lib/format';
 
 const th = 'px-3 py-2 text-left text-caption font-semibold text-ink-soft';
 const td = 'px-3 py-2 tabular-nums';
@@ -68,7 +69,7 @@ export function SprintTable({ sprints, onJump }: { sprints: Sprint[]; onJump: Ju
             <td className={`${td} text-right`}>{s.durationSeconds} s</td>
             <td className={`${td} text-right`}>{formatWatts(s.aPeakWatts)}</td>
             <td className={`${td} text-right`}>{formatWatts(s.bPeakWatts)}</td>
-            <td className={`${td} text-right font-semibold`}>{formatSignedPercent(s.percent)}</td>
+            <td className={`${td} text-right font-semibold`}>{signedPercent(s.percent)}</td>
             <td className={`${td} text-right`}>
               {formatSignedSeconds(s.aSecondsTo80Percent)} / {formatSignedSeconds(s.bSecondsTo80Percent)}
             </td>

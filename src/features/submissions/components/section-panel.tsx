@@ -1,6 +1,7 @@
+import { signedPercent } from '@/lib/format-figures';
 import { useEffect, useState } from 'react';
 import type { SectionFigures } from '@shared/analysis/section-figures';
-import { formatClock, formatDuration, formatSignedPercent, formatSignedWatts, formatWatts } from '../lib/format';
+import { formatClock, formatDuration, formatSignedWatts, formatWatts } from '../lib/format';
 import { parseClock } from '../lib/ride-clock';
 import { sectionText } from '../lib/section-text';
 import { FieldError, inputBorder, inputClass } from './form-controls';
@@ -73,7 +74,7 @@ export function SectionPanel({
       <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-4" aria-live="polite">
         <Figure term={`${names.a} (A), average`} value={formatWatts(figures.aAverageWatts)} tone="text-ember-700" />
         <Figure term={`${names.b} (B), average`} value={formatWatts(figures.bAverageWatts)} tone="text-moss-700" />
-        <Figure term="A − B" value={figures.differenceWatts === null ? '–' : `${formatSignedWatts(figures.differenceWatts, 1)} · ${formatSignedPercent(figures.differencePercent)}`} />
+        <Figure term="A − B" value={figures.differenceWatts === null ? '–' : `${formatSignedWatts(figures.differenceWatts, 1)} · ${signedPercent(figures.differencePercent)}`} />
         <Figure term="Matched seconds" value={`${figures.matchedSeconds} of ${figures.toSeconds - figures.fromSeconds}`} />
         <Figure term="Peak A" value={formatWatts(figures.aPeakWatts)} />
         <Figure term="Peak B" value={formatWatts(figures.bPeakWatts)} />

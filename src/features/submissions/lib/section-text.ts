@@ -1,5 +1,6 @@
+import { signedPercent } from '@/lib/format-figures';
 import type { SectionFigures } from '@shared/analysis/section-figures';
-import { formatClock, formatSignedPercent, formatSignedWatts, formatWatts } from './format';
+import { formatClock, formatSignedWatts, formatWatts } from './format';
 
 /** One line a reviewer can paste into an article: the section, both averages, the difference and the peaks. */
 export function sectionText(figures: SectionFigures, names: { a: string; b: string }): string {
@@ -7,7 +8,7 @@ export function sectionText(figures: SectionFigures, names: { a: string; b: stri
   if (figures.matchedSeconds === 0) return `${span}: no second where both meters reported power.`;
   return (
     `${span} (${figures.matchedSeconds} s matched): ${names.a} ${formatWatts(figures.aAverageWatts)} against ${names.b} ${formatWatts(figures.bAverageWatts)}, ` +
-    `difference ${formatSignedWatts(figures.differenceWatts, 1)} (${formatSignedPercent(figures.differencePercent)}); ` +
+    `difference ${formatSignedWatts(figures.differenceWatts, 1)} (${signedPercent(figures.differencePercent)}); ` +
     `peaks ${formatWatts(figures.aPeakWatts)} and ${formatWatts(figures.bPeakWatts)}.`
   );
 }
