@@ -9,6 +9,7 @@ import { NotFoundError, ValidationError } from '../../lib/errors';
 import { fitUpload, uploadedFile } from '../../middleware/fit-upload';
 import { submissionsPerDayLimiter } from '../../middleware/rate-limit';
 import { formatZodError, validate } from '../../middleware/validate';
+import { loadRideTrace } from './ride-trace.service';
 import { createSubmission } from './submissions.service';
 import { canSeeSubmission, presentMySubmission, presentSubmission } from './submission.presenter';
 import * as submissions from './submissions.repository';
@@ -57,6 +58,10 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config 
     const submission = await submissions.findSubmission(db, res.locals.params.id);
     if (!submission || !canSeeSubmission(req.user, submission)) throw new NotFoundError('No such submission, or it is not public yet.');
     res.json(presentSubmission(submission, req.user));
+  });
+
+  router.get('/:id/trace', validate(idParams, 'params'), async (req, res) => {
+    res.json(await loadRideTrace(db, res.locals.params.id, req.user));
   });
 
   return router;

@@ -48,7 +48,13 @@ export function SubmissionRoute() {
       <DecisionNotice submissionId={s.id} status={s.status} isOwn={s.isOwn} recordings={s.recordings} />
       <RecordingSummary recordings={s.recordings} />
       {s.result && <SafetyNote />}
-      {s.result && <SubmissionResult result={s.result} />}
+      {s.result && (
+        <SubmissionResult
+          submissionId={s.id}
+          result={s.result}
+          names={{ a: s.recordings.find((r) => r.side === 'a')?.modelName ?? 'A', b: s.recordings.find((r) => r.side === 'b')?.modelName ?? 'B' }}
+        />
+      )}
       {s.isOwn && (
         <Link to="/my-submissions" className="inline-block font-semibold text-fjord-700 underline underline-offset-2">
           All your submissions

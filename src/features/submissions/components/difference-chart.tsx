@@ -54,7 +54,8 @@ export function DifferenceChart({ result }: { result: RideComparisonView }) {
   );
 }
 
-function drawDropouts(u: uPlot, aEvents: DropoutEvent[], bEvents: DropoutEvent[]) {
+/** A's dropouts shade the upper half of the plot, B's the lower. */
+export function drawDropouts(u: uPlot, aEvents: DropoutEvent[], bEvents: DropoutEvent[]) {
   const { ctx, bbox } = u;
   ctx.save();
   const half = bbox.height / 2;

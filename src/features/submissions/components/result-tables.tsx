@@ -35,7 +35,10 @@ export function PeakPowerTable({ peaks }: { peaks: Peaks }) {
             <td className={td} />
           </tr>
           <tr className="border-t border-paper-line">
-            <th scope="row" className={`${td} text-left font-medium`}>Normalised</th>
+            <th scope="row" className={`${td} text-left font-medium`}>
+              Hard-effort weighted average
+              <span className="block text-caption font-normal text-ink-faint">fourth-power mean of the 30-s rolling average</span>
+            </th>
             <td className={`${td} text-right`}>{formatWatts(peaks.normalisedWatts.a)}</td>
             <td className={`${td} text-right`}>{formatWatts(peaks.normalisedWatts.b)}</td>
             <td className={td} />

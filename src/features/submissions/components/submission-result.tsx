@@ -6,9 +6,10 @@ import { DifferenceChart } from './difference-chart';
 import { FlagList } from './flag-list';
 import { ResultHeadline } from './result-headline';
 import { PeakPowerTable, SteadySegmentsTable } from './result-tables';
+import { RideInspector } from './ride-inspector';
 
 /** Everything the analysis found, figures first, then the pictures, then the tables. */
-export function SubmissionResult({ result }: { result: RideComparisonView }) {
+export function SubmissionResult({ submissionId, result, names }: { submissionId: number; result: RideComparisonView; names: { a: string; b: string } }) {
   return (
     <div className="space-y-10">
       <section aria-labelledby="headline-title" className="space-y-4">
@@ -26,6 +27,10 @@ export function SubmissionResult({ result }: { result: RideComparisonView }) {
         ) : (
           <FlagList flags={result.flags} />
         )}
+      </Block>
+
+      <Block id="inspect" title="Inspect the ride" lead="Both meters over each other, second by second. Drag across the chart, or type a start and an end, to read a section.">
+        <RideInspector submissionId={submissionId} result={result} names={names} />
       </Block>
 
       <Block id="difference" title="The difference over the ride" lead="A minus B, averaged over short stretches. Shaded bands mark where a meter stopped reporting power.">

@@ -36,14 +36,19 @@ export function UPlotChart({
   makeOptions,
   data,
   height,
+  onReady,
 }: {
   makeOptions: (width: number, height: number) => uPlot.Options;
   data: uPlot.AlignedData;
   height: number;
+  /** Hands the chart to a caller that drives it (zoom, selection); null once it is gone. */
+  onReady?: (chart: uPlot | null) => void;
 }) {
   const container = useRef<HTMLDivElement>(null);
   const makeRef = useRef(makeOptions);
   makeRef.current = makeOptions;
+  const readyRef = useRef(onReady);
+  readyRef.current = onReady;
 
   useEffect(() => {
     const element = container.current;
@@ -55,8 +60,10 @@ export function UPlotChart({
       if (Math.abs(next - chart.width) > 1) chart.setSize({ width: next, height });
     });
     observer.observe(element);
+    readyRef.current?.(chart);
     return () => {
       observer.disconnect();
+      readyRef.current?.(null);
       chart.destroy();
     };
   }, [data, height]);
