@@ -1,6 +1,8 @@
 // Writes a meter recording as a FIT activity file: what a head unit would hand a
-// rider after the ride, with the meter as a connected sensor.
-import { createFitEncoder, MESG_NUM, type FitMessage } from './fit-encoder';
+// rider after the ride, with the meter as a connected sensor. The bytes come from
+// @garmin/fitsdk's Encoder, the FIT SDK's own writer, so the decoder is tested
+// against files it did not write itself.
+import { Encoder, Profile } from '@garmin/fitsdk';
 import { INVALID_BALANCE, type MeterRecording } from './meter';
 
 /** FIT time counts seconds from 1989-12-31T00:00:00Z: Unix = FIT + 631065600 (FIT SDK profile). */
@@ -40,7 +42,22 @@ export interface FitWriterOptions {
   indoor?: boolean;
 }
 
+/** One message as the SDK's Encoder takes it: field names of the FIT profile, values already in units (scales applied by the SDK). */
+export type FitMessage = Record<string, number | string | undefined>;
 export type FitMessageList = Array<[mesgNum: number, message: FitMessage]>;
+
+/** Global message numbers (FIT SDK profile, MesgNum). */
+export const MESG_NUM = {
+  fileId: Profile.MesgNum.FILE_ID,
+  session: Profile.MesgNum.SESSION,
+  lap: Profile.MesgNum.LAP,
+  record: Profile.MesgNum.RECORD,
+  event: Profile.MesgNum.EVENT,
+  deviceInfo: Profile.MesgNum.DEVICE_INFO,
+  activity: Profile.MesgNum.ACTIVITY,
+} as const;
+
+type SdkMesg = Parameters<Encoder['onMesg']>[1];
 
 // An open-sea point (mid South Atlantic): the made-up track names no real place.
 const TRACK_START_DEGREES = { lat: -30.5, long: -20.25 };
@@ -53,8 +70,9 @@ export function toFitTime(unixSeconds: number): number {
 
 /** `recording` = what the meter's recording device wrote; `device` = that recording device. */
 export function encodeActivityFit(recording: MeterRecording, device: DeviceIdentity, options: FitWriterOptions = {}): Uint8Array {
-  const encoder = createFitEncoder();
-  for (const [mesgNum, message] of activityMessages(recording, device, options)) encoder.write(mesgNum, message);
+  const encoder = new Encoder();
+  // Plain objects: the SDK's message types do not list every field by name.
+  for (const [mesgNum, message] of activityMessages(recording, device, options)) encoder.onMesg(mesgNum, message as SdkMesg);
   return encoder.close();
 }
 

@@ -130,5 +130,5 @@ describe('simulatePair', () => {
 
     expect(events / hours).toBeGreaterThan(4.5);
     expect(events / hours).toBeLessThan(7.5);
-  });
+  }, 60_000); // 40 hour-long files through the FIT SDK's Encoder
 });
