@@ -62,6 +62,7 @@ const ROUTES: Record<string, RouteRule> = {
   'GET /api/submissions.csv': { visitor: 'public' },
   // Not-yet-accepted submissions answer 404 to visitors; the accepted ones are public.
   'GET /api/submissions/:id': { visitor: 'public', paths: (w) => w.submissionIds.map((id) => `/api/submissions/${id}`) },
+  'GET /api/submissions/:id/trace': { visitor: 'public', paths: (w) => w.submissionIds.slice(0, 3).map((id) => `/api/submissions/${id}/trace`) },
   'GET /api/submissions/:id/decision': { visitor: 'public', paths: (w) => w.submissionIds.map((id) => `/api/submissions/${id}/decision`) },
   'GET /api/threads/:id': { visitor: 'public', paths: (w) => w.threadIds.map((id) => `/api/threads/${id}`) },
   // Sign-in redirects: no body worth reading, but walked all the same.
