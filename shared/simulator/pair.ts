@@ -101,9 +101,19 @@ export function simulatePair(options: PairOptions): SimulatedPair {
   const cadenceLagSeconds = Math.round(options.a.cadenceLagSeconds ?? 0) - Math.round(options.b.cadenceLagSeconds ?? 0);
   const extraDelay = smoothingDelay(options.a) - smoothingDelay(options.b);
   const expected = expectedSums(ride, options, firstSecond, lastSecond, [...dropoutsA, ...dropoutsB]);
+  // The files are written on first read: encoding dominates the cost, and callers
+  // that need only the truth (the demo validation reads ~400 truths) skip it.
+  let fileA: Uint8Array | undefined;
+  let fileB: Uint8Array | undefined;
   return {
-    a: write(recordingA, options.a, 'device-a'),
-    b: write(recordingB, options.b, 'device-b'),
+    get a() {
+      fileA ??= write(recordingA, options.a, 'device-a');
+      return fileA;
+    },
+    get b() {
+      fileB ??= write(recordingB, options.b, 'device-b');
+      return fileB;
+    },
     ride,
     recordings: { a: recordingA, b: recordingB },
     truth: {
