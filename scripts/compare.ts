@@ -33,10 +33,9 @@ function readFile(path: string): Uint8Array {
   }
 }
 
-function run(argv: string[]): { result: ComparisonResult; json: boolean } {
-  let parsed;
+function parseCommandLine(argv: string[]) {
   try {
-    parsed = parseArgs({
+    return parseArgs({
       args: argv,
       allowPositionals: true,
       options: {
@@ -50,7 +49,10 @@ function run(argv: string[]): { result: ComparisonResult; json: boolean } {
   } catch (error) {
     throw new UsageError('usage', `${(error as Error).message}\n${USAGE}`);
   }
-  const { values, positionals } = parsed;
+}
+
+function run(argv: string[]): { result: ComparisonResult; json: boolean } {
+  const { values, positionals } = parseCommandLine(argv);
   if (positionals.length !== 2) throw new UsageError('usage', `Give exactly two FIT files.\n${USAGE}`);
   const options = {
     aPosition: parsePosition(values['a-position'], '--a-position'),

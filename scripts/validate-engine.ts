@@ -32,7 +32,7 @@ const failed = outcomes.filter((o) => o.result === null);
 const numbers = (values: (number | null | undefined)[]) => values.filter((v): v is number => typeof v === 'number');
 
 console.log(`Engine recovery sweep: ${PAIRS} pairs, seeds ${outcomes[0]?.case.seed}…${outcomes.at(-1)?.case.seed}, ${seconds.toFixed(0)} s`);
-console.log(`refused by the engine: ${failed.length}${failed.length ? ' — ' + failed.slice(0, 5).map((o) => `#${o.case.index}: ${o.error}`).join('; ') : ''}`);
+console.log(`refused by the engine: ${failed.length}${failed.length ? ` — ${failed.slice(0, 5).map((o) => `#${o.case.index}: ${o.error}`).join('; ')}` : ''}`);
 console.log('');
 console.log('Error distributions (estimate − truth), in-window pairs');
 console.log(line('bias (pp)', distribution(numbers(inWindow.map((o) => o.biasError)))));

@@ -16,7 +16,7 @@ export interface RunOptions {
   /** Runs after the database is ready and before the server starts (the client build). */
   beforeServer?: () => Promise<unknown>;
   /** Runs once everything is up; may return its own cleanup (the Vite dev server). */
-  afterStart?: (apiUrl: string) => Promise<(() => unknown) | void>;
+  afterStart?: (apiUrl: string) => Promise<(() => unknown) | undefined>;
   /** The address people open, when it is not the API server's own (Vite in dev). */
   publicUrl?: string;
   /** Load the demo world into an empty database (default true). */

@@ -3,7 +3,6 @@ import type { SessionUser } from '../features/users/users.service';
 // `req.user` is the signed-in person as loaded for this request (roles and maker
 // memberships fresh from the database), or undefined for visitors.
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface User extends SessionUser {}
   }

@@ -30,6 +30,21 @@ export async function recordAudit(dbOrTrx: Knex | Knex.Transaction, record: Audi
 
 export const AUDIT_PAGE_SIZE = 50;
 
+/** An audit_log row joined with its actor's handle and name. */
+interface AuditLogRecord {
+  id: number | string;
+  actor_id: number | null;
+  actor_handle: string | null;
+  actor_name: string;
+  action: string;
+  subject_type: string;
+  subject_id: string;
+  reason: string | null;
+  before: unknown;
+  after: unknown;
+  created_at: Date;
+}
+
 export async function listAuditLog(db: Knex, query: AuditLogQuery): Promise<{ entries: AuditEntry[]; total: number }> {
   const filtered = db('audit_log as a').modify((q) => {
     if (query.subjectType) q.where('a.subject_type', query.subjectType);
@@ -45,7 +60,7 @@ export async function listAuditLog(db: Knex, query: AuditLogQuery): Promise<{ en
     .offset((query.page - 1) * AUDIT_PAGE_SIZE);
   return {
     total: Number(count),
-    entries: rows.map((r: Record<string, any>) => ({
+    entries: rows.map((r: AuditLogRecord) => ({
       id: Number(r.id),
       actor: r.actor_id ? { id: r.actor_id, handle: r.actor_handle ?? '', name: r.actor_name } : null,
       action: r.action,

@@ -11,13 +11,13 @@ const unsubscribeQuery = z.object({ token: z.string().max(200).default('') });
 const outboxQuery = z.object({ page: z.coerce.number().int().min(1).max(10_000).default(1) });
 
 function page(title: string, message: string): string {
-  const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+  const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
-<title>${escape(title)} · Crosswatt</title>
+<title>${escapeHtml(title)} · Crosswatt</title>
 <style>body{font-family:"Work Sans",system-ui,sans-serif;background:#f8f6f1;color:#1d2428;margin:0;padding:4rem 1.25rem}
 main{max-width:32rem;margin:0 auto;background:#fff;border:1px solid #ddd6c8;border-radius:.875rem;padding:2rem}
 h1{font-size:1.5rem;margin:0 0 .75rem;color:#1d5557}a{color:#1d5557}</style></head>
-<body><main><h1>${escape(title)}</h1><p>${escape(message)}</p><p><a href="/">Back to Crosswatt</a></p></main></body></html>`;
+<body><main><h1>${escapeHtml(title)}</h1><p>${escapeHtml(message)}</p><p><a href="/">Back to Crosswatt</a></p></main></body></html>`;
 }
 
 export function mailRouter({ db, config }: { db: Db; config: Config }) {

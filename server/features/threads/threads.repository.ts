@@ -5,6 +5,8 @@ import type {
   FirmwareRef,
   LinkableSubmission,
   LinkedSubmission,
+  NotificationKind,
+  NotificationView,
   PersonRef,
   ThreadListQuery,
   ThreadModelRef,
@@ -27,7 +29,17 @@ function person(id: number | null, handle: string | null, name: string | null, d
   return { id, handle, name: name ?? handle ?? DELETED_RIDER_NAME };
 }
 
-function modelRef(r: Record<string, any>): ModelRow {
+/** A model row joined with its maker's name, as the queries below select it. */
+interface ModelRefRecord {
+  id: number;
+  slug: string;
+  name: string;
+  status: string;
+  maker_id: number;
+  maker_name: string;
+}
+
+function modelRef(r: ModelRefRecord): ModelRow {
   return { id: r.id, slug: r.slug, name: r.name, status: r.status, maker: { id: r.maker_id, name: r.maker_name } };
 }
 
@@ -70,7 +82,21 @@ export interface ThreadRow {
   makerRespondedAt: Date | null;
 }
 
-function threadRow(r: Record<string, any>): ThreadRow {
+/** A row of the threads table. */
+interface ThreadRecord {
+  id: number;
+  model_id: number;
+  firmware_id: number | null;
+  author_id: number | null;
+  title: string;
+  status: ThreadStatus;
+  fixed_in_firmware_id: number | null;
+  locked: boolean;
+  moved_from_model_id: number | null;
+  maker_responded_at: Date | null;
+}
+
+function threadRow(r: ThreadRecord): ThreadRow {
   return {
     id: r.id,
     modelId: r.model_id,
@@ -159,13 +185,26 @@ function summaryQuery(db: Db) {
     );
 }
 
-function toSummary(r: Record<string, any>): ThreadSummary {
+/** A thread as summaryQuery selects it, with its author, versions and counts. */
+interface ThreadSummaryRecord extends ThreadRecord {
+  fixed_in_version: string | null;
+  firmware_version: string | null;
+  author_handle: string | null;
+  author_name: string | null;
+  author_deleted_at: Date | null;
+  reply_count: number;
+  has_official_response: boolean;
+  last_activity_at: Date;
+  created_at: Date;
+}
+
+function toSummary(r: ThreadSummaryRecord): ThreadSummary {
   return {
     id: r.id,
     title: r.title,
     status: r.status,
-    fixedIn: r.fixed_in_firmware_id ? { id: r.fixed_in_firmware_id, version: r.fixed_in_version } : null,
-    firmware: r.firmware_id ? { id: r.firmware_id, version: r.firmware_version } : null,
+    fixedIn: r.fixed_in_firmware_id && r.fixed_in_version !== null ? { id: r.fixed_in_firmware_id, version: r.fixed_in_version } : null,
+    firmware: r.firmware_id && r.firmware_version !== null ? { id: r.firmware_id, version: r.firmware_version } : null,
     locked: r.locked,
     author: person(r.author_id, r.author_handle, r.author_name, r.author_deleted_at),
     replyCount: r.reply_count,
@@ -236,7 +275,26 @@ export interface PostRow {
   editedAt: Date | null;
 }
 
-function postRow(r: Record<string, any>): PostRow {
+/** A post joined with its author and the maker its author is staff of. */
+interface PostRecord {
+  id: number;
+  thread_id: number;
+  author_id: number | null;
+  author_handle: string | null;
+  author_name: string | null;
+  author_deleted_at: Date | null;
+  staff_maker_id: number | null;
+  staff_maker_name: string | null;
+  body_source: string;
+  body_html: string;
+  is_opening: boolean;
+  is_official_response: boolean;
+  hidden_reason: string | null;
+  created_at: Date;
+  edited_at: Date | null;
+}
+
+function postRow(r: PostRecord): PostRow {
   return {
     id: r.id,
     threadId: r.thread_id,
@@ -423,7 +481,23 @@ export async function insertNotifications(
 
 export const NOTIFICATIONS_PAGE_SIZE = 30;
 
-export async function listNotifications(db: Db, userId: number) {
+/** A notification joined with its thread, model and the post's author. */
+interface NotificationRecord {
+  id: number;
+  kind: NotificationKind;
+  thread_id: number;
+  title: string;
+  model_name: string;
+  post_id: number | null;
+  author_id: number | null;
+  author_handle: string | null;
+  author_name: string | null;
+  author_deleted_at: Date | null;
+  created_at: Date;
+  read_at: Date | null;
+}
+
+export async function listNotifications(db: Db, userId: number): Promise<NotificationView[]> {
   return db('notifications as n')
     .join('threads as t', 't.id', 'n.thread_id')
     .join('models as m', 'm.id', 't.model_id')
@@ -434,11 +508,11 @@ export async function listNotifications(db: Db, userId: number) {
     .limit(NOTIFICATIONS_PAGE_SIZE)
     .select('n.*', 't.title', 'm.name as model_name', 'p.author_id', 'u.handle as author_handle', 'u.name as author_name', 'u.deleted_at as author_deleted_at')
     .then((rows) =>
-      rows.map((r: Record<string, any>) => ({
-        id: r.id as number,
+      rows.map((r: NotificationRecord) => ({
+        id: r.id,
         kind: r.kind,
-        thread: { id: r.thread_id as number, title: r.title as string, modelName: r.model_name as string },
-        postId: r.post_id as number | null,
+        thread: { id: r.thread_id, title: r.title, modelName: r.model_name },
+        postId: r.post_id,
         actor: r.post_id ? person(r.author_id, r.author_handle, r.author_name, r.author_deleted_at) : null,
         createdAt: iso(r.created_at)!,
         read: r.read_at !== null,

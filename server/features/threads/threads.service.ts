@@ -44,7 +44,7 @@ class ThreadLockedError extends AppError {
 
 async function approvedModel(db: Knex | Knex.Transaction, slug: string) {
   const model = await threads.findModelBySlug(db, slug);
-  if (!model || model.status !== 'approved') throw new NotFoundError(`There is no model "${slug}" in the catalogue.`);
+  if (model?.status !== 'approved') throw new NotFoundError(`There is no model "${slug}" in the catalogue.`);
   return model;
 }
 
@@ -326,7 +326,7 @@ export async function moveThread(db: Knex, moderator: SessionUser, threadId: num
   await db.transaction(async (trx) => {
     const { thread, model } = await existingThread(trx, threadId, true);
     const target = await threads.findModelBySlug(trx, targetSlug);
-    if (!target || target.status !== 'approved') {
+    if (target?.status !== 'approved') {
       throw new ValidationError(`modelSlug: there is no model "${targetSlug}" in the catalogue`, { fields: { modelSlug: 'unknown model' } });
     }
     assertIndependentOf(moderator, [model.maker.id, target.maker.id]);

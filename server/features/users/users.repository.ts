@@ -17,7 +17,22 @@ export interface UserRow {
   deletedAt: Date | null;
 }
 
-function toUser(r: Record<string, any>): UserRow {
+/** A row of the users table. */
+interface UserRecord {
+  id: number;
+  provider: string;
+  provider_id: string | null;
+  handle: string | null;
+  name: string;
+  email: string | null;
+  avatar_url: string | null;
+  email_on_decision: boolean;
+  email_on_reply: boolean;
+  created_at: Date;
+  deleted_at: Date | null;
+}
+
+function toUser(r: UserRecord): UserRow {
   return {
     id: r.id,
     provider: r.provider,
@@ -168,6 +183,20 @@ export async function listMakers(db: Db): Promise<MakerSummary[]> {
 
 export const USERS_PAGE_SIZE = 25;
 
+/** A user as the admin list selects it, with roles and the maker they are staff of. */
+interface AdminUserRecord {
+  id: number;
+  handle: string | null;
+  name: string;
+  email: string | null;
+  roles: Role[];
+  maker_id: number | null;
+  maker_slug: string | null;
+  maker_name: string | null;
+  created_at: Date;
+  deleted_at: Date | null;
+}
+
 export async function searchUsers(db: Db, query: AdminUserListQuery): Promise<{ users: AdminUser[]; total: number }> {
   const filtered = db('users as u').modify((q) => {
     if (query.q) {
@@ -193,7 +222,7 @@ export async function searchUsers(db: Db, query: AdminUserListQuery): Promise<{ 
     .offset((query.page - 1) * USERS_PAGE_SIZE);
   return {
     total: Number(count),
-    users: rows.map((r: Record<string, any>) => ({
+    users: rows.map((r: AdminUserRecord) => ({
       id: r.id,
       handle: r.handle ?? '',
       name: r.name,

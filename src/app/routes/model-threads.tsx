@@ -44,7 +44,8 @@ export function ModelThreadsRoute() {
         </p>
       </header>
 
-      <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Filter threads">
+      <fieldset className="flex flex-wrap items-center gap-2">
+        <legend className="sr-only">Filter threads</legend>
         <button type="button" aria-pressed={!!filters.open} className={chip(!!filters.open)} onClick={() => toggle('open')}>
           Not fixed yet
         </button>
@@ -69,7 +70,7 @@ export function ModelThreadsRoute() {
         <span className="ml-auto text-caption text-ink-faint">
           {total} {total === 1 ? 'thread' : 'threads'}, latest activity first
         </span>
-      </div>
+      </fieldset>
 
       {writing ? (
         <NewThreadForm modelSlug={model.slug} firmware={model.firmware} onCreated={(id) => navigate(`/threads/${id}`)} />

@@ -93,7 +93,9 @@ beforeAll(async () => {
 
 /** Every serial number the demo's FIT files were written with. */
 function serialNumbersIn(value: unknown, found = new Set<number>()): Set<number> {
-  if (Array.isArray(value)) value.forEach((v) => serialNumbersIn(v, found));
+  if (Array.isArray(value)) {
+    for (const v of value) serialNumbersIn(v, found);
+  }
   else if (value && typeof value === 'object') {
     for (const [key, v] of Object.entries(value)) {
       if (key === 'serialNumber' && typeof v === 'number') found.add(v);

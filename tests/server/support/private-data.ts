@@ -55,7 +55,9 @@ function checkValue(value: unknown, path: string, secrets: KnownSecrets, out: Fi
 export function findPrivateData(body: unknown, secrets: KnownSecrets, path = '$'): Finding[] {
   const out: Finding[] = [];
   const walk = (value: unknown, at: string) => {
-    if (Array.isArray(value)) value.forEach((item, i) => walk(item, `${at}[${i}]`));
+    if (Array.isArray(value)) {
+      for (const [i, item] of value.entries()) walk(item, `${at}[${i}]`);
+    }
     else if (value && typeof value === 'object') {
       for (const [key, item] of Object.entries(value)) {
         checkKey(key, `${at}.${key}`, out);
@@ -72,14 +74,14 @@ export function findPrivateDataInCsv(text: string, secrets: KnownSecrets, path =
   const rows = parseCsv(text);
   const [header = [], ...body] = rows;
   const out: Finding[] = [];
-  header.forEach((name) => checkKey(name, `${path}[header].${name}`, out));
-  body.forEach((row, r) =>
-    row.forEach((cell, c) => {
+  for (const name of header) checkKey(name, `${path}[header].${name}`, out);
+  for (const [r, row] of body.entries()) {
+    for (const [c, cell] of row.entries()) {
       const at = `${path}[${r + 1}].${header[c] ?? c}`;
       const number = cell.trim() === '' ? Number.NaN : Number(cell);
       checkValue(Number.isFinite(number) ? number : cell, at, secrets, out);
-    }),
-  );
+    }
+  }
   return out;
 }
 
@@ -92,16 +94,28 @@ export function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const ch = text[i]!;
     if (quoted) {
-      if (ch === '"' && text[i + 1] === '"') (cell += '"'), i++;
+      if (ch === '"' && text[i + 1] === '"') {
+        cell += '"';
+        i++;
+      }
       else if (ch === '"') quoted = false;
       else cell += ch;
     } else if (ch === '"') quoted = true;
-    else if (ch === ',') row.push(cell), (cell = '');
+    else if (ch === ',') {
+      row.push(cell);
+      cell = '';
+    }
     else if (ch === '\n' || ch === '\r') {
       if (ch === '\r' && text[i + 1] === '\n') i++;
-      row.push(cell), rows.push(row), (row = []), (cell = '');
+      row.push(cell);
+      rows.push(row);
+      row = [];
+      cell = '';
     } else cell += ch;
   }
-  if (cell !== '' || row.length > 0) row.push(cell), rows.push(row);
+  if (cell !== '' || row.length > 0) {
+    row.push(cell);
+    rows.push(row);
+  }
   return rows.filter((r) => r.some((c) => c !== ''));
 }

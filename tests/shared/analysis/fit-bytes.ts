@@ -51,7 +51,9 @@ export class FitBytes {
     if (!definition) throw new Error(`local ${local} not defined`);
     if (options.compressedTime !== undefined) this.bytes.push(0x80 | (local << 5) | (options.compressedTime & 0x1f));
     else this.bytes.push(local);
-    definition.fields.forEach(([, baseType, size], i) => this.bytes.push(...encodeValue(values[i] ?? null, baseType, size ?? WIDTH[baseType], definition.bigEndian)));
+    for (const [i, [, baseType, size]] of definition.fields.entries()) {
+      this.bytes.push(...encodeValue(values[i] ?? null, baseType, size ?? WIDTH[baseType], definition.bigEndian));
+    }
     const developer = options.developer ?? new Array(definition.developerBytes).fill(0xff);
     this.bytes.push(...developer);
     return this;

@@ -1,7 +1,7 @@
 import { Decoder, Profile, Stream } from '@garmin/fitsdk';
 import { describe, expect, it } from 'vitest';
 import { crc16Arc } from '@shared/analysis/fit-crc';
-import { isPositionDeveloperField, isPositionField, POSITION_FIELDS } from '@shared/fit/position-fields';
+import { isPositionDeveloperField, POSITION_FIELDS } from '@shared/fit/position-fields';
 import { FitStructureError, stripFitLocation } from '@shared/fit/strip-location';
 import {
   chained,

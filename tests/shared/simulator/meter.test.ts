@@ -56,12 +56,15 @@ describe('recordWithMeter', () => {
     const dual = record({ position: 'dual' });
 
     const rightPercents: number[] = [];
-    dual.power.forEach((watts, i) => {
+    for (const [i, watts] of dual.power.entries()) {
       const balance = dual.balance![i];
-      if (watts === 0) return expect(balance).toBe(INVALID_BALANCE);
+      if (watts === 0) {
+        expect(balance).toBe(INVALID_BALANCE);
+        continue;
+      }
       expect(balance & BALANCE_RIGHT_FLAG).toBe(BALANCE_RIGHT_FLAG);
       rightPercents.push(balance & 0x7f);
-    });
+    }
 
     expect(sum(rightPercents) / rightPercents.length).toBeCloseTo(52, 0);
   });

@@ -9,7 +9,7 @@ function measuredBiasPercent(pair: SimulatedPair, options: PairOptions): number 
   const onTrueClock = (bytes: Uint8Array, clockOffset = 0) => {
     const decoded = decodeWithSdk(bytes);
     const bySecond = new Map<number, number>();
-    decoded.timestamps.forEach((t, i) => bySecond.set(t - START - clockOffset, decoded.power[i] ?? 0));
+    for (const [i, t] of decoded.timestamps.entries()) bySecond.set(t - START - clockOffset, decoded.power[i] ?? 0);
     return bySecond;
   };
   const a = onTrueClock(pair.a, options.a.clockOffsetSeconds);

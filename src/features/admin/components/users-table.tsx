@@ -26,7 +26,8 @@ export function UsersTable() {
 
   return (
     <div className="space-y-4">
-      <form role="search" onSubmit={search} className="flex flex-wrap items-end gap-2">
+      <search>
+    <form onSubmit={search} className="flex flex-wrap items-end gap-2">
         <div>
           <label htmlFor="user-search" className="mb-1 block text-caption font-medium text-ink-soft">
             Search by name, handle or e-mail
@@ -37,6 +38,7 @@ export function UsersTable() {
           Search
         </button>
       </form>
+    </search>
       {problem && (
         <p role="alert" className="rounded-lg bg-alert-100 px-3 py-2 text-caption font-medium text-alert-800">
           {problem}

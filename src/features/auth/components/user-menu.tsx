@@ -20,7 +20,7 @@ export function UserMenu() {
   }
   const user = me.data;
   return (
-    <div className="flex items-center gap-2" aria-label="Your account">
+    <nav className="flex items-center gap-2" aria-label="Your account">
       {user.roles.includes('admin') && (
         <Link to="/admin/users" className="rounded-full px-3 py-1.5 text-caption font-medium text-ink-soft hover:bg-paper-deep hover:text-ink">
           Admin
@@ -43,6 +43,6 @@ export function UserMenu() {
       >
         Sign out
       </button>
-    </div>
+    </nav>
   );
 }

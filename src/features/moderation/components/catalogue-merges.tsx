@@ -40,7 +40,10 @@ function EntryCuration({ type, title, entries, affects }: { type: CatalogueEntry
     <section aria-label={title} className="space-y-4 rounded-card border border-paper-line bg-white p-5 shadow-card">
       <h3 className="text-lead font-semibold text-ink">{title}</h3>
       {merged && <ActionDone>{merged}</ActionDone>}
-      <EntryPicker label={`The ${noun} to rename or merge away`} entries={entries} value={chosenId} onChange={(id) => (setChosenId(id), setMerged(null))} />
+      <EntryPicker label={`The ${noun} to rename or merge away`} entries={entries} value={chosenId} onChange={(id) => {
+        setChosenId(id);
+        setMerged(null);
+      }} />
       {chosen ? (
         <div key={chosen.id}>
           <ToolSection title={`Rename “${chosen.name}”`}>

@@ -13,5 +13,5 @@ export function canCurate(me: CurrentUser | null | undefined): boolean {
 
 export function CuratorOnly({ children }: { children: ReactNode }) {
   const me = useMe();
-  return canCurate(me.data) ? <>{children}</> : null;
+  return canCurate(me.data) ? children : null;
 }

@@ -70,7 +70,10 @@ export function MergeForm({
   }
   return (
     <form onSubmit={review} className="space-y-3">
-      <EntryPicker label={targetLabel} entries={targets.filter((t) => t.id !== from.id)} value={intoId} onChange={(id) => (setIntoId(id), setConfirming(false))} />
+      <EntryPicker label={targetLabel} entries={targets.filter((t) => t.id !== from.id)} value={intoId} onChange={(id) => {
+        setIntoId(id);
+        setConfirming(false);
+      }} />
       <span className="flex flex-col gap-1">
         <label htmlFor={reasonId} className="text-caption font-medium text-ink">
           Why they are the same (kept in the audit log)
@@ -95,6 +98,7 @@ export function MergeForm({
             <li>This cannot be undone here.</li>
           </ul>
           <div className="flex flex-wrap gap-2">
+            {/* biome-ignore lint/a11y/noAutofocus: the confirmation step replaces the button just pressed, so focus moves to its first action */}
             <button type="button" autoFocus disabled={merge.isPending} onClick={confirm} className={dangerButton}>
               {merge.isPending ? 'Merging…' : `Merge into “${into.name}”`}
             </button>

@@ -1,4 +1,4 @@
-import { type QueryKey } from '@tanstack/react-query';
+import type { QueryKey } from '@tanstack/react-query';
 import { useId, useState } from 'react';
 import { type NoteSubject, usePinNote } from '../api/pin-note';
 import { ActionDone, ActionError, dangerButton, inputClass, primaryButton } from './curation-parts';
@@ -18,7 +18,12 @@ export function NoteEditor({ subject, id, current, affects }: { subject: NoteSub
   }
   function remove() {
     setDone(null);
-    pin.mutate({ subject, id, body: null }, { onSuccess: () => (setBody(''), setDone('The note is taken down.')) });
+    pin.mutate({ subject, id, body: null }, {
+      onSuccess: () => {
+        setBody('');
+        setDone('The note is taken down.');
+      },
+    });
   }
   return (
     <form onSubmit={save} className="space-y-2">

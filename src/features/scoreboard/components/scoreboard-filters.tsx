@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { MEASUREMENT_POSITIONS } from '@shared/analysis/types';
 import { MODEL_KIND_LABELS, MODEL_KINDS } from '@shared/schemas/catalogue';
 import type { ScoreboardFilters } from '../api/get-scoreboard';
@@ -10,18 +10,23 @@ export function ScoreboardFiltersForm({ filters, onChange }: { filters: Scoreboa
   const makers = useMakers();
   const [search, setSearch] = useState(filters.q ?? '');
   useEffect(() => setSearch(filters.q ?? ''), [filters.q]);
-  // Searching waits for a pause in typing, so the URL and the server are not hit per key.
+  // Searching waits for a pause in typing, so the URL and the server are not hit per key;
+  // the pause restarts only when the text changes, so the latest filters are read from a ref.
+  const latest = useRef({ filters, onChange });
+  latest.current = { filters, onChange };
   useEffect(() => {
-    if (search === (filters.q ?? '')) return;
-    const timer = setTimeout(() => onChange({ ...filters, q: search || undefined, page: 1 }), 300);
+    const { filters: current, onChange: change } = latest.current;
+    if (search === (current.q ?? '')) return;
+    const timer = setTimeout(() => change({ ...latest.current.filters, q: search || undefined, page: 1 }), 300);
     return () => clearTimeout(timer);
-  }, [search]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [search]);
 
   const set = (key: keyof ScoreboardFilters) => (event: React.ChangeEvent<HTMLSelectElement>) =>
     onChange({ ...filters, [key]: event.target.value || undefined, page: 1 });
 
   return (
-    <form role="search" className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5" onSubmit={(event) => event.preventDefault()}>
+    <search>
+    <form className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5" onSubmit={(event) => event.preventDefault()}>
       <label className="text-caption font-medium text-ink-soft lg:col-span-2">
         Search models and makers
         <input type="search" value={search} onChange={(event) => setSearch(event.target.value)} className={fieldClass} placeholder="e.g. a model name" />
@@ -69,5 +74,6 @@ export function ScoreboardFiltersForm({ filters, onChange }: { filters: Scoreboa
         Only models with enough evidence (at least 3 accepted rides by 2 riders)
       </label>
     </form>
+    </search>
   );
 }

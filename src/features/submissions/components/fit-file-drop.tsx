@@ -38,6 +38,7 @@ export function FitFileDrop({
 
   return (
     <div>
+      {/* biome-ignore lint/a11y/noStaticElementInteractions: dropping a file is a pointer shortcut; the labelled file input inside is the keyboard way */}
       <div
         onDragOver={(e) => {
           e.preventDefault();

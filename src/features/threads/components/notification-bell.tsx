@@ -53,7 +53,7 @@ export function NotificationBell() {
         )}
       </button>
       {open && (
-        <div className="absolute right-0 z-20 mt-2 w-80 rounded-card border border-paper-line bg-white p-2 shadow-card" role="region" aria-label="Notifications">
+        <section className="absolute right-0 z-20 mt-2 w-80 rounded-card border border-paper-line bg-white p-2 shadow-card" aria-label="Notifications">
           <div className="flex items-center justify-between px-2 py-1">
             <p className="text-caption font-semibold text-ink">Notifications</p>
             {unreadCount > 0 && (
@@ -76,7 +76,12 @@ export function NotificationBell() {
                     }}
                     className={`block rounded-lg px-2 py-2 text-caption hover:bg-paper-deep ${n.read ? 'text-ink-soft' : 'font-medium text-ink'}`}
                   >
-                    {!n.read && <span className="mr-1.5 inline-block h-2 w-2 rounded-full bg-ember-500" aria-label="unread" />}
+                    {!n.read && (
+                      <>
+                        <span className="mr-1.5 inline-block h-2 w-2 rounded-full bg-ember-500" aria-hidden="true" />
+                        <span className="sr-only">Unread: </span>
+                      </>
+                    )}
                     {n.actor ? `${n.actor.name} ${KIND_TEXT[n.kind]}` : KIND_TEXT[n.kind]} “{n.thread.title}” ({n.thread.modelName})
                     <span className="block text-ink-faint">{formatAgo(n.createdAt)}</span>
                   </Link>
@@ -84,7 +89,7 @@ export function NotificationBell() {
               ))}
             </ul>
           )}
-        </div>
+        </section>
       )}
     </div>
   );
