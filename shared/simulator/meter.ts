@@ -24,6 +24,8 @@ export interface MeterModelOptions extends DropoutRates {
   position: MeterPosition;
   /** Multiplies the true power: 1.02 reads 2 % high. */
   scale?: number;
+  /** The scale creeps by this many percent per hour of the ride (a meter warming up unzeroed). */
+  driftPercentPerHour?: number;
   /** Noise SD in W, added in quadrature to noisePercent. */
   noiseWatts?: number;
   /** Noise SD in % of the true power. */
@@ -131,7 +133,8 @@ export function recordWithMeter(ride: TrueRide, meter: MeterModelOptions, seed: 
 
 /** What the meter reads for each leg before the head unit smooths it; single-sided meters double their leg. */
 function measurePower(ride: TrueRide, meter: MeterModelOptions, firstSecond: number, length: number, normal: () => number) {
-  const gain = (meter.scale ?? 1) * (1 - (meter.drivetrainLossPercent ?? 0) / 100);
+  const baseGain = (meter.scale ?? 1) * (1 - (meter.drivetrainLossPercent ?? 0) / 100);
+  const driftPerSecond = (meter.driftPercentPerHour ?? 0) / 100 / 3600;
   const noiseWatts = meter.noiseWatts ?? 2;
   const noiseFraction = (meter.noisePercent ?? 1) / 100;
   const left = new Float64Array(length);
@@ -143,6 +146,7 @@ function measurePower(ride: TrueRide, meter: MeterModelOptions, firstSecond: num
     const secondNoise = normal();
     if (truePower <= 0) continue; // a meter reads zero while nobody pedals
     const share = ride.rightShare[firstSecond + i];
+    const gain = baseGain * (1 + driftPerSecond * (firstSecond + i));
     const sd = Math.hypot(noiseWatts, noiseFraction * truePower);
     const reading = gain * truePower + sd * noise;
     switch (meter.position) {
