@@ -77,6 +77,10 @@ const outFlagged = outOfWindow.filter((o) => o.boundFlagged).length;
 const inFlagged = inWindow.filter((o) => o.boundFlagged).length;
 console.log(`Out-of-window pairs (|offset| > ${MAX_CLOCK_OFFSET_SECONDS} s): ${outOfWindow.length}, flagged on a search bound: ${outFlagged}; in-window pairs flagged: ${inFlagged}`);
 console.log('');
+// No sweep pair drifts, so every drift flag is a false one.
+const driftFlagged = inWindow.filter((o) => o.result!.flags.some((flag) => flag.code === 'difference_drift')).length;
+console.log(`In-window pairs flagged for an in-ride drift (none drifts): ${driftFlagged} (${pct(driftFlagged, inWindow.length).trim()})`);
+console.log('');
 
 const cleanFalse = clean.filter((o) => Object.values(o.result!.dropouts).some((side) => typeof side === 'object' && (side.power.count > 0 || side.cadence.count > 0))).length;
 const goals = [
@@ -88,6 +92,7 @@ const goals = [
   { name: 'offset exact in ≥ 99 % of in-window pairs', met: inWindow.filter((o) => o.offsetError === 0).length / inWindow.length >= GOAL_SHARE, figure: pct(inWindow.filter((o) => o.offsetError === 0).length, inWindow.length) },
   { name: 'every out-of-window pair flagged', met: outFlagged === outOfWindow.length, figure: `${outFlagged}/${outOfWindow.length}` },
   { name: 'no pair refused', met: failed.length === 0, figure: String(failed.length) },
+  { name: 'false in-ride drift flags in ≤ 1 % of in-window pairs', met: driftFlagged / inWindow.length <= 0.01, figure: pct(driftFlagged, inWindow.length) },
 ];
 console.log('Goals');
 for (const goal of goals) console.log(`  ${goal.met ? 'met    ' : 'NOT MET'}  ${goal.name}: ${goal.figure.trim()}`);

@@ -5,6 +5,7 @@ import { biasOverMatched, energySeconds, matchedSeconds } from './bias';
 import { alignCadences, findCadenceLag } from './cadence-lag';
 import { assertRecordingUsable, decodeFit } from './decode-fit';
 import { differenceSeries } from './difference-series';
+import { biasByTemperatureBand, differenceDrift, driftBlocks } from './drift';
 import { analyseDropouts } from './dropouts';
 import { AnalysisError, attributeToSide, formatDuration } from './errors';
 import { qualityFlags } from './flags';
@@ -14,7 +15,7 @@ import { analysePeaks } from './peaks';
 import { smoothingSignature } from './smoothing';
 import { findSteadySegments } from './steady-segments';
 import { sharedTimeline, toSecondGrid } from './timeline';
-import type { CompareOptions, ComparisonResult, RideStream, Side } from './types';
+import type { BatteryReading, CompareOptions, ComparisonResult, RideStream, RideTemperature, Side } from './types';
 
 export { METHOD_VERSION };
 
@@ -43,7 +44,9 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
   const { dropouts, aPowerDropout, bPowerDropout } = analyseDropouts(timeline, { cadence, smoothingWindowSeconds });
   const comparable = comparablePower(timeline, options);
   const matched = matchedSeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout);
-  const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, energySeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout));
+  const usable = energySeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout);
+  const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, usable);
+  const drift = differenceDrift(driftBlocks(comparable.a, comparable.b, usable));
   const naive = biasOverMatched(timeline.aPower, timeline.bPower, energySeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout));
   const likeForLike = {
     mode: comparable.mode,
@@ -86,9 +89,45 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
         b: { ...b.recording, durationSeconds: b.recording.endTime - b.recording.startTime },
       },
       identicalStreams: sameOnMatchedSeconds(comparable.a, comparable.b, matched),
+      drift,
     }),
     series: differenceSeries(comparable.a, comparable.b, matched),
+    drift,
+    temperature: timeline.temperature && rideTemperature(comparable.a, comparable.b, usable, timeline.temperature),
+    battery: {
+      a: batteryReadings(a, timeline.start + clockOffsetSeconds),
+      b: batteryReadings(b, timeline.start),
+    },
   };
+}
+
+function rideTemperature(a: Float64Array, b: Float64Array, usable: Uint8Array, celsius: Float64Array): RideTemperature | null {
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  let sum = 0;
+  let count = 0;
+  for (const value of celsius) {
+    if (!Number.isFinite(value)) continue;
+    min = Math.min(min, value);
+    max = Math.max(max, value);
+    sum += value;
+    count++;
+  }
+  if (count === 0) return null;
+  const bands = biasByTemperatureBand(a, b, usable, celsius).map(({ band, seconds, percent }) => ({ band, seconds, percent }));
+  return { minCelsius: min, maxCelsius: max, meanCelsius: sum / count, bands };
+}
+
+/** Each change of the reported battery state, on seconds from the alignment start (`zero` on the device's own clock). */
+function batteryReadings(stream: RideStream, zero: number): BatteryReading[] {
+  const readings: BatteryReading[] = [];
+  for (const report of stream.powerMeterReports ?? []) {
+    if (report.time === null || (report.batteryStatus === null && report.batteryVolts === null)) continue;
+    const last = readings.at(-1);
+    if (last && last.status === report.batteryStatus && last.volts === report.batteryVolts) continue;
+    readings.push({ atSeconds: Math.round(report.time - zero), status: report.batteryStatus, volts: report.batteryVolts });
+  }
+  return readings;
 }
 
 /** Decodes both files and compares them; errors name the file they concern. */

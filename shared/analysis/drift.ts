@@ -1,17 +1,5 @@
 import { studentTQuantile } from '../statistics/distributions';
-
-/** The difference between the meters in blocks of a ride, and the straight line through them. */
-export interface DifferenceDrift {
-  /** Slope of A's difference from B, in percentage points per hour of the ride. */
-  percentPerHour: number;
-  lower: number;
-  upper: number;
-  /** The same slope in watts per hour (of the mean difference A − B per second). */
-  wattsPerHour: number;
-  blocks: number;
-  /** Hours between the first and the last block's middle. */
-  spanHours: number;
-}
+import type { DriftEstimate } from './types';
 
 export interface DriftBlock {
   /** Hours from the start of the aligned ride to the block's middle usable second. */
@@ -55,7 +43,7 @@ export function driftBlocks(a: Float64Array, b: Float64Array, usable: Uint8Array
  * interval on blocks − 2 degrees of freedom (as R's lm and confint give it).
  * Null below MIN_DRIFT_BLOCKS.
  */
-export function differenceDrift(blocks: DriftBlock[], confidence = 0.95): DifferenceDrift | null {
+export function differenceDrift(blocks: DriftBlock[], confidence = 0.95): DriftEstimate | null {
   const n = blocks.length;
   if (n < MIN_DRIFT_BLOCKS) return null;
   const slope = (y: (block: DriftBlock) => number) => {

@@ -2,7 +2,7 @@ import { formatDuration } from './errors';
 import { SMOOTHING_MISMATCH_RATIO } from './smoothing';
 import type { CadenceLag } from './cadence-lag';
 import { MAX_CADENCE_LAG_SECONDS, MAX_CLOCK_OFFSET_SECONDS } from './method';
-import type { Alignment, Bias, LikeForLike, QualityFlag, Side, Smoothing } from './types';
+import type { Alignment, Bias, DriftEstimate, LikeForLike, QualityFlag, Side, Smoothing } from './types';
 import type { SecondGrid } from './timeline';
 
 const COMFORTABLE_OVERLAP_SECONDS = 20 * 60;
@@ -15,6 +15,9 @@ const MANY_GAPS = 10;
 const MANY_GAP_FRACTION = 0.05;
 /** Estimated head-unit averages this many seconds apart count as a smoothing mismatch (method 2). */
 const SMOOTHING_WINDOW_MISMATCH_SECONDS = 2;
+/** A difference that moves this many points per hour, surely (interval clear of zero), over at least an hour of blocks: shorter rides confuse a trend with the interval structure of the ride. */
+export const STRONG_DRIFT_PERCENT_PER_HOUR = 1;
+const MIN_DRIFT_SPAN_HOURS = 1;
 
 const DEVICE_NAMES: Record<Side, string> = { a: 'Device A', b: 'Device B' };
 
@@ -27,6 +30,7 @@ export interface FlagInputs {
   grids: Record<Side, SecondGrid>;
   gaps: Record<Side, { longGapCount: number; longGapSeconds: number; durationSeconds: number }>;
   identicalStreams: boolean;
+  drift?: DriftEstimate | null;
 }
 
 export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
@@ -70,6 +74,15 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
     if (gaps.longGapCount > MANY_GAPS || gaps.longGapSeconds > MANY_GAP_FRACTION * gaps.durationSeconds) {
       flags.push({ code: 'many_gaps', severity: 'warning', message: `${DEVICE_NAMES[side]}'s recording has ${gaps.longGapCount} gaps longer than 5 s (${formatDuration(gaps.longGapSeconds)} in all).` });
     }
+  }
+  const drift = inputs.drift;
+  if (drift && drift.spanHours >= MIN_DRIFT_SPAN_HOURS && Math.abs(drift.percentPerHour) >= STRONG_DRIFT_PERCENT_PER_HOUR && (drift.lower > 0 || drift.upper < 0)) {
+    const direction = drift.percentPerHour > 0 ? 'grows' : 'shrinks';
+    flags.push({
+      code: 'difference_drift',
+      severity: 'warning',
+      message: `The difference between the meters ${direction} by ${Math.abs(drift.percentPerHour).toFixed(1)} points per hour over the ride: one meter may not have been zeroed before the start, or it drifts as it warms or cools. Zero it as its maker's instructions say, before the ride, not while riding.`,
+    });
   }
   if (likeForLike.mode === 'mixed') {
     flags.push({ code: 'mixed_comparison', severity: 'warning', message: 'One meter measures a single leg and the other does not measure that leg on its own, so leg imbalance is mixed into the difference.' });

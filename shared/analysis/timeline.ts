@@ -11,6 +11,8 @@ export interface SecondGrid {
   power: Float64Array;
   cadence: Float64Array;
   rightBalance: Float64Array;
+  /** Record temperature in °C where the file records it. */
+  temperature?: Float64Array;
 }
 
 export function toSecondGrid(stream: RideStream): SecondGrid {
@@ -26,6 +28,7 @@ export function toSecondGrid(stream: RideStream): SecondGrid {
     power: resample(stream.timestamps, stream.powerWatts, start, length),
     cadence: resample(stream.timestamps, stream.cadenceRpm, start, length),
     rightBalance: resample(stream.timestamps, stream.rightBalancePercent, start, length),
+    ...(stream.temperatureCelsius && { temperature: resample(stream.timestamps, stream.temperatureCelsius, start, length) }),
   };
 }
 
@@ -103,6 +106,8 @@ export interface SharedTimeline {
   bCadence: Float64Array;
   aRightBalance: Float64Array;
   bRightBalance: Float64Array;
+  /** The air around the ride in °C: A's head unit's reading, else B's; null when neither records it. */
+  temperature: Float64Array | null;
 }
 
 /** A's second tA is B's second tA − offset (offset: how far A's clock runs ahead). */
@@ -122,5 +127,16 @@ export function sharedTimeline(a: SecondGrid, b: SecondGrid, clockOffsetSeconds:
     bCadence: b.cadence.subarray(bFrom, bFrom + length),
     aRightBalance: a.rightBalance.subarray(aFrom, aFrom + length),
     bRightBalance: b.rightBalance.subarray(bFrom, bFrom + length),
+    temperature: sharedTemperature(a.temperature?.subarray(aFrom, aFrom + length), b.temperature?.subarray(bFrom, bFrom + length), length),
   };
+}
+
+function sharedTemperature(a: Float64Array | undefined, b: Float64Array | undefined, length: number): Float64Array | null {
+  if (!a && !b) return null;
+  const out = new Float64Array(length);
+  for (let i = 0; i < length; i++) {
+    const fromA = a ? a[i] : Number.NaN;
+    out[i] = fromA === fromA ? fromA : b ? b[i] : Number.NaN;
+  }
+  return out;
 }

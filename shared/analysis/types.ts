@@ -213,6 +213,36 @@ export interface DifferenceSeries {
   differenceWatts: (number | null)[];
 }
 
+/** The line through the ride's five-minute differences (shared/analysis/drift.ts). */
+export interface DriftEstimate {
+  /** Slope of A's difference from B, in percentage points per hour of the ride, with its interval. */
+  percentPerHour: number;
+  lower: number;
+  upper: number;
+  /** The same slope in watts per hour (of the mean difference A − B per second). */
+  wattsPerHour: number;
+  blocks: number;
+  /** Hours between the first and the last block's middle. */
+  spanHours: number;
+}
+
+export interface RideTemperature {
+  minCelsius: number;
+  maxCelsius: number;
+  meanCelsius: number;
+  /** The ride's bias within each temperature band it passed through. */
+  bands: { band: string; seconds: number; percent: number | null }[];
+}
+
+/** A change of the power meter's reported battery state during the ride. */
+export interface BatteryReading {
+  /** Seconds from the alignment start (negative: before the shared part began). */
+  atSeconds: number;
+  /** FIT battery_status: 1 new … 5 critical (FIT SDK profile). */
+  status: number | null;
+  volts: number | null;
+}
+
 export interface ComparisonResult {
   methodVersion: number;
   positions: { a: MeasurementPosition; b: MeasurementPosition };
@@ -237,4 +267,10 @@ export interface ComparisonResult {
   smoothing: Smoothing;
   flags: QualityFlag[];
   series: DifferenceSeries;
+  /** How the difference moved over the ride; null on rides shorter than four five-minute blocks. */
+  drift?: DriftEstimate | null;
+  /** Null when neither head unit records temperature. */
+  temperature?: RideTemperature | null;
+  /** The power meters' battery reports, where the files carry them. */
+  battery?: { a: BatteryReading[]; b: BatteryReading[] };
 }

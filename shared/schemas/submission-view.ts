@@ -21,6 +21,8 @@ const dropoutSummary = z.object({
 });
 const bandBias = z.object({ label: z.string(), from: num, to: maybe, matchedSeconds: num, percent: maybe, meanDifferenceWatts: maybe });
 const pair = z.object({ a: maybe, b: maybe });
+/** Seconds from the alignment start, never a clock time. */
+const batteryReading = z.object({ atSeconds: num, status: maybe, volts: maybe });
 
 /** The per-ride comparison as the public sees it: relative seconds only, no devices, no clock times. */
 export const rideComparisonView = z.object({
@@ -86,6 +88,13 @@ export const rideComparisonView = z.object({
     bWatts: z.array(maybe),
     differenceWatts: z.array(maybe),
   }),
+  // Absent on rides analysed before they were computed.
+  drift: z.object({ percentPerHour: num, lower: num, upper: num, wattsPerHour: num, blocks: num, spanHours: num }).nullable().optional(),
+  temperature: z
+    .object({ minCelsius: num, maxCelsius: num, meanCelsius: num, bands: z.array(z.object({ band: z.string(), seconds: num, percent: maybe })) })
+    .nullable()
+    .optional(),
+  battery: z.object({ a: z.array(batteryReading), b: z.array(batteryReading) }).optional(),
 });
 export type RideComparisonView = z.infer<typeof rideComparisonView>;
 

@@ -40,6 +40,10 @@ export interface FitWriterOptions {
   includeLocation?: boolean;
   /** Indoor rides are written with the indoor-cycling sub-sport. */
   indoor?: boolean;
+  /** The head unit's thermometer: °C at the first record, changing linearly by the hour (FIT record temperature, whole °C). */
+  temperature?: { startCelsius: number; changePerHour?: number };
+  /** The sensor's battery as it reports it during the ride (device_info of the sensor; needs `sensor`). */
+  sensorBattery?: { atFraction: number; status: number; volts: number }[];
 }
 
 /** One message as the SDK's Encoder takes it: field names of the FIT profile, values already in units (scales applied by the SDK). */
@@ -116,8 +120,21 @@ export function activityMessages(recording: MeterRecording, device: DeviceIdenti
         power: recording.power[i],
         cadence: recording.cadence[i],
         leftRightBalance: balance === undefined || balance === INVALID_BALANCE ? undefined : balance,
+        temperature: options.temperature && Math.round(options.temperature.startCelsius + ((options.temperature.changePerHour ?? 0) * (recording.timestamps[i] - recording.timestamps[0])) / 3600),
       },
     ]);
+    for (const report of batteryAt(options, i, count)) {
+      messages.push([
+        MESG_NUM.deviceInfo,
+        {
+          ...deviceInfo(options.sensor!, 1, toFitTime(recording.timestamps[i])),
+          deviceType: ANTPLUS_BIKE_POWER,
+          sourceType: SOURCE_TYPE_ANTPLUS,
+          batteryStatus: report.status,
+          batteryVoltage: report.volts,
+        },
+      ]);
+    }
   }
 
   messages.push([MESG_NUM.event, { timestamp: end, event: EVENT.timer, eventType: EVENT_TYPE.stopAll }]);
@@ -148,6 +165,12 @@ export function activityMessages(recording: MeterRecording, device: DeviceIdenti
     { timestamp: end, totalTimerTime: elapsed, numSessions: 1, type: ACTIVITY_MANUAL, event: EVENT.activity, eventType: EVENT_TYPE.stop },
   ]);
   return messages;
+}
+
+/** The battery reports due at record i: each at its fraction of the recording. */
+function batteryAt(options: FitWriterOptions, i: number, count: number) {
+  if (!options.sensor || !options.sensorBattery) return [];
+  return options.sensorBattery.filter((report) => Math.min(count - 1, Math.floor(report.atFraction * count)) === i);
 }
 
 function deviceInfo(device: DeviceIdentity, deviceIndex: number, timestamp: number) {

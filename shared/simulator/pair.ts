@@ -1,7 +1,7 @@
 // Two meters on one ride, written as two FIT files, with the truth the analysis
 // should recover (issue 3's terms: A is the device judged, B its partner).
 import { planDropouts, type DropoutWindow } from './dropouts';
-import { encodeActivityFit, type DeviceIdentity } from './fit-writer';
+import { encodeActivityFit, type DeviceIdentity, type FitWriterOptions } from './fit-writer';
 import { recordingWindow, recordWithMeter, type MeterModelOptions, type MeterRecording } from './meter';
 import { createRandom, deriveSeed } from './random';
 import { simulateRide, type RideProfile, type TrueRide } from './ride';
@@ -12,6 +12,8 @@ export interface MeterSpec extends MeterModelOptions {
   /** The power meter, written as a connected sensor. */
   sensor?: DeviceIdentity;
   includeLocation?: boolean;
+  temperature?: FitWriterOptions['temperature'];
+  sensorBattery?: FitWriterOptions['sensorBattery'];
 }
 
 export interface PairOptions {
@@ -95,6 +97,8 @@ export function simulatePair(options: PairOptions): SimulatedPair {
       sensor: spec.sensor,
       includeLocation: spec.includeLocation,
       indoor,
+      temperature: spec.temperature,
+      sensorBattery: spec.sensorBattery,
     });
 
   const clockOffsetSeconds = Math.round(options.a.clockOffsetSeconds ?? 0) - Math.round(options.b.clockOffsetSeconds ?? 0);

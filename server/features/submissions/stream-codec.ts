@@ -4,17 +4,29 @@ import { storedDeviceInfo } from './stored-ride-facts';
 
 // What we keep of an uploaded file: the normalised stream the engine needs, as
 // gzip'd typed arrays. Never the original file, never location, never a serial number.
-// Layout: u32 header length, JSON header (device, recording statistics, count),
-// then Float64 timestamps and Float32 power, cadence and balance.
+// Layout: u32 header length, JSON header (device, recording statistics, count, and
+// from version 2 the power meter's battery reports and whether temperature follows),
+// then Float64 timestamps and Float32 power, cadence, balance (and temperature).
 export function encodeStream(stream: RideStream): Buffer {
   const count = stream.timestamps.length;
-  const header = Buffer.from(JSON.stringify({ v: 1, count, device: storedDeviceInfo(stream.device), recording: stream.recording }));
-  const body = Buffer.alloc(4 + header.length + count * (8 + 4 * 3));
+  const temperature = stream.temperatureCelsius;
+  const header = Buffer.from(
+    JSON.stringify({
+      v: 2,
+      count,
+      device: storedDeviceInfo(stream.device),
+      recording: stream.recording,
+      powerMeterReports: stream.powerMeterReports ?? [],
+      temperature: temperature !== undefined,
+    }),
+  );
+  const columns = [stream.powerWatts, stream.cadenceRpm, stream.rightBalancePercent, ...(temperature ? [temperature] : [])];
+  const body = Buffer.alloc(4 + header.length + count * (8 + 4 * columns.length));
   body.writeUInt32LE(header.length, 0);
   header.copy(body, 4);
   let offset = 4 + header.length;
   for (let i = 0; i < count; i++, offset += 8) body.writeDoubleLE(stream.timestamps[i], offset);
-  for (const values of [stream.powerWatts, stream.cadenceRpm, stream.rightBalancePercent]) {
+  for (const values of columns) {
     for (let i = 0; i < count; i++, offset += 4) body.writeFloatLE(values[i], offset);
   }
   return gzipSync(body, { level: 6 });
@@ -28,10 +40,21 @@ export function decodeStream(stored: Buffer): RideStream {
   let offset = 4 + headerLength;
   const timestamps = new Float64Array(count);
   for (let i = 0; i < count; i++, offset += 8) timestamps[i] = body.readDoubleLE(offset);
-  const [powerWatts, cadenceRpm, rightBalancePercent] = [0, 1, 2].map(() => {
+  const column = () => {
     const values = new Float64Array(count);
     for (let i = 0; i < count; i++, offset += 4) values[i] = body.readFloatLE(offset);
     return values;
-  });
-  return { timestamps, powerWatts, cadenceRpm, rightBalancePercent, device: header.device, recording: header.recording };
+  };
+  const [powerWatts, cadenceRpm, rightBalancePercent] = [column(), column(), column()];
+  const temperatureCelsius = header.temperature ? column() : undefined;
+  return {
+    timestamps,
+    powerWatts,
+    cadenceRpm,
+    rightBalancePercent,
+    ...(temperatureCelsius && { temperatureCelsius }),
+    device: header.device,
+    powerMeterReports: header.powerMeterReports ?? [],
+    recording: header.recording,
+  };
 }

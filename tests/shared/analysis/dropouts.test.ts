@@ -13,6 +13,7 @@ function timeline(aPower: number[], bPower: number[], aCadence = aPower.map(() =
     bCadence: Float64Array.from(bCadence),
     aRightBalance: Float64Array.from(nan),
     bRightBalance: Float64Array.from(nan),
+    temperature: null,
   };
 }
 

@@ -58,6 +58,14 @@ export function RideComparisonMethod() {
             the power meter's firmware, because it moves the ride into another version's figures). The same two files uploaded again, in either order, are
             refused as a re-upload.
           </li>
+          <li>
+            <strong>Drift, temperature and batteries.</strong> The ride is cut into five-minute blocks; each block's difference is a ratio of energies, as
+            the bias, and a straight line through the blocks gives how many points per hour the difference moves, with its 95 % t interval. Blocks rather than
+            seconds, because neighbouring seconds share smoothing and lag. A slope of at least 1 point per hour whose interval excludes zero, over at least an
+            hour of blocks, raises a warning: a meter not zeroed before the start, or one that changes as it warms or cools. Where a head unit records
+            temperature, the bias is also given per band (below 5, 5–15, 15–25, 25 °C and above), and the power meter's battery reports in the file (state and
+            voltage) are listed on the ride page.
+          </li>
         </ol>
       </PageSection>
 

@@ -6,6 +6,7 @@ import { DifferenceChart } from './difference-chart';
 import { FlagList } from './flag-list';
 import { ResultHeadline } from './result-headline';
 import { PeakPowerTable, SteadySegmentsTable } from './result-tables';
+import { RideConditions } from './ride-conditions';
 import { RideInspector } from './ride-inspector';
 
 /** Everything the analysis found, figures first, then the pictures, then the tables. */
@@ -35,6 +36,10 @@ export function SubmissionResult({ submissionId, result, names }: { submissionId
 
       <Block id="difference" title="The difference over the ride" lead="A minus B, averaged over short stretches. Shaded bands mark where a meter stopped reporting power.">
         <DifferenceChart result={result} />
+      </Block>
+
+      <Block id="conditions" title="Drift, temperature and batteries" lead="Does the difference creep during the ride, and does it change with the cold or the heat?">
+        <RideConditions result={result} names={names} />
       </Block>
 
       <Block id="agreement" title="Agreement, block by block" lead="A Bland–Altman plot: does the gap between the meters depend on how hard you pushed?">
