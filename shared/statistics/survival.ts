@@ -119,3 +119,65 @@ export function logRankTest(first: SurvivalObservation[], second: SurvivalObserv
   const chiSquare = variance > 0 ? (observed[0] - expected[0]) ** 2 / variance : 0;
   return { observed, expected, chiSquare, pValue: variance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1 };
 }
+
+export interface ClusteredObservation extends SurvivalObservation {
+  /** Observations of one cluster (one rider's batteries) are alike; the test counts the cluster as the unit. */
+  cluster: string | number;
+}
+
+export interface ClusteredLogRankTest {
+  /** The log-rank score O − E of the second group. */
+  score: number;
+  robustVariance: number;
+  chiSquare: number;
+  pValue: number;
+  clusters: number;
+}
+
+/**
+ * The log-rank test with a cluster-robust variance: the Cox score test at β = 0
+ * with Breslow ties, its variance summed over clusters of per-observation score
+ * residuals (Lin & Wei, JASA 1989;84:1074–1078; Lee, Wei & Amato 1992), so that
+ * several batteries of one rider do not count as independent evidence.
+ * R: summary(coxph(Surv(time, status) ~ group + cluster(id), ties = "breslow"))$robscore.
+ * Residual of observation j (x = 1 in the second group, x̄(t) the share of the
+ * second group at risk at t, dN(t) the events at t, n(t) those at risk):
+ * u_j = δ_j (x_j − x̄(t_j)) − Σ_{t ≤ t_j} (x_j − x̄(t)) dN(t) / n(t).
+ */
+export function clusteredLogRankTest(first: ClusteredObservation[], second: ClusteredObservation[]): ClusteredLogRankTest {
+  const all = [...first.map((o) => ({ ...o, x: 0 })), ...second.map((o) => ({ ...o, x: 1 }))];
+  const eventTimes = [...new Set(all.filter((o) => o.event).map((o) => o.time))].sort((p, q) => p - q);
+  // Cumulative Σ dN/n and Σ x̄ dN/n up to each event time.
+  const shareAt = new Map<number, number>();
+  const cumulative: { time: number; hazard: number; weighted: number }[] = [];
+  let hazard = 0;
+  let weighted = 0;
+  for (const time of eventTimes) {
+    const atRisk = all.filter((o) => o.time >= time);
+    const share = atRisk.filter((o) => o.x === 1).length / atRisk.length;
+    const events = atRisk.filter((o) => o.time === time && o.event).length;
+    hazard += events / atRisk.length;
+    weighted += (share * events) / atRisk.length;
+    shareAt.set(time, share);
+    cumulative.push({ time, hazard, weighted });
+  }
+  const upTo = (time: number) => {
+    let last = { hazard: 0, weighted: 0 };
+    for (const c of cumulative) {
+      if (c.time > time) break;
+      last = c;
+    }
+    return last;
+  };
+  const byCluster = new Map<string | number, number>();
+  let score = 0;
+  for (const o of all) {
+    const { hazard: h, weighted: w } = upTo(o.time);
+    const u = (o.event ? o.x - shareAt.get(o.time)! : 0) - (o.x * h - w);
+    score += u;
+    byCluster.set(o.cluster, (byCluster.get(o.cluster) ?? 0) + u);
+  }
+  const robustVariance = [...byCluster.values()].reduce((sum, u) => sum + u * u, 0);
+  const chiSquare = robustVariance > 0 ? (score * score) / robustVariance : 0;
+  return { score, robustVariance, chiSquare, pValue: robustVariance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1, clusters: byCluster.size };
+}
