@@ -13,6 +13,7 @@ import { sessionMiddleware } from './auth/session';
 import type { Config } from './config/env';
 import type { Db } from './db/knex';
 import { adminRouter } from './features/admin/admin.routes';
+import { batteryClaimRouter, modelConditionsRouter, myMetersRouter } from './features/battery/battery.routes';
 import { catalogueRouter } from './features/catalogue/catalogue.routes';
 import { healthRouter } from './features/health/health.routes';
 import { scoreboardRouter } from './features/scoreboard/scoreboard.routes';
@@ -78,10 +79,13 @@ export function createApp(deps: AppDeps) {
   app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/me/submissions', mySubmissionsRouter({ db }));
   app.use('/api/submissions', submissionDecisionRouter({ db, queue: deps.queue, config: deps.config }));
+  app.use('/api/me/meters', myMetersRouter({ db }));
+  app.use('/api/moderation/models', batteryClaimRouter({ db }));
   app.use('/api/moderation', moderationRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/mail', mailRouter({ db, config: deps.config }));
   app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
+  app.use('/api/models', modelConditionsRouter({ db }));
   app.use('/api', scoreboardRouter({ db }));
   app.use('/api', notFound);
 

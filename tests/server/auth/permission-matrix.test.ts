@@ -106,6 +106,14 @@ const rules: Record<string, Rule> = {
     body: () => ({ hidden: true, reason: 'Matrix check' }),
   },
   'POST /api/notifications/read': { allowed: SIGNED_IN },
+  // battery log (issue 18): riders' own meters (another's answer 404, past the guards); moderators who are not staff enter claims
+  'POST /api/me/meters': { allowed: SIGNED_IN, body: () => ({}) },
+  'DELETE /api/me/meters/:meterId': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999' },
+  'POST /api/me/meters/:meterId/battery-events': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/battery-events' },
+  'DELETE /api/me/meters/:meterId/battery-events/:eventId': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/battery-events/1' },
+  'POST /api/me/meters/:meterId/riding': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/riding' },
+  'DELETE /api/me/meters/:meterId/riding/:ridingId': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/riding/1' },
+  'PUT /api/moderation/models/:id/battery-claim': { allowed: MODERATORS, path: () => '/api/moderation/models/999999/battery-claim' },
 };
 
 const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;
