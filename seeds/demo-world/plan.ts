@@ -3,9 +3,9 @@
 // derived from the world's truth and the rider's habits), and what a moderator
 // will decide. Nothing here touches the database; seed-demo.ts carries it out.
 import type { RideProfile } from '@shared/simulator/ride';
-import { DRIVETRAIN_LOSS_PERCENT } from '@shared/simulator/meter';
+import { coldGain, DRIVETRAIN_LOSS_PERCENT, type AmbientTemperature } from '@shared/simulator/meter';
 import type { MeterSpec, PairOptions } from '@shared/simulator/pair';
-import { createRandom, type Random } from '@shared/simulator/random';
+import { createRandom, deriveSeed, type Random } from '@shared/simulator/random';
 import { AFTER_DRIVETRAIN_KINDS } from '@shared/schemas/catalogue';
 import type { Surface } from '@shared/schemas/submission';
 import {
@@ -47,8 +47,10 @@ export interface PlannedSide {
   recordingMode: 'every_second' | 'change_only';
   zeroOffset: 'yes' | 'no' | 'unsure';
   otherMetersOn: boolean;
-  /** The meter's gain on this ride (scale × drivetrain loss), for checking the measured bias. */
+  /** The meter's gain on this ride (scale × drivetrain loss × the cold's average effect), for checking the measured bias. */
   gain: number;
+  /** The cold's average effect on this ride's reading (1 for most models, or when it is warm). */
+  coldGain: number;
   powerDropoutsPerHour: number;
   cadenceDropoutsPerHour: number;
 }
@@ -180,6 +182,29 @@ interface RideContext {
   surface: Surface;
   durationSeconds: number;
   seed: number;
+  /** The air on this ride, which both head units record. */
+  temperature: AmbientTemperature;
+}
+
+/**
+ * The air on a ride: a temperate year (about 2 °C in mid-January, 20 °C in mid-July,
+ * from memory of a mild maritime climate), a few degrees either way, warming or cooling
+ * through the ride; indoors about 19 °C. Its own random stream, so the rest of the plan
+ * is the same with or without it.
+ */
+function rideTemperature(seed: number, daysAgo: number, now: number, indoor: boolean): AmbientTemperature {
+  const random = createRandom(deriveSeed(seed, 'temperature'));
+  if (indoor) return { startCelsius: random.uniform(17, 21), changePerHour: random.uniform(0, 1.5) };
+  const dayOfYear = (new Date((now - daysAgo * DAY_SECONDS) * 1000).getUTCMonth() * 30.4 + 15) % 365;
+  const seasonal = 11 - 9 * Math.cos((2 * Math.PI * (dayOfYear - 15)) / 365);
+  return { startCelsius: seasonal + 3 * random.normal(), changePerHour: random.uniform(-1.5, 3) };
+}
+
+/** The ride-time average of a meter's cold response over the ride's seconds. */
+function averageColdGain(spec: MeterSpec, durationSeconds: number): number {
+  let sum = 0;
+  for (let t = 0; t < durationSeconds; t += 60) sum += coldGain(spec, t);
+  return sum / Math.ceil(durationSeconds / 60);
 }
 
 function sideOf(ctx: RideContext, model: WorldModel, deviceName: string, firmware: FirmwareTruth, meterIndex: number) {
@@ -222,7 +247,10 @@ function sideOf(ctx: RideContext, model: WorldModel, deviceName: string, firmwar
       productName: model.name,
     },
     includeLocation: ctx.surface !== 'trainer',
+    temperature: ctx.temperature,
+    ...(model.coldResponse && { coldResponse: model.coldResponse }),
   };
+  const cold = averageColdGain(spec, ctx.durationSeconds);
   const side: PlannedSide = {
     model: model.name,
     firmware: firmware.version,
@@ -230,7 +258,8 @@ function sideOf(ctx: RideContext, model: WorldModel, deviceName: string, firmwar
     recordingMode: changeOnly ? 'change_only' : 'every_second',
     zeroOffset: rider.habits.zeroOffset,
     otherMetersOn,
-    gain: scale * (1 - (spec.drivetrainLossPercent ?? 0) / 100),
+    gain: scale * (1 - (spec.drivetrainLossPercent ?? 0) / 100) * cold,
+    coldGain: cold,
     powerDropoutsPerHour,
     cadenceDropoutsPerHour,
   };
@@ -251,7 +280,7 @@ function rideProfile(random: Random, indoor: boolean): RideProfile {
 type PlannedRide = Omit<PlannedSubmission, 'index' | 'flaw' | 'outcome'>;
 
 /** One like-for-like ride of a rider on a day, or null when they had no usable pair then. */
-function planRide(ctx: Omit<RideContext, 'surface' | 'durationSeconds'>, now: number, thinCounts: Map<string, number>): PlannedRide | null {
+function planRide(ctx: Omit<RideContext, 'surface' | 'durationSeconds' | 'temperature'>, now: number, thinCounts: Map<string, number>): PlannedRide | null {
   const { random, rider, riderIndex, daysAgo } = ctx;
   const betaTester = riderIndex % 9 === 4;
   const thinFull = (model: WorldModel) => (thinCounts.get(model.name) ?? Infinity) <= 0;
@@ -266,7 +295,8 @@ function planRide(ctx: Omit<RideContext, 'surface' | 'durationSeconds'>, now: nu
   const { surface, indoor } = rideSurface(random, rider, hasTrainer ? true : hasHub ? false : undefined);
   if (random.chance(0.5)) [first, second] = [second, first];
   const [deviceA, deviceB] = riderDevices(rider, riderIndex);
-  const full: RideContext = { ...ctx, surface, durationSeconds: 60 * random.integer(25, 75) };
+  const durationSeconds = 60 * random.integer(25, 75);
+  const full: RideContext = { ...ctx, surface, durationSeconds, temperature: rideTemperature(ctx.seed, daysAgo, now, indoor) };
   const a = sideOf(full, first, deviceA, firmwareOnRide(first, daysAgo, betaTester, random), 0);
   const b = sideOf(full, second, deviceB, firmwareOnRide(second, daysAgo, betaTester, random), 1);
   for (const model of [first, second]) if (thinCounts.has(model.name)) thinCounts.set(model.name, thinCounts.get(model.name)! - 1);
@@ -374,13 +404,13 @@ function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<
         surface: 'trainer',
         indoor: true,
         notes: 'Borrowed the club trainer for an evening.',
-        a: { ...ride.a, model: single.name, firmware: singleFirmware.version, gain: gain(singleFirmware, 0) },
-        b: { ...ride.b, model: trainer.name, firmware: firmware.version, gain: gain(firmware, DRIVETRAIN_LOSS_PERCENT), powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0 },
+        a: { ...ride.a, model: single.name, firmware: singleFirmware.version, gain: gain(singleFirmware, 0), coldGain: 1 },
+        b: { ...ride.b, model: trainer.name, firmware: firmware.version, gain: gain(firmware, DRIVETRAIN_LOSS_PERCENT), coldGain: 1, powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0 },
         simulation: {
           ...sim,
           profile: 'indoor',
-          a: { ...sim.a, position: single.position, scale: gain(singleFirmware, 0), drivetrainLossPercent: 0, sensor: { ...sim.a.sensor!, productId: 100 + MODELS.indexOf(single), softwareVersion: Number(singleFirmware.version) } },
-          b: { ...sim.b, position: 'total', scale: gain(firmware, 0), drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT, powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0, includeLocation: false, sensor: { ...sim.b.sensor!, productId: 100 + MODELS.indexOf(trainer), softwareVersion: Number(firmware.version) } },
+          a: { ...sim.a, coldResponse: undefined, position: single.position, scale: gain(singleFirmware, 0), drivetrainLossPercent: 0, sensor: { ...sim.a.sensor!, productId: 100 + MODELS.indexOf(single), softwareVersion: Number(singleFirmware.version) } },
+          b: { ...sim.b, coldResponse: undefined, position: 'total', scale: gain(firmware, 0), drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT, powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0, includeLocation: false, sensor: { ...sim.b.sensor!, productId: 100 + MODELS.indexOf(trainer), softwareVersion: Number(firmware.version) } },
         },
       };
     }

@@ -16,6 +16,7 @@ import { decideSubmission } from '@server/features/moderation/moderation.service
 import { type Config, loadConfig } from '@server/config/env';
 import type { SessionUser } from '@server/features/users/users.service';
 import { planDemoWorld, type Outcome, type PlannedSide, type PlannedSubmission } from './plan';
+import { seedBatteryLogs } from './batteries';
 import { seedThreadsAndNotes } from './threads';
 import { MAKERS, MODELS, RECORDING_DEVICES, RIDERS, STAFF } from './world';
 
@@ -42,8 +43,10 @@ export interface SeedDemoReport {
   decided: number;
   threads: number;
   posts: number;
+  /** Batteries logged by the riders of models with a battery story. */
+  batteries: number;
   /** Seconds spent in each step, to see where the time goes. */
-  phases: { catalogue: number; people: number; simulate: number; upload: number; analyse: number; decide: number; threads: number };
+  phases: { catalogue: number; people: number; simulate: number; upload: number; analyse: number; decide: number; threads: number; batteries: number };
 }
 
 interface CatalogueIds {
@@ -64,8 +67,8 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
   const log = options.log ?? (() => {});
   const now = options.now ?? Math.floor(Date.now() / 1000);
   const plan = planDemoWorld({ now, seed: options.seed, scale: options.scale });
-  const phases = { catalogue: 0, people: 0, simulate: 0, upload: 0, analyse: 0, decide: 0, threads: 0 };
-  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0, threads: 0, posts: 0, phases };
+  const phases = { catalogue: 0, people: 0, simulate: 0, upload: 0, analyse: 0, decide: 0, threads: 0, batteries: 0 };
+  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0, threads: 0, posts: 0, batteries: 0, phases };
   const timed = async <T>(phase: keyof typeof phases, step: () => Promise<T>): Promise<T> => {
     const start = performance.now();
     try {
@@ -104,13 +107,16 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
     );
     report.threads = conversations.threads;
     report.posts = conversations.posts;
+    report.batteries = await timed('batteries', () =>
+      seedBatteryLogs(trx, { now, people, modelIds: ids.models, firmwareIds: ids.firmware, moderator: people.get('demo-moderator')!, seed: options.seed }),
+    );
   });
   report.seeded = true;
   report.seconds = (performance.now() - started) / 1000;
   log(
     `Demo world ready in ${report.seconds.toFixed(1)} s: ${report.analysed} submissions analysed` +
       (report.failed ? `, ${report.failed} failed` : '') +
-      `, ${report.decided} decided, ${report.threads} threads with ${report.posts} posts` +
+      `, ${report.decided} decided, ${report.threads} threads with ${report.posts} posts, ${report.batteries} batteries logged` +
       ` (${Object.entries(phases).map(([phase, seconds]) => `${phase} ${seconds.toFixed(1)} s`).join(', ')}).`,
   );
   return report;

@@ -33,6 +33,18 @@ export interface WorldModel {
   firmware: FirmwareTruth[];
   /** A short line for the README and for whoever reads the seed. */
   story?: string;
+  /** Reads low by this many % per °C below `belowCelsius` (its temperature compensation falls short in the cold). */
+  coldResponse?: { belowCelsius: number; percentPerDegree: number };
+  /** The model's battery as its owners log it: type, the maker's claim, and the true median hours per firmware. */
+  battery?: WorldBattery;
+}
+
+export interface WorldBattery {
+  type: 'coin_cell' | 'aaa' | 'aa' | 'rechargeable';
+  claimHours: number;
+  claimSource: string;
+  /** Median hours of riding per battery on each firmware version. */
+  medianHoursByFirmware: Record<string, number>;
 }
 
 export interface WorldRecordingDevice {
@@ -143,6 +155,8 @@ export const MODELS: WorldModel[] = [
   },
   {
     maker: 'sorrel-labs', name: 'Pip Pedals', position: 'dual', kind: 'pedal', noiseWatts: 3, noisePercent: 2.2, cadenceLagSeconds: 0,
+    story: 'Reads low in the cold: about 0.4 % less for every degree below 8 °C, despite its temperature compensation.',
+    coldResponse: { belowCelsius: 8, percentPerDegree: 0.4 },
     firmware: [fw('5.0', 690, 1.5, 0.8, 0.5), fw('5.1', 340, 1.5, 0.7, 0.5), fw('5.3', 110, 1.4, 0.6, 0.4)],
   },
   // Tamarack Instruments: crank arms for either side, a hub and a spider.
@@ -175,6 +189,13 @@ export const MODELS: WorldModel[] = [
   },
   {
     maker: 'brindle-and-kite', name: 'Pennant Pedals', position: 'dual', kind: 'pedal', noiseWatts: 2, noisePercent: 1.2, cadenceLagSeconds: 0,
+    story: 'Firmware 1.3 wakes faster and its coin cells last about half as long: some 200 hours instead of 400.',
+    battery: {
+      type: 'coin_cell',
+      claimHours: 400,
+      claimSource: "Brindle & Kite's pedal manual, battery section",
+      medianHoursByFirmware: { '1.0': 410, '1.1': 400, '1.3': 200 },
+    },
     firmware: [fw('1.0', 660, -0.4, 0.4, 0.3), fw('1.1', 390, -0.4, 0.4, 0.3), fw('1.3', 140, -0.4, 0.3, 0.3)],
   },
   // Oxeye Motion: a newcomer and a trainer.

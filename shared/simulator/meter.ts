@@ -26,6 +26,10 @@ export interface MeterModelOptions extends DropoutRates {
   scale?: number;
   /** The scale creeps by this many percent per hour of the ride (a meter warming up unzeroed). */
   driftPercentPerHour?: number;
+  /** The air around the meter (and the head unit's thermometer): °C at the ride's start, changing linearly by the hour. */
+  temperature?: AmbientTemperature;
+  /** A meter whose compensation fails in the cold: it reads low by this many percent per °C below `belowCelsius`. */
+  coldResponse?: { belowCelsius: number; percentPerDegree: number };
   /** Noise SD in W, added in quadrature to noisePercent. */
   noiseWatts?: number;
   /** Noise SD in % of the true power. */
@@ -45,6 +49,23 @@ export interface MeterModelOptions extends DropoutRates {
   startOffsetSeconds?: number;
   /** The device stops recording this many seconds before the ride ends. */
   endOffsetSeconds?: number;
+}
+
+export interface AmbientTemperature {
+  startCelsius: number;
+  changePerHour?: number;
+}
+
+/** °C at one second of the ride. */
+export function ambientCelsius(temperature: AmbientTemperature, second: number): number {
+  return temperature.startCelsius + ((temperature.changePerHour ?? 0) * second) / 3600;
+}
+
+/** The meter's gain from the cold at one second of the ride: 1 when it has no cold response or it is warm enough. */
+export function coldGain(meter: MeterModelOptions, second: number): number {
+  if (!meter.coldResponse || !meter.temperature) return 1;
+  const below = Math.max(0, meter.coldResponse.belowCelsius - ambientCelsius(meter.temperature, second));
+  return 1 - (meter.coldResponse.percentPerDegree * below) / 100;
 }
 
 export interface DropoutEvent extends DropoutWindow {
@@ -146,7 +167,7 @@ function measurePower(ride: TrueRide, meter: MeterModelOptions, firstSecond: num
     const secondNoise = normal();
     if (truePower <= 0) continue; // a meter reads zero while nobody pedals
     const share = ride.rightShare[firstSecond + i];
-    const gain = baseGain * (1 + driftPerSecond * (firstSecond + i));
+    const gain = baseGain * (1 + driftPerSecond * (firstSecond + i)) * coldGain(meter, firstSecond + i);
     const sd = Math.hypot(noiseWatts, noiseFraction * truePower);
     const reading = gain * truePower + sd * noise;
     switch (meter.position) {

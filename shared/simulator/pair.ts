@@ -2,7 +2,7 @@
 // should recover (issue 3's terms: A is the device judged, B its partner).
 import { planDropouts, type DropoutWindow } from './dropouts';
 import { encodeActivityFit, type DeviceIdentity, type FitWriterOptions } from './fit-writer';
-import { recordingWindow, recordWithMeter, type MeterModelOptions, type MeterRecording } from './meter';
+import { coldGain, recordingWindow, recordWithMeter, type MeterModelOptions, type MeterRecording } from './meter';
 import { createRandom, deriveSeed } from './random';
 import { simulateRide, type RideProfile, type TrueRide } from './ride';
 
@@ -12,7 +12,6 @@ export interface MeterSpec extends MeterModelOptions {
   /** The power meter, written as a connected sensor. */
   sensor?: DeviceIdentity;
   includeLocation?: boolean;
-  temperature?: FitWriterOptions['temperature'];
   sensorBattery?: FitWriterOptions['sensorBattery'];
 }
 
@@ -165,8 +164,8 @@ function expectedSums(ride: TrueRide, options: PairOptions, firstSecond: number,
     if (power <= 0) continue;
     pedallingSeconds += 1;
     if (excluded[t]) continue;
-    a += gainA * sideFactor(options.a, ride.rightShare[t]) * power;
-    b += gainB * sideFactor(options.b, ride.rightShare[t]) * power;
+    a += gainA * coldGain(options.a, t) * sideFactor(options.a, ride.rightShare[t]) * power;
+    b += gainB * coldGain(options.b, t) * sideFactor(options.b, ride.rightShare[t]) * power;
   }
   return { a, b, pedallingSeconds };
 }

@@ -32,6 +32,7 @@ const router = createBrowserRouter([
       { path: 'submissions/:id', handle: { title: 'Submission' }, lazy: page(() => import('./routes/submission'), 'SubmissionRoute') },
       { path: 'my-submissions', handle: { title: 'Your submissions' }, lazy: page(() => import('./routes/my-submissions'), 'MySubmissionsRoute') },
       { path: 'sign-in', handle: { title: 'Sign in' }, lazy: page(() => import('./routes/sign-in'), 'SignInRoute') },
+      { path: 'my-equipment', handle: { title: 'My meters' }, lazy: page(() => import('./routes/my-equipment'), 'MyEquipmentRoute') },
       { path: 'account', handle: { title: 'Your account' }, lazy: page(() => import('./routes/account'), 'AccountRoute') },
       { path: 'admin/users', handle: { title: 'People and roles' }, lazy: page(() => import('./routes/admin-users'), 'AdminUsersRoute') },
       { path: 'admin/audit-log', handle: { title: 'Audit log' }, lazy: page(() => import('./routes/admin-audit-log'), 'AdminAuditLogRoute') },

@@ -4,6 +4,7 @@ import { useFirmware } from '@/features/models/api/get-firmware';
 import { getModelQueryOptions } from '@/features/models/api/get-model';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
+import { BatteryAndTemperature } from '@/features/models/components/battery-and-temperature';
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
 import { ModelMasthead } from '@/features/models/components/model-masthead';
 import { RecentSubmissions } from '@/features/models/components/recent-submissions';
@@ -37,6 +38,9 @@ export function FirmwareRoute() {
       </Section>
       <Section title="What goes with dropouts" intro="Power dropouts on this firmware split by how the rides were recorded, each against the other rides on this firmware.">
         <DropoutBreakdown rows={page.dropoutBreakdown} />
+      </Section>
+      <Section title="Battery and temperature" intro="How long a battery lasts on this version, from riders' logs, and the bias in each temperature band of the head unit.">
+        <BatteryAndTemperature modelSlug={page.model.slug} version={page.firmware.version} />
       </Section>
       <Section title="Accepted rides on this firmware">
         <RecentSubmissions submissions={page.submissions} />

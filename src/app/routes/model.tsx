@@ -1,6 +1,8 @@
 import { Navigate, useParams } from 'react-router-dom';
 import { PageSection as Section } from '@/components/ui/page-section';
 import { getModelQueryOptions, useModel } from '@/features/models/api/get-model';
+import { getModelConditionsQueryOptions, useModelConditions } from '@/features/models/api/get-model-conditions';
+import { BatteryAndTemperature } from '@/features/models/components/battery-and-temperature';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
 import { FirmwareChart } from '@/features/models/components/firmware-chart';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
@@ -14,6 +16,7 @@ import { ModelThreadSummary } from '@/features/threads/components/model-thread-s
 export function ModelRoute() {
   const { slug = '' } = useParams();
   const model = useModel(slug);
+  const conditions = useModelConditions(slug);
   if (model.isPending) return <p className="text-ink-soft">Loading…</p>;
   if (model.isError) return <p role="alert" className="text-alert-800">{model.error.message}</p>;
   const page = model.data;
@@ -27,6 +30,8 @@ export function ModelRoute() {
         note={page.note?.body ?? null}
         hiddenReason={page.model.hiddenReason}
         affects={[getModelQueryOptions(slug).queryKey, getScoreboardQueryOptions({}).queryKey]}
+        batteryClaim={conditions.data?.claim ?? null}
+        batteryAffects={[getModelConditionsQueryOptions(slug).queryKey]}
       />
       <div className="mt-8">
         <HeadlineFigures figures={page.figures} />
@@ -45,6 +50,9 @@ export function ModelRoute() {
       </Section>
       <Section title="What goes with dropouts" intro="Power dropouts split by how the rides were recorded, each compared with all the model's other rides.">
         <DropoutBreakdown rows={page.dropoutBreakdown} />
+      </Section>
+      <Section title="Battery and temperature" intro="Hours of riding per battery from riders' logs, each firmware against the one before, and the bias in each temperature band of the head unit.">
+        <BatteryAndTemperature modelSlug={page.model.slug} />
       </Section>
       <Section title="Recent accepted rides">
         <RecentSubmissions submissions={page.recentSubmissions} />

@@ -53,6 +53,22 @@ describe('seeding the demo world', () => {
     expect(STAFF.filter((p) => p.makerSlug).length).toBeGreaterThanOrEqual(3);
   });
 
+  it("when the owners of the battery-story model have logged their batteries, then its page says the latest firmware's batteries run flat sooner, beside the maker's claim", async () => {
+    const story = MODELS.find((m) => m.battery)!;
+    const { body } = await request(app).get(`/api/models/${slugify(story.name)}/conditions`);
+
+    expect(report.batteries).toBeGreaterThan(30);
+    expect(body.claim).toEqual({ hours: story.battery!.claimHours, source: story.battery!.claimSource });
+    const latest = body.firmware.at(-1);
+    const before = body.firmware.at(-2);
+    // world.ts: 1.3's true median is 200 h against 400 h on 1.1.
+    expect(latest.againstPredecessor.verdict).toBe('worse');
+    expect(latest.life.medianHours).toBeGreaterThan(120);
+    expect(latest.life.medianHours).toBeLessThan(280);
+    expect(before.life.medianHours).toBeGreaterThan(300);
+    expect(body.batteryLife.riders).toBe(RIDERS.filter((r) => r.meters.includes(story.name)).length);
+  });
+
   it("when the rides are uploaded, then every one is analysed by the real job and ends as its moderator's plan says", async () => {
     const rows = await db('submissions').select('id', 'status').whereIn('id', report.submissionIds);
     const statusOf = new Map(rows.map((row) => [row.id, row.status]));

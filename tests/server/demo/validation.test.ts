@@ -61,7 +61,8 @@ function nominalBiasAgainstPartners(plan: PlannedSubmission[], truth: Combinatio
     const hours = planned.simulation.durationSeconds / 3600;
     for (const [self, partner] of [[planned.a, planned.b], [planned.b, planned.a]]) {
       const key = `${self.model}@${self.firmware}`;
-      const ratio = gain.get(key)! / gain.get(`${partner.model}@${partner.firmware}`)!;
+      // The cold is part of what a meter reads on the ride (a model whose compensation falls short reads low in winter).
+      const ratio = (gain.get(key)! * self.coldGain) / (gain.get(`${partner.model}@${partner.firmware}`)! * partner.coldGain);
       const entry = sums.get(key) ?? { weighted: 0, hours: 0 };
       entry.weighted += 100 * (ratio - 1) * hours;
       entry.hours += hours;
@@ -221,5 +222,20 @@ describe('known-truth validation over the demo world', () => {
     expect(thread.body.officialResponse.staffOf.name).toBe('Quillon Dynamics');
     expect(opening.linkedSubmissions).toHaveLength(2);
     for (const count of larkspurCadenceDropouts) expect(count).toBeGreaterThan(0);
+  });
+});
+
+describe('the cold story', () => {
+  it('when the model whose compensation falls short in the cold is ridden in winter, then its coldest band reads lower than its warm band, with the rider as the unit', async () => {
+    const story = MODELS.find((m) => m.coldResponse)!;
+    const { body } = await request(app).get(`/api/models/${slugify(story.name)}/conditions`);
+
+    const band = (label: string) => body.temperature.all.find((b: { band: string }) => b.band === label);
+    const cold = band('below 5 °C');
+    const warm = band('15 to 25 °C');
+    expect(cold.riders).toBeGreaterThanOrEqual(3);
+    // world.ts: 0.4 % per °C below 8 °C, so about −1.5 to −3 % below 5 °C; nothing above 8 °C.
+    expect(cold.meanPercent - warm.meanPercent).toBeLessThan(-1);
+    expect(cold.upperPercent).toBeLessThan(warm.meanPercent);
   });
 });

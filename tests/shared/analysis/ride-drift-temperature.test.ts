@@ -43,6 +43,26 @@ describe('a ride that warms up', () => {
     expect(cold).toBeLessThan(0.35);
   });
 
+  it('when A reads 0.5 % low per °C below 10 °C on a ride from 0 °C to 20 °C, then the cold band shows it and the warm band does not', () => {
+    const temperature = { startCelsius: 0, changePerHour: 10 };
+    const pair = simulatePair({
+      seed: 1819,
+      durationSeconds: 2 * HOUR,
+      profile: 'endurance',
+      a: { position: 'total', temperature, coldResponse: { belowCelsius: 10, percentPerDegree: 0.5 } },
+      b: { position: 'total', temperature },
+    });
+    const result = compareFitFiles(pair.a, pair.b, DIRECT);
+
+    const band = (label: string) => result.temperature!.bands.find((b) => b.band === label)!.percent!;
+    // Below 5 °C the air averages about 2.5 °C: 7.5 °C below the threshold × 0.5 % = −3.75 % (the simulator's own rule).
+    expect(band('below 5 °C')).toBeGreaterThan(-4.3);
+    expect(band('below 5 °C')).toBeLessThan(-3.2);
+    expect(Math.abs(band('15 to 25 °C'))).toBeLessThan(0.4);
+    // The truth the simulator reports includes the cold: the whole ride's bias matches it.
+    expect(result.bias.percent).toBeCloseTo(pair.truth.biasPercent, 0);
+  });
+
   it('when no file records temperature, then there is none', () => {
     expect(ride({}).temperature).toBeNull();
   });

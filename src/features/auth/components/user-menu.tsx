@@ -29,6 +29,9 @@ export function UserMenu() {
       <Link to="/my-submissions" className="hidden rounded-full px-3 py-1.5 text-caption font-medium text-ink-soft hover:bg-paper-deep hover:text-ink sm:inline">
         My rides
       </Link>
+      <Link to="/my-equipment" className="hidden rounded-full px-3 py-1.5 text-caption font-medium text-ink-soft hover:bg-paper-deep hover:text-ink sm:inline">
+        My meters
+      </Link>
       <Link to="/account" className="flex items-center gap-2 rounded-full py-1 pl-1 pr-3 hover:bg-paper-deep" data-testid="signed-in-as">
         <span aria-hidden="true" className="grid h-7 w-7 place-items-center rounded-full bg-ember-100 text-caption font-semibold text-ember-900">
           {initials(user.name)}

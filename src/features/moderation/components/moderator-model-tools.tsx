@@ -2,6 +2,7 @@ import type { QueryKey } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { useCurationCatalogue } from '../api/get-curation-catalogue';
 import { ModeratorPanel, ToolSection, mergedNotice } from './curation-parts';
+import { BatteryClaimForm } from './battery-claim-form';
 import { CuratorOnly } from './curator-only';
 import { MergeForm } from './merge-form';
 import { NoteEditor } from './note-editor';
@@ -12,8 +13,12 @@ interface ModelToolsProps {
   modelSlug: string;
   note: string | null;
   hiddenReason: string | null;
+  /** The maker's battery claim as the page shows it. */
+  batteryClaim: { hours: number; source: string } | null;
   /** Query keys of what these tools change: the model page and the scoreboard. */
   affects: QueryKey[];
+  /** The query key of the model's battery figures, which the claim changes. */
+  batteryAffects: QueryKey[];
 }
 
 /** The model page's curation tools: pinned note, scoreboard visibility, rename, merge into another model of the same maker. */
@@ -25,7 +30,7 @@ export function ModeratorModelTools(props: ModelToolsProps) {
   );
 }
 
-function ModelTools({ modelSlug, note, hiddenReason, affects }: ModelToolsProps) {
+function ModelTools({ modelSlug, note, hiddenReason, affects, batteryClaim, batteryAffects }: ModelToolsProps) {
   const navigate = useNavigate();
   const catalogue = useCurationCatalogue();
   if (catalogue.isPending) return <ModeratorPanel title="Curate this model"><p role="status" className="text-ink-soft">Loading the catalogue…</p></ModeratorPanel>;
@@ -41,6 +46,9 @@ function ModelTools({ modelSlug, note, hiddenReason, affects }: ModelToolsProps)
       </ToolSection>
       <ToolSection title="Scoreboard" summary={hiddenReason ? 'hidden' : 'listed'}>
         <ScoreboardVisibilityForm modelId={model.id} hiddenReason={hiddenReason} affects={affects} />
+      </ToolSection>
+      <ToolSection title="Maker's battery claim" summary={batteryClaim ? `${batteryClaim.hours} h` : 'none'}>
+        <BatteryClaimForm key={batteryClaim ? `${batteryClaim.hours}|${batteryClaim.source}` : "none"} modelId={model.id} current={batteryClaim} affects={batteryAffects} />
       </ToolSection>
       <ToolSection title="Rename">
         <RenameForm type="model" entry={model} affects={affects} label="New model name" />
