@@ -9,5 +9,8 @@ export function addBatteryEvent({ meterId, ...input }: CreateBatteryEventInput &
 
 export function useAddBatteryEvent() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: addBatteryEvent, onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: addBatteryEvent,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }),
+  });
 }

@@ -9,5 +9,8 @@ export function addMeter(input: CreateRiderMeterInput): Promise<{ id: number }> 
 
 export function useAddMeter() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: addMeter, onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: addMeter,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }),
+  });
 }

@@ -9,5 +9,8 @@ export function addRiding({ meterId, ...input }: AddRidingInput & { meterId: num
 
 export function useAddRiding() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: addRiding, onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: addRiding,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }),
+  });
 }

@@ -8,5 +8,8 @@ export function removeBatteryEvent({ meterId, eventId }: { meterId: number; even
 
 export function useRemoveBatteryEvent() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: removeBatteryEvent, onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: removeBatteryEvent,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }),
+  });
 }

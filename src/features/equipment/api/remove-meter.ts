@@ -8,5 +8,8 @@ export function removeMeter(meterId: number): Promise<void> {
 
 export function useRemoveMeter() {
   const queryClient = useQueryClient();
-  return useMutation({ mutationFn: removeMeter, onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }) });
+  return useMutation({
+    mutationFn: removeMeter,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: getMyMetersQueryOptions().queryKey }),
+  });
 }

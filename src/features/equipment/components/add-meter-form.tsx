@@ -14,7 +14,9 @@ export function AddMeterForm({ catalogue }: { catalogue: Pick<Catalogue, 'makers
   const [problem, setProblem] = useState<string>();
   const add = useAddMeter();
   const makers = new Map(catalogue.makers.map((m) => [m.id, m.name]));
-  const models = [...catalogue.models].sort((x, y) => `${makers.get(x.makerId)} ${x.name}`.localeCompare(`${makers.get(y.makerId)} ${y.name}`));
+  const models = [...catalogue.models].sort((x, y) =>
+    `${makers.get(x.makerId)} ${x.name}`.localeCompare(`${makers.get(y.makerId)} ${y.name}`),
+  );
 
   function submit(event: FormEvent) {
     event.preventDefault();
@@ -25,6 +27,7 @@ export function AddMeterForm({ catalogue }: { catalogue: Pick<Catalogue, 'makers
       onSuccess: () => {
         setNickname('');
         setModelId('');
+        setPosition('');
       },
       onError: (error) => setProblem(error.message),
     });
@@ -81,7 +84,14 @@ export function AddMeterForm({ catalogue }: { catalogue: Pick<Catalogue, 'makers
         <label htmlFor={`${id}-name`} className={labelClass}>
           Your name for it
         </label>
-        <input id={`${id}-name`} value={nickname} maxLength={60} placeholder="e.g. winter bike, left crank" onChange={(e) => setNickname(e.target.value)} className={fieldClass} />
+        <input
+          id={`${id}-name`}
+          value={nickname}
+          maxLength={60}
+          placeholder="e.g. winter bike, left crank"
+          onChange={(e) => setNickname(e.target.value)}
+          className={fieldClass}
+        />
       </span>
       <div className="sm:col-span-2">
         <button type="submit" disabled={add.isPending} className={primaryButton}>

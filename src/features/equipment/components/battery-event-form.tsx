@@ -4,7 +4,17 @@ import { useAddBatteryEvent } from '../api/add-battery-event';
 import { fieldClass, labelClass, primaryButton, today } from './equipment-parts';
 
 /** Logs a battery change or recharge: the day, why the one before came out, and the firmware the meter runs. */
-export function BatteryEventForm({ meterId, rechargeable, firmware, isFirst }: { meterId: number; rechargeable: boolean; firmware: { id: number; version: string }[]; isFirst: boolean }) {
+export function BatteryEventForm({
+  meterId,
+  rechargeable,
+  firmware,
+  isFirst,
+}: {
+  meterId: number;
+  rechargeable: boolean;
+  firmware: { id: number; version: string }[];
+  isFirst: boolean;
+}) {
   const id = useId();
   const [occurredOn, setOccurredOn] = useState(today());
   const [previousEnded, setPreviousEnded] = useState<string>(isFirst ? 'first_battery' : 'ran_flat');
@@ -14,19 +24,36 @@ export function BatteryEventForm({ meterId, rechargeable, firmware, isFirst }: {
 
   function submit(event: FormEvent) {
     event.preventDefault();
-    const parsed = createBatteryEventInput.safeParse({ occurredOn, kind: rechargeable ? 'recharged' : 'changed', previousEnded, firmwareId: Number(firmwareId) });
+    const parsed = createBatteryEventInput.safeParse({
+      occurredOn,
+      kind: rechargeable ? 'recharged' : 'changed',
+      previousEnded,
+      firmwareId: Number(firmwareId),
+    });
     if (!parsed.success) return setProblem(parsed.error.issues.map((i) => i.message).join('; '));
     setProblem(undefined);
     add.mutate({ meterId, ...parsed.data }, { onError: (error) => setProblem(error.message) });
   }
 
   return (
-    <form onSubmit={submit} noValidate className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4 lg:items-end" aria-label={rechargeable ? 'Log a recharge' : 'Log a battery change'}>
+    <form
+      onSubmit={submit}
+      noValidate
+      className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4 lg:items-end"
+      aria-label={rechargeable ? 'Log a recharge' : 'Log a battery change'}
+    >
       <span className="flex flex-col gap-1">
         <label htmlFor={`${id}-day`} className={labelClass}>
           {rechargeable ? 'Recharged on' : 'New battery on'}
         </label>
-        <input id={`${id}-day`} type="date" max={today()} value={occurredOn} onChange={(e) => setOccurredOn(e.target.value)} className={fieldClass} />
+        <input
+          id={`${id}-day`}
+          type="date"
+          max={today()}
+          value={occurredOn}
+          onChange={(e) => setOccurredOn(e.target.value)}
+          className={fieldClass}
+        />
       </span>
       <span className="flex flex-col gap-1">
         <label htmlFor={`${id}-ended`} className={labelClass}>

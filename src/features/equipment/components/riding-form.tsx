@@ -25,13 +25,26 @@ export function RidingForm({ meterId }: { meterId: number }) {
         <label htmlFor={`${id}-day`} className={labelClass}>
           Ridden on (or up to)
         </label>
-        <input id={`${id}-day`} type="date" max={today()} value={riddenOn} onChange={(e) => setRiddenOn(e.target.value)} className={fieldClass} />
+        <input
+          id={`${id}-day`}
+          type="date"
+          max={today()}
+          value={riddenOn}
+          onChange={(e) => setRiddenOn(e.target.value)}
+          className={fieldClass}
+        />
       </span>
       <span className="flex flex-col gap-1">
         <label htmlFor={`${id}-hours`} className={labelClass}>
           Hours (at most {MAX_SELF_REPORTED_HOURS})
         </label>
-        <input id={`${id}-hours`} inputMode="decimal" value={hours} onChange={(e) => setHours(e.target.value)} className={`${fieldClass} w-28`} />
+        <input
+          id={`${id}-hours`}
+          inputMode="decimal"
+          value={hours}
+          onChange={(e) => setHours(e.target.value)}
+          className={`${fieldClass} w-28`}
+        />
       </span>
       <button type="submit" disabled={add.isPending} className={quietButton}>
         Add riding

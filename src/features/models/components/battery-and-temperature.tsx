@@ -24,7 +24,15 @@ function evidence(life: BatteryLifeFigure): string {
   return `${life.batteries} ${life.batteries === 1 ? 'battery' : 'batteries'} of ${life.riders} ${life.riders === 1 ? 'rider' : 'riders'}, ${life.ranFlat} ran flat, ${running} still running or changed early`;
 }
 
-function BatteryHeadline({ life, claim, minimums }: { life: BatteryLifeFigure; claim: ModelConditions['claim']; minimums: ModelConditions['minimums'] }) {
+function BatteryHeadline({
+  life,
+  claim,
+  minimums,
+}: {
+  life: BatteryLifeFigure;
+  claim: ModelConditions['claim'];
+  minimums: ModelConditions['minimums'];
+}) {
   return (
     <div className="rounded-card border border-paper-line bg-white p-5 shadow-card">
       <p className="text-caption font-semibold uppercase tracking-wide text-ink-soft">Median hours of riding per battery</p>
@@ -41,7 +49,8 @@ function BatteryHeadline({ life, claim, minimums }: { life: BatteryLifeFigure; c
       <p className="mt-3 text-body text-ink-soft" data-testid="battery-claim">
         {claim ? (
           <>
-            The maker claims <span className="font-semibold text-ink">{wholeHours(claim.hours)}</span> <span className="text-caption text-ink-faint">(source: {claim.source})</span>
+            The maker claims <span className="font-semibold text-ink">{wholeHours(claim.hours)}</span>{' '}
+            <span className="text-caption text-ink-faint">(source: {claim.source})</span>
           </>
         ) : (
           'No claim from the maker entered yet.'
@@ -58,16 +67,26 @@ function BatteryByFirmware({ firmware }: { firmware: FirmwareBatteryLife[] }) {
         <caption className="sr-only">Battery life for each firmware version, against its predecessor</caption>
         <thead className="border-b border-paper-line bg-paper-deep/60 text-caption uppercase tracking-wide text-ink-soft">
           <tr>
-            <th scope="col" className="px-4 py-3">Firmware</th>
-            <th scope="col" className="px-4 py-3">Batteries (riders)</th>
-            <th scope="col" className="px-4 py-3">Median per battery</th>
-            <th scope="col" className="px-4 py-3">Against the previous version</th>
+            <th scope="col" className="px-4 py-3">
+              Firmware
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Batteries (riders)
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Median per battery
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Against the previous version
+            </th>
           </tr>
         </thead>
         <tbody>
           {[...firmware].reverse().map((f) => (
             <tr key={f.version} className="border-b border-paper-line/70 last:border-0">
-              <th scope="row" className="px-4 py-3 font-medium">{f.version}</th>
+              <th scope="row" className="px-4 py-3 font-medium">
+                {f.version}
+              </th>
               <td className="px-4 py-3 tabular-nums">
                 {f.life.batteries} ({f.life.riders})
               </td>
@@ -75,9 +94,13 @@ function BatteryByFirmware({ firmware }: { firmware: FirmwareBatteryLife[] }) {
               <td className="px-4 py-3">
                 {f.againstPredecessor ? (
                   <>
-                    <span className={`rounded-full px-2.5 py-0.5 text-caption font-medium ${VERDICT_STYLE[f.againstPredecessor.verdict]}`}>{f.againstPredecessor.words}</span>
+                    <span className={`rounded-full px-2.5 py-0.5 text-caption font-medium ${VERDICT_STYLE[f.againstPredecessor.verdict]}`}>
+                      {f.againstPredecessor.words}
+                    </span>
                     {f.againstPredecessor.adjustedPValue !== null && (
-                      <div className="mt-1 text-caption text-ink-faint">log-rank over riders, {pValue(f.againstPredecessor.adjustedPValue)} after Holm's adjustment</div>
+                      <div className="mt-1 text-caption text-ink-faint">
+                        log-rank over riders, {pValue(f.againstPredecessor.adjustedPValue)} after Holm's adjustment
+                      </div>
                     )}
                   </>
                 ) : (
@@ -101,16 +124,26 @@ function TemperatureTable({ bands, minimumRiders }: { bands: TemperatureBandFigu
         <caption className="sr-only">Bias of this meter against its partners in each temperature band</caption>
         <thead className="border-b border-paper-line bg-paper-deep/60 text-caption uppercase tracking-wide text-ink-soft">
           <tr>
-            <th scope="col" className="px-4 py-3">Head unit temperature</th>
-            <th scope="col" className="px-4 py-3">Rides (riders)</th>
-            <th scope="col" className="px-4 py-3">Hours</th>
-            <th scope="col" className="px-4 py-3">Bias (95 %, over riders)</th>
+            <th scope="col" className="px-4 py-3">
+              Head unit temperature
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Rides (riders)
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Hours
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Bias (95 %, over riders)
+            </th>
           </tr>
         </thead>
         <tbody>
           {seen.map((b) => (
             <tr key={b.band} className="border-b border-paper-line/70 last:border-0">
-              <th scope="row" className="px-4 py-3 font-medium">{b.band}</th>
+              <th scope="row" className="px-4 py-3 font-medium">
+                {b.band}
+              </th>
               <td className="px-4 py-3 tabular-nums">
                 {b.rides} ({b.riders})
               </td>
@@ -137,7 +170,12 @@ function TemperatureTable({ bands, minimumRiders }: { bands: TemperatureBandFigu
 export function BatteryAndTemperature({ modelSlug, version }: { modelSlug: string; version?: string }) {
   const conditions = useModelConditions(modelSlug);
   if (conditions.isPending) return <p className="text-ink-soft">Loading…</p>;
-  if (conditions.isError) return <p role="alert" className="text-alert-800">{conditions.error.message}</p>;
+  if (conditions.isError)
+    return (
+      <p role="alert" className="text-alert-800">
+        {conditions.error.message}
+      </p>
+    );
   const c = conditions.data;
   const one = version === undefined ? undefined : c.firmware.find((f) => f.version === version);
   const life = one ? one.life : c.batteryLife;
@@ -148,15 +186,18 @@ export function BatteryAndTemperature({ modelSlug, version }: { modelSlug: strin
         <BatteryHeadline life={life} claim={c.claim} minimums={c.minimums} />
         {one?.againstPredecessor ? (
           <p className="rounded-card border border-paper-line bg-white p-5 shadow-card" data-testid="battery-verdict">
-            <span className={`rounded-full px-2.5 py-0.5 font-medium ${VERDICT_STYLE[one.againstPredecessor.verdict]}`}>{one.againstPredecessor.words}</span>
+            <span className={`rounded-full px-2.5 py-0.5 font-medium ${VERDICT_STYLE[one.againstPredecessor.verdict]}`}>
+              {one.againstPredecessor.words}
+            </span>
           </p>
         ) : version === undefined ? (
           <BatteryByFirmware firmware={c.firmware} />
         ) : null}
       </div>
       <p className="max-w-3xl text-caption text-ink-faint">
-        Hours come from riders' logs: the rides they submitted with the meter, and riding they added by hand. Batteries still running count as "at least this long".
-        Battery life depends on temperature, storage and the cell; follow the maker's instructions for the battery type and how to change it.
+        Hours come from riders' logs: the rides they submitted with the meter, and riding they added by hand. Batteries still running count
+        as "at least this long". Battery life depends on temperature, storage and the cell; follow the maker's instructions for the battery
+        type and how to change it.
       </p>
       <div>
         <h3 className="mb-2 font-semibold text-ink">Bias by temperature</h3>

@@ -5,7 +5,15 @@ import { useSetBatteryClaim } from '../api/set-battery-claim';
 import { ActionDone, ActionError, inputClass, primaryButton, quietButton } from './curation-parts';
 
 /** The maker's claimed hours per battery, with where the maker says so; shown beside the riders' figure. */
-export function BatteryClaimForm({ modelId, current, affects }: { modelId: number; current: { hours: number; source: string } | null; affects: QueryKey[] }) {
+export function BatteryClaimForm({
+  modelId,
+  current,
+  affects,
+}: {
+  modelId: number;
+  current: { hours: number; source: string } | null;
+  affects: QueryKey[];
+}) {
   const hoursId = useId();
   const sourceId = useId();
   const [hours, setHours] = useState(current ? String(current.hours) : '');
@@ -34,13 +42,24 @@ export function BatteryClaimForm({ modelId, current, affects }: { modelId: numbe
         <label htmlFor={sourceId} className="text-caption font-medium text-ink">
           Where the maker says so
         </label>
-        <input id={sourceId} maxLength={300} value={source} onChange={(e) => setSource(e.target.value)} className={`${inputClass} w-full`} />
+        <input
+          id={sourceId}
+          maxLength={300}
+          value={source}
+          onChange={(e) => setSource(e.target.value)}
+          className={`${inputClass} w-full`}
+        />
       </span>
       <button type="submit" disabled={claim.isPending} className={primaryButton}>
         Save the claim
       </button>
       {current && (
-        <button type="button" disabled={claim.isPending} onClick={() => claim.mutate({ modelId, hours: null, source: null })} className={quietButton}>
+        <button
+          type="button"
+          disabled={claim.isPending}
+          onClick={() => claim.mutate({ modelId, hours: null, source: null })}
+          className={quietButton}
+        >
           Clear it
         </button>
       )}
