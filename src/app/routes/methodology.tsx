@@ -7,6 +7,7 @@ import {
   MIN_OVERLAP_SECONDS,
 } from '@shared/analysis/method';
 import { OPEN_DATA_LICENCE } from '@shared/schemas/statistics';
+import { MIN_BATTERIES, MIN_BATTERY_RIDERS, MIN_TEMPERATURE_RIDERS } from '@shared/statistics/battery-life';
 import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
@@ -64,6 +65,33 @@ export function MethodologyRoute() {
           <li>
             <strong>Minimum evidence</strong>: below {MINIMUM_SUBMISSIONS} accepted rides or {MINIMUM_RIDERS} riders we write "not enough data yet" instead of a
             number.
+          </li>
+        </ul>
+      </PageSection>
+
+      <PageSection title="Battery life and temperature">
+        <ul className="list-disc space-y-2 pl-5">
+          <li>
+            <strong>Batteries</strong>: riders log each battery change or recharge on My meters, with the firmware the meter runs and why the battery before came
+            out. A battery's hours are the rider's submitted rides with a meter of that model and position on its days (not counted when the rider has two such
+            meters, since the rides could be either's) plus riding the rider adds by hand, which we mark as self-reported. A battery that ran flat or warned ends
+            its life; one changed early, and the one still in the meter, count as "at least this long" (censored).
+          </li>
+          <li>
+            <strong>Median hours per battery</strong>: read off the Kaplan–Meier curve, which uses censored batteries without pretending they died. Its 95 %
+            interval comes from resampling riders, not batteries, because one rider's batteries are alike (the same riding, climate and cells). Below{' '}
+            {MIN_BATTERIES} batteries or {MIN_BATTERY_RIDERS} riders we write "not enough batteries yet"; while fewer than half have run flat we write "more than"
+            the longest time followed. The maker's claim is shown beside it, as a moderator entered it with its source.
+          </li>
+          <li>
+            <strong>Firmware against its predecessor</strong>: a log-rank test whose variance is summed over riders (the robust score test of Lin and Wei), with
+            Holm's adjustment over all of a model's firmware steps. The verdict says "run flat sooner" or "last longer" only when the adjusted p-value is below
+            5 %; otherwise "no clear difference" or "not enough batteries yet".
+          </li>
+          <li>
+            <strong>Bias by temperature</strong>: each accepted ride's bias in each band of the head unit's temperature, as the model's meter read it against its
+            partner; each rider's rides are averaged first and the interval is a t interval over riders, shown from {MIN_TEMPERATURE_RIDERS} riders. The head unit
+            measures the air near the bars, not the meter itself.
           </li>
         </ul>
       </PageSection>

@@ -190,7 +190,7 @@ export function BatteryAndTemperature({ modelSlug, version }: { modelSlug: strin
               {one.againstPredecessor.words}
             </span>
           </p>
-        ) : version === undefined ? (
+        ) : version === undefined && c.batteryLife.batteries > 0 ? (
           <BatteryByFirmware firmware={c.firmware} />
         ) : null}
       </div>
