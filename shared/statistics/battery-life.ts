@@ -62,10 +62,13 @@ function observations(spans: BatterySpan[]): ClusteredObservation[] {
 
 /**
  * Median hours per battery from the Kaplan–Meier curve (batteries still running or
- * changed early are censored), with a 95 % percentile interval from resampling riders
- * with replacement (cluster bootstrap; Efron & Tibshirani 1993, ch. 13), so that one
- * rider's many batteries count as one rider's evidence. A resample whose curve never
- * reaches one half has an unbounded median: then the upper limit is null.
+ * changed early are censored), with a 95 % interval on the log scale whose standard
+ * error comes from resampling riders with replacement (cluster bootstrap; Efron &
+ * Tibshirani 1993, ch. 13), so that one rider's many batteries count as one rider's
+ * evidence. With few riders the bootstrap's spread is too small: it is scaled by
+ * √(G / (G − 1)) and read against Student's t on G − 1 degrees of freedom (G riders).
+ * When more than 2.5 % of the resamples never reach one half, the upper limit is null.
+ * `npm run validate:battery` prints the coverage this gives on simulated crowds.
  */
 export function batteryLife(spans: BatterySpan[], seed = 1): BatteryLifeFigure {
   const counted = observations(spans);
@@ -78,15 +81,24 @@ export function batteryLife(spans: BatterySpan[], seed = 1): BatteryLifeFigure {
   const medianHours = kaplanMeier(counted).median.estimate;
   const byRider = groupsOf(counted, (o) => o.cluster);
   const random = createRandom(seed);
-  const medians: number[] = [];
+  const logMedians: number[] = [];
+  let unbounded = 0;
   for (let r = 0; r < RESAMPLES; r++) {
     const sample = Array.from({ length: byRider.length }, () => byRider[random.integer(0, byRider.length - 1)]!).flat();
-    medians.push(kaplanMeier(sample).median.estimate ?? Number.POSITIVE_INFINITY);
+    const median = kaplanMeier(sample).median.estimate;
+    if (median === null || median <= 0) unbounded++;
+    else logMedians.push(Math.log(median));
   }
-  medians.sort((x, y) => x - y);
-  const lower = medians[Math.floor(0.025 * RESAMPLES)]!;
-  const upper = medians[Math.ceil(0.975 * RESAMPLES) - 1]!;
-  return { ...base, medianHours, lowerHours: Number.isFinite(lower) ? lower : null, upperHours: Number.isFinite(upper) ? upper : null };
+  if (medianHours === null || medianHours <= 0 || logMedians.length < 2) return { ...base, medianHours, lowerHours: null, upperHours: null };
+  const mean = logMedians.reduce((s, v) => s + v, 0) / logMedians.length;
+  const sd = Math.sqrt(logMedians.reduce((s, v) => s + (v - mean) ** 2, 0) / (logMedians.length - 1));
+  const half = studentTQuantile(0.975, riders - 1) * sd * Math.sqrt(riders / (riders - 1));
+  return {
+    ...base,
+    medianHours,
+    lowerHours: Math.exp(Math.log(medianHours) - half),
+    upperHours: unbounded > 0.025 * RESAMPLES ? null : Math.exp(Math.log(medianHours) + half),
+  };
 }
 
 /**
@@ -100,7 +112,7 @@ export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: numb
     if (!previous?.life.enough || !current.life.enough) return null;
     return clusteredLogRankTest(observations(previous.own), observations(current.own));
   });
-  const adjusted = holmAdjust(tests.map((t) => t?.pValue ?? null));
+  const adjusted = holmAdjust(tests.map((t) => t?.smallSamplePValue ?? null));
   return lives.map((current, i) => {
     const previous = lives[i - 1];
     if (!previous) return { version: current.f.version, life: current.life, againstPredecessor: null };
@@ -111,7 +123,7 @@ export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: numb
       from: previous.f.version,
       verdict,
       words: batteryVerdictWords(verdict, previous.f.version),
-      pValue: test?.pValue ?? null,
+      pValue: test?.smallSamplePValue ?? null,
       adjustedPValue: adjusted[i] ?? null,
     };
     return { version: current.f.version, life: current.life, againstPredecessor };

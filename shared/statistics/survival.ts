@@ -1,5 +1,5 @@
 import type { Interval } from './binomial';
-import { chiSquareCdf, chiSquareQuantile } from './distributions';
+import { chiSquareCdf, chiSquareQuantile, studentTTwoSidedP } from './distributions';
 
 /** One battery (or any unit followed until an event): its time, and whether the event was seen or it was still running. */
 export interface SurvivalObservation {
@@ -130,7 +130,15 @@ export interface ClusteredLogRankTest {
   score: number;
   robustVariance: number;
   chiSquare: number;
+  /** From χ² on 1 degree of freedom, as R gives it. */
   pValue: number;
+  /**
+   * With few clusters the robust variance is too small and χ² too liberal: the
+   * small-sample version scales the variance by G / (G − 1) and reads z against
+   * Student's t on G − 1 degrees of freedom (common practice for cluster-robust
+   * tests with few clusters, e.g. Cameron & Miller, J Human Resources 2015).
+   */
+  smallSamplePValue: number;
   clusters: number;
 }
 
@@ -179,5 +187,7 @@ export function clusteredLogRankTest(first: ClusteredObservation[], second: Clus
   }
   const robustVariance = [...byCluster.values()].reduce((sum, u) => sum + u * u, 0);
   const chiSquare = robustVariance > 0 ? (score * score) / robustVariance : 0;
-  return { score, robustVariance, chiSquare, pValue: robustVariance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1, clusters: byCluster.size };
+  const g = byCluster.size;
+  const smallSamplePValue = robustVariance > 0 && g > 1 ? studentTTwoSidedP(Math.sqrt(chiSquare * ((g - 1) / g)), g - 1) : 1;
+  return { score, robustVariance, chiSquare, pValue: robustVariance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1, smallSamplePValue, clusters: g };
 }

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { batteryLife, batteryLifeByFirmware, batteryPeriods, biasByTemperature, MIN_BATTERIES, type BatterySpan } from '@shared/statistics/battery-life';
 import { holmAdjust } from '@shared/statistics/multiple-comparisons';
 import { clusteredLogRankTest, type ClusteredObservation } from '@shared/statistics/survival';
-import { createRandom } from '@shared/simulator/random';
+import { simulateBatteryCrowd, type BatteryCrowdOptions } from '@shared/simulator/battery-crowd';
 
 // survival::rats, the female rats (Mantel, Bohidar & Ciminera, Cancer Research 1977): litter is the
 // cluster. Printed by tests/shared/statistics/reference/clustered-logrank-rats.R.
@@ -52,25 +52,11 @@ describe('batteryPeriods', () => {
   });
 });
 
-/** A simulated crowd: riders with their own usage (a rider effect), batteries lasting Weibull-like times around `median` hours. */
-function crowd(seed: number, { riders, batteriesPerRider, median, firmwareId, stillRunningShare = 0.2 }: { riders: number; batteriesPerRider: number; median: number; firmwareId: number; stillRunningShare?: number }): BatterySpan[] {
-  const random = createRandom(seed);
-  const spans: BatterySpan[] = [];
-  for (let r = 0; r < riders; r++) {
-    const riderFactor = Math.exp(0.3 * random.normal());
-    for (let b = 0; b < batteriesPerRider; b++) {
-      // Exponential life with median `median`: −ln(U) × median / ln 2.
-      const life = (-Math.log(1 - random.next()) * median * riderFactor) / Math.LN2;
-      const censored = random.chance(stillRunningShare);
-      spans.push({ riderId: seed * 1000 + r, firmwareId, hours: censored ? life * random.next() : life, ended: !censored });
-    }
-  }
-  return spans;
-}
+const crowd = (seed: number, options: Omit<BatteryCrowdOptions, 'shape'>) => simulateBatteryCrowd(seed, { ...options, medianHours: options.medianHours, shape: 1 });
 
 describe('batteryLife', () => {
   it('when fewer than the minimum batteries or riders are logged, then there is no median, only the counts', () => {
-    const few = crowd(1, { riders: 2, batteriesPerRider: 4, median: 300, firmwareId: 1 });
+    const few = crowd(1, { riders: 2, batteriesPerRider: 4, medianHours: 300, firmwareId: 1 });
     const life = batteryLife(few);
     expect(life.enough).toBe(false);
     expect(life.medianHours).toBeNull();
@@ -82,7 +68,7 @@ describe('batteryLife', () => {
   it('when a simulated crowd has a known median, then the interval contains it in most crowds (coverage over 40 crowds)', () => {
     let covered = 0;
     for (let seed = 1; seed <= 40; seed++) {
-      const life = batteryLife(crowd(seed, { riders: 12, batteriesPerRider: 3, median: 400, firmwareId: 1 }), seed);
+      const life = batteryLife(crowd(seed, { riders: 12, batteriesPerRider: 3, medianHours: 400, firmwareId: 1 }), seed);
       expect(life.enough).toBe(true);
       if ((life.lowerHours ?? 0) <= 400 && 400 <= (life.upperHours ?? Number.POSITIVE_INFINITY)) covered++;
     }
@@ -91,10 +77,12 @@ describe('batteryLife', () => {
   });
 
   it('when fewer than half of the batteries have run flat, then the median is null and the longest time followed is given', () => {
-    const spans = crowd(3, { riders: 6, batteriesPerRider: 2, median: 500, firmwareId: 1, stillRunningShare: 0.9 });
+    // Six riders, two batteries each: only the first rider's two have run flat (at 100 and 150 h), the rest still run at 200–300 h.
+    const spans = Array.from({ length: 12 }, (_, i) => ({ riderId: Math.floor(i / 2), firmwareId: 1, hours: i < 2 ? 100 + 50 * i : 200 + 10 * i, ended: i < 2 }));
     const life = batteryLife(spans);
     expect(life.medianHours).toBeNull();
-    expect(life.longestFollowedHours).toBeGreaterThan(0);
+    expect(life.upperHours).toBeNull();
+    expect(life.longestFollowedHours).toBe(310);
   });
 });
 
@@ -103,9 +91,9 @@ describe('batteryLifeByFirmware', () => {
 
   it('when battery life halves with one version, then that step reads "run flat sooner" and the unchanged step reads "no clear difference"', () => {
     const spans = [
-      ...crowd(11, { riders: 10, batteriesPerRider: 3, median: 400, firmwareId: 1 }),
-      ...crowd(12, { riders: 10, batteriesPerRider: 3, median: 400, firmwareId: 2 }),
-      ...crowd(13, { riders: 10, batteriesPerRider: 3, median: 150, firmwareId: 3 }),
+      ...crowd(11, { riders: 10, batteriesPerRider: 3, medianHours: 400, firmwareId: 1 }),
+      ...crowd(12, { riders: 10, batteriesPerRider: 3, medianHours: 400, firmwareId: 2 }),
+      ...crowd(13, { riders: 10, batteriesPerRider: 3, medianHours: 150, firmwareId: 3 }),
     ];
     const [first, second, third] = batteryLifeByFirmware(spans, firmware);
     expect(first!.againstPredecessor).toBeNull();
@@ -120,7 +108,7 @@ describe('batteryLifeByFirmware', () => {
     let falseVerdicts = 0;
     const histories = 60;
     for (let h = 0; h < histories; h++) {
-      const spans = firmware.flatMap((f) => crowd(100 + h * 10 + f.id, { riders: 8, batteriesPerRider: 3, median: 300, firmwareId: f.id }));
+      const spans = firmware.flatMap((f) => crowd(100 + h * 10 + f.id, { riders: 8, batteriesPerRider: 3, medianHours: 300, firmwareId: f.id }));
       const steps = batteryLifeByFirmware(spans, firmware).slice(1);
       if (steps.some((s) => s.againstPredecessor!.verdict === 'better' || s.againstPredecessor!.verdict === 'worse')) falseVerdicts++;
     }
