@@ -26,6 +26,7 @@ import { runMigrations } from '../server/db/migrate';
 import { recomputeAllAggregates, updateAggregatesForSubmission } from '../server/features/statistics/aggregates';
 import { ensureConsensusFresh } from '../server/features/statistics/consensus.service';
 import { createLogger } from '../server/lib/logger';
+import { createObjectStore } from '../server/lib/object-store';
 import { freePort } from './lib/port';
 import { ensureDatabase, startCluster } from './lib/postgres-cluster';
 
@@ -72,7 +73,7 @@ async function timed<T>(label: string, run: () => Promise<T>): Promise<T> {
 /** Server mode: the app over the benchmark database, reporting its port to the parent. */
 async function serve(databaseUrl: string) {
   const config = loadConfig({ NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: databaseUrl });
-  const server = http.createServer(createApp({ config, db: createDb(databaseUrl), logger: createLogger(config) }));
+  const server = http.createServer(createApp({ config, db: createDb(databaseUrl), logger: createLogger(config), store: createObjectStore(config) }));
   server.listen(0, '127.0.0.1', () => process.send!({ port: (server.address() as AddressInfo).port }));
   process.on('disconnect', () => process.exit(0));
 }

@@ -24,6 +24,7 @@ import { mySubmissionsRouter, submissionsRouter } from './features/submissions/s
 import { threadsRouter } from './features/threads/threads.routes';
 import { accountRouter } from './features/users/users.routes';
 import type { Logger } from './lib/logger';
+import type { ObjectStore } from './lib/object-store';
 import { errorHandler, notFound } from './middleware/error-handler';
 import { addressWriteLimiter, writeLimiter } from './middleware/rate-limit';
 import type { Queue } from './jobs/queue';
@@ -33,6 +34,8 @@ export interface AppDeps {
   db: Db;
   logger: Logger;
   queue?: Queue;
+  /** Where uploads' originals (location removed) are kept. */
+  store: ObjectStore;
   /** The built client; default: dist/ of the checkout. */
   clientDist?: string;
 }
@@ -72,11 +75,11 @@ export function createApp(deps: AppDeps) {
   app.use(['/api', '/auth/logout'], csrf.requireCsrfToken);
   app.use('/auth', authRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));
-  app.use('/api/account', accountRouter({ db }));
-  app.use('/api/admin', adminRouter({ db }));
+  app.use('/api/account', accountRouter({ db, store: deps.store, logger }));
+  app.use('/api/admin', adminRouter({ db, store: deps.store }));
   app.use('/api/catalogue', catalogueRouter({ db }));
   app.use('/api/catalogue/aliases', catalogueAliasRouter({ db }));
-  app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config }));
+  app.use('/api/submissions', submissionsRouter({ db, queue: deps.queue, config: deps.config, store: deps.store }));
   app.use('/api/me/submissions', mySubmissionsRouter({ db }));
   app.use('/api/submissions', submissionDecisionRouter({ db, queue: deps.queue, config: deps.config }));
   app.use('/api/me/meters', myMetersRouter({ db }));

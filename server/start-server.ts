@@ -6,6 +6,7 @@ import { startQueue } from './jobs/queue';
 import { registerWorkers } from './jobs/workers';
 import { closeRecordingTasks } from './features/submissions/recording-tasks';
 import { createLogger } from './lib/logger';
+import { createObjectStore } from './lib/object-store';
 
 export interface RunningServer {
   url: string;
@@ -18,9 +19,10 @@ export interface RunningServer {
 export async function startServer(config: Config): Promise<RunningServer> {
   const logger = createLogger(config);
   const db = createDb(config.DATABASE_URL);
+  const store = createObjectStore(config);
   const queue = await startQueue(config.DATABASE_URL, logger);
-  if (config.RUN_WORKER) await registerWorkers({ queue, db, logger, config });
-  const app = createApp({ config, db, logger, queue });
+  if (config.RUN_WORKER) await registerWorkers({ queue, db, logger, config, store });
+  const app = createApp({ config, db, logger, queue, store });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s));
     s.once('error', reject);
@@ -35,6 +37,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       await closeHttpServer(server);
       await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
       await db.destroy();
+      store.close();
       await closeRecordingTasks();
     },
   };

@@ -6,6 +6,7 @@ import { startQueue } from './jobs/queue';
 import { registerWorkers } from './jobs/workers';
 import { createShutdown } from './lib/graceful-shutdown';
 import { createLogger } from './lib/logger';
+import { createObjectStore } from './lib/object-store';
 
 const config = loadConfig();
 const logger = createLogger(config);
@@ -15,5 +16,7 @@ const db = createDb(config.DATABASE_URL);
 shutdown.add('the database connections', () => db.destroy());
 const queue = await startQueue(config.DATABASE_URL, logger);
 shutdown.add('the job queue', () => queue.stop({ graceful: true, wait: true, timeout: 10_000 }), 20_000);
-await registerWorkers({ queue, db, logger, config });
+const store = createObjectStore(config);
+shutdown.add('the object store client', () => store.close());
+await registerWorkers({ queue, db, logger, config, store });
 logger.info('Crosswatt worker is running');

@@ -1,12 +1,14 @@
 // One throwaway PostgreSQL cluster for the whole test run: a temporary folder, a
-// free port, a migrated template database that each test file copies. Removed
-// afterwards, even when tests fail.
+// free port, a migrated template database that each test file copies; and one fake
+// S3 service in which each test file makes its own bucket. Removed afterwards, even
+// when tests fail.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { register } from 'tsx/esm/api';
 import { createDb } from '../server/db/knex';
+import { startFakeS3 } from '../server/fakes/fake-s3';
 import { runMigrations } from '../server/db/migrate';
 import { startQueue } from '../server/jobs/queue';
 import { createLogger } from '../server/lib/logger';
@@ -20,6 +22,7 @@ export const TEMPLATE_DATABASE = 'crosswatt_template';
 
 interface Shared {
   adminUrl: string;
+  objectStoreEnv: Record<string, string>;
   users: number;
   teardown: () => void;
 }
@@ -31,7 +34,9 @@ async function startShared(): Promise<Shared> {
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'crosswatt-test-'));
   fs.chmodSync(folder, 0o755);
   const cluster = startCluster({ dataDir: path.join(folder, 'pg'), port: await freePort(), log: () => {} });
+  const objectStore = await startFakeS3({ directory: path.join(folder, 's3') });
   const teardown = () => {
+    void objectStore.stop();
     cluster.stop();
     fs.rmSync(folder, { recursive: true, force: true });
   };
@@ -47,7 +52,7 @@ async function startShared(): Promise<Shared> {
     teardown();
     throw err;
   }
-  return { adminUrl: cluster.urlFor('postgres'), users: 0, teardown };
+  return { adminUrl: cluster.urlFor('postgres'), objectStoreEnv: objectStore.env, users: 0, teardown };
 }
 
 export default async function setup(project: TestProject) {
@@ -55,6 +60,7 @@ export default async function setup(project: TestProject) {
   const shared = await state.crosswattTestCluster;
   shared.users++;
   project.provide('databaseAdminUrl', shared.adminUrl);
+  project.provide('objectStoreEnv', shared.objectStoreEnv);
   return () => {
     shared.users--;
     if (shared.users === 0) shared.teardown();
@@ -64,5 +70,7 @@ export default async function setup(project: TestProject) {
 declare module 'vitest' {
   export interface ProvidedContext {
     databaseAdminUrl: string;
+    /** The S3_* settings of the run's fake S3 service (each file sets its own S3_BUCKET). */
+    objectStoreEnv: Record<string, string>;
   }
 }

@@ -55,7 +55,9 @@ export function runCrosswatt(options: RunOptions = {}) {
     const db = createDb(databaseUrl);
     shutdown.add('the database connections', () => db.destroy());
     await runMigrations(db);
-    const fakes = await startLocalFakes({ db, logger });
+    // The object store's fake keeps its files beside PostgreSQL's, unless S3_ENDPOINT names a real store.
+    const objectStoreDir = env.CROSSWATT_OBJECT_STORE_DIR ?? '.data/object-store';
+    const fakes = await startLocalFakes({ db, logger, objectStore: env.S3_ENDPOINT ? false : { directory: objectStoreDir } });
     shutdown.add('the local fakes', () => fakes.stop());
     await options.beforeServer?.();
     const config = loadConfig({

@@ -14,6 +14,7 @@ import { analyseSubmission } from '@server/features/submissions/analyse-submissi
 import { ensureDemoIdentity } from '@server/fakes/demo-identities';
 import { decideSubmission } from '@server/features/moderation/moderation.service';
 import { type Config, loadConfig } from '@server/config/env';
+import { createObjectStore, type ObjectStore } from '@server/lib/object-store';
 import type { SessionUser } from '@server/features/users/users.service';
 import { planDemoWorld, type Outcome, type PlannedSide, type PlannedSubmission } from './plan';
 import { seedBatteryLogs } from './batteries';
@@ -30,6 +31,8 @@ export interface SeedDemoOptions {
   log?: (line: string) => void;
   /** For the links in thread e-mails to followers; default: the environment's configuration. */
   config?: Config;
+  /** Where the uploads' originals go; default: the configuration's object store. */
+  store?: ObjectStore;
 }
 
 export interface SeedDemoReport {
@@ -83,12 +86,13 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
   }
 
   const config = options.config ?? loadConfig();
+  const store = options.store ?? createObjectStore(config);
   await options.db.transaction(async (trx) => {
     log(`Demo world: building ${MAKERS.length} makers, ${MODELS.length} models and ${plan.length} submissions through the real pipeline…`);
     const ids = await timed('catalogue', () => createCatalogue(trx, now));
     const people = await timed('people', () => createPeople(trx));
     for (const planned of plan) {
-      const id = await uploadAndAnalyse(trx, planned, ids, people.get(planned.rider)!.id, timed);
+      const id = await uploadAndAnalyse({ db: trx, store }, planned, ids, people.get(planned.rider)!.id, timed);
       report.submissionIds.push(id);
       const { status } = await trx('submissions').where({ id }).first('status');
       if (status === 'failed') report.failed += 1;
@@ -180,7 +184,13 @@ function tagsOf(side: PlannedSide, ids: CatalogueIds) {
 
 type Timed = <T>(phase: 'simulate' | 'upload' | 'analyse', step: () => Promise<T>) => Promise<T>;
 
-async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: CatalogueIds, riderId: number, timed: Timed): Promise<number> {
+async function uploadAndAnalyse(
+  { db, store }: { db: Knex; store: ObjectStore },
+  planned: PlannedSubmission,
+  ids: CatalogueIds,
+  riderId: number,
+  timed: Timed,
+): Promise<number> {
   const { pair, b } = await timed('simulate', async () => {
     const pair = simulatePair(planned.simulation);
     return { pair, b: planned.otherRide ? simulatePair(planned.otherRide).b : pair.b };
@@ -194,7 +204,7 @@ async function uploadAndAnalyse(db: Knex, planned: PlannedSubmission, ids: Catal
   });
   const name = `ride-${planned.index + 1}`;
   const { id } = await timed('upload', () =>
-    createSubmission({ db }, riderId, input, {
+    createSubmission({ db, store }, riderId, input, {
       a: { buffer: Buffer.from(pair.a), originalName: `${name}-a.fit` },
       b: { buffer: Buffer.from(b), originalName: `${name}-b.fit` },
     }),

@@ -37,6 +37,20 @@ const configSchema = z.object({
   /** Thread posts (new threads, replies, edits) per person in ten minutes. */
   RATE_LIMIT_POSTS_PER_TEN_MINUTES: z.coerce.number().int().positive().default(10),
   SUBMISSIONS_PER_DAY: z.coerce.number().int().positive().default(20),
+
+  // Object storage for the uploaded files (location removed), through the S3 API:
+  // any S3-compatible store; npm start and the tests point these at a fake on loopback.
+  /** The store's URL; unset means the S3 service of S3_REGION. */
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be an S3 bucket name (3–63 of a–z, 0–9, . and -)').default('crosswatt-originals'),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  /** Both or neither: without them the SDK's own credential chain is used (instance roles and the like). */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Bucket in the path rather than the host name, as most self-hosted stores want. */
+  S3_FORCE_PATH_STYLE: booleanish.default(false),
+  /** Objects no recording refers to are removed once they are this old (an upload in flight writes before it commits). */
+  ORIGINALS_SWEEP_GRACE_HOURS: z.coerce.number().positive().default(24),
 });
 
 export type Config = z.infer<typeof configSchema>;
@@ -54,6 +68,9 @@ export function loadConfig(env: Record<string, string | undefined> = process.env
   }
   if (parsed.data.NODE_ENV === 'production' && parsed.data.OAUTH_FAKE) {
     throw new ConfigError('Invalid configuration: OAUTH_FAKE (the local stand-in sign-in service) cannot be used in production');
+  }
+  if (Boolean(parsed.data.S3_ACCESS_KEY_ID) !== Boolean(parsed.data.S3_SECRET_ACCESS_KEY)) {
+    throw new ConfigError('Invalid configuration: set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither');
   }
   return parsed.data;
 }

@@ -2,6 +2,7 @@ import type { Db } from '../db/knex';
 import type { Logger } from '../lib/logger';
 import { ensureDemoPeople } from './demo-identities';
 import { startFakeOAuth } from './fake-oauth';
+import { startFakeS3 } from './fake-s3';
 import { startFakeSmtp } from './fake-smtp';
 
 export interface LocalFakes {
@@ -10,9 +11,15 @@ export interface LocalFakes {
   stop(): Promise<void>;
 }
 
-// Starts the loopback stand-ins for hosted services (OAuth provider, SMTP) and
-// returns the settings that point the app at them. Used by npm start and tests.
-export async function startLocalFakes(options: { db: Db; logger: Logger; host?: string }): Promise<LocalFakes> {
+// Starts the loopback stand-ins for hosted services (OAuth provider, SMTP, object
+// storage) and returns the settings that point the app at them. Used by npm start and tests.
+export async function startLocalFakes(options: {
+  db: Db;
+  logger: Logger;
+  host?: string;
+  /** Where the fake object store keeps its files (default: a temporary folder removed on stop); false: no fake store. */
+  objectStore?: { directory?: string } | false;
+}): Promise<LocalFakes> {
   const stops: Array<() => Promise<void>> = [];
   const env: Record<string, string> = {};
 
@@ -26,6 +33,13 @@ export async function startLocalFakes(options: { db: Db; logger: Logger; host?: 
   const smtp = await startFakeSmtp({ db: options.db, host: options.host });
   stops.push(smtp.stop);
   Object.assign(env, smtp.env);
+
+  // Object storage: the uploads' originals (location removed), through the S3 API.
+  if (options.objectStore !== false) {
+    const s3 = await startFakeS3({ host: options.host, directory: options.objectStore?.directory });
+    stops.push(s3.stop);
+    Object.assign(env, s3.env);
+  }
   return {
     env,
     async stop() {

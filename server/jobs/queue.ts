@@ -1,5 +1,6 @@
 import PgBoss from 'pg-boss';
 import { createMailQueue } from '../features/mail/send-mail.job';
+import { createOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
 import { createAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 
@@ -13,5 +14,6 @@ export async function startQueue(databaseUrl: string, logger: Logger): Promise<Q
   await boss.start();
   await createAnalysisQueue(boss);
   await createMailQueue(boss);
+  await createOriginalsSweepQueue(boss);
   return boss;
 }

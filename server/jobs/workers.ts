@@ -1,8 +1,10 @@
 import type { Config } from '../config/env';
 import type { Db } from '../db/knex';
 import { workMailQueue } from '../features/mail/send-mail.job';
+import { workOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
 import { workAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
+import type { ObjectStore } from '../lib/object-store';
 import type { Queue } from './queue';
 
 export interface WorkerDeps {
@@ -10,11 +12,13 @@ export interface WorkerDeps {
   db: Db;
   logger: Logger;
   config: Config;
+  store: ObjectStore;
 }
 
 // Each feature's job handlers are registered here, once, for both the in-process
 // worker and `npm run worker`.
-export async function registerWorkers({ queue, db, logger, config }: WorkerDeps): Promise<void> {
+export async function registerWorkers({ queue, db, logger, config, store }: WorkerDeps): Promise<void> {
   await workAnalysisQueue(queue, db, logger);
   await workMailQueue(queue, db, config, logger);
+  await workOriginalsSweepQueue(queue, { db, store, logger, graceHours: config.ORIGINALS_SWEEP_GRACE_HOURS });
 }

@@ -7,6 +7,7 @@ import { createCatalogue, submissionMeta } from '../server/support/catalogue-fac
 import { asBuffer } from '../server/submissions/fit-pairs';
 import { saveScreenshot, watchConsole } from './support/browser';
 import { useBrowserSession } from './support/browser-session';
+import { testObjectStore } from '../support/test-object-store';
 
 describe('a rider reads how the meters behaved as the morning warmed up', () => {
   const e2e = useBrowserSession();
@@ -35,7 +36,7 @@ describe('a rider reads how the meters behaved as the morning warmed up', () => 
       },
       b: { position: 'total' },
     });
-    const { id } = await createSubmission({ db: e2e.db }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
+    const { id } = await createSubmission({ db: e2e.db, store: testObjectStore() }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
       a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
       b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
     });

@@ -8,6 +8,7 @@ import { createCatalogue, submissionMeta } from '../server/support/catalogue-fac
 import { asBuffer } from '../server/submissions/fit-pairs';
 import { saveScreenshot, watchConsole } from './support/browser';
 import { useBrowserSession } from './support/browser-session';
+import { testObjectStore } from '../support/test-object-store';
 
 describe('a reviewer inspects one ride on its result page', () => {
   const e2e = useBrowserSession();
@@ -36,7 +37,7 @@ describe('a reviewer inspects one ride on its result page', () => {
       },
       b: { position: 'dual', dropouts: [{ kind: 'power', startSecond: 1200, durationSeconds: 8 }] },
     });
-    const { id } = await createSubmission({ db: e2e.db }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
+    const { id } = await createSubmission({ db: e2e.db, store: testObjectStore() }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
       a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
       b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
     });

@@ -6,12 +6,13 @@ import { createApp } from '../../server/app';
 import { SESSION_COOKIE } from '../../server/auth/session';
 import { createDb } from '../../server/db/knex';
 import { createLogger } from '../../server/lib/logger';
+import { createObjectStore } from '../../server/lib/object-store';
 import { testConfig } from './support/test-app';
 
 // PostgreSQL is down: nothing listens on this port.
 const config = testConfig({ DATABASE_URL: `postgres://crosswatt@127.0.0.1:${await freePort()}/gone` });
 const db = createDb(config.DATABASE_URL);
-const app = createApp({ config, db, logger: createLogger(config) });
+const app = createApp({ config, db, logger: createLogger(config), store: createObjectStore(config) });
 afterAll(() => db.destroy());
 
 /** A validly signed session cookie, as express-session writes it (cookie-signature: "s:" + id + "." + HMAC-SHA256, base64 without padding). */

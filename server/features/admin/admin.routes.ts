@@ -14,12 +14,15 @@ import {
 import type { GrantableRole } from '../../../shared/roles';
 import { requireRole } from '../../auth/require-user';
 import type { Db } from '../../db/knex';
+import type { ObjectStore } from '../../lib/object-store';
 import { validate } from '../../middleware/validate';
 import { AUDIT_PAGE_SIZE, listAuditLog } from '../audit/audit.repository';
+import { originalsStoreSize } from '../originals/originals.service';
 import { grantRole, listMakers, listUsers, removeMakerStaff, revokeRole, verifyMakerStaff } from '../users/users.service';
 
-// Admins manage people: roles, maker staff memberships, and read the audit log.
-export function adminRouter({ db }: { db: Db }) {
+// Admins manage people: roles, maker staff memberships, and read the audit log and
+// how much the object store of uploaded files holds.
+export function adminRouter({ db, store }: { db: Db; store: ObjectStore }) {
   const router = Router();
   const admin = requireRole('admin');
   const userId = (params: unknown) => (params as { userId: number }).userId;
@@ -53,6 +56,11 @@ export function adminRouter({ db }: { db: Db }) {
   router.delete('/users/:userId/maker-staff', admin, validate(userIdParams, 'params'), async (req, res) => {
     await removeMakerStaff(db, { actorId: req.user!.id, userId: userId(res.locals.params) });
     res.status(204).end();
+  });
+
+  router.get('/object-store', admin, async (_req, res) => {
+    const { objects, bytes } = await originalsStoreSize(store);
+    res.json({ objects, bytes });
   });
 
   router.get('/audit-log', admin, validate(auditLogQuery, 'query'), async (_req, res) => {

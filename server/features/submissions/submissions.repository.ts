@@ -11,6 +11,9 @@ export interface NewRecording {
   deviceInfo: DeviceInfo;
   recordingStats: RecordingStatistics;
   stream: Buffer;
+  /** The uploaded file minus location, already in the object store. */
+  original: { key: string; bytes: number };
+  decoderVersion: number;
 }
 
 /** The earlier submission of the same two files in either order (A and B swapped is the same ride). */
@@ -55,6 +58,9 @@ export async function insertSubmission(
       device_info: JSON.stringify(storedDeviceInfo(r.deviceInfo)),
       recording_stats: JSON.stringify(storedRecordingStats(r.recordingStats)),
       stream: r.stream,
+      original_key: r.original.key,
+      original_bytes: r.original.bytes,
+      decoder_version: r.decoderVersion,
     })),
   );
   return id;

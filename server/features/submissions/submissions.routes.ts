@@ -5,6 +5,7 @@ import { requireUser } from '../../auth/require-user';
 import type { Config } from '../../config/env';
 import type { Db } from '../../db/knex';
 import type { Queue } from '../../jobs/queue';
+import type { ObjectStore } from '../../lib/object-store';
 import { NotFoundError, ValidationError } from '../../lib/errors';
 import { fitUpload, uploadedFile } from '../../middleware/fit-upload';
 import { submissionsPerDayLimiter } from '../../middleware/rate-limit';
@@ -33,7 +34,7 @@ function parseMeta(raw: unknown) {
   return parsed.data;
 }
 
-export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config }) {
+export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config; store: ObjectStore }) {
   const { db } = deps;
   const router = Router();
 

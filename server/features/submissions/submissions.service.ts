@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { DECODER_VERSION } from '@shared/analysis/decode-fit';
 import { AnalysisError, formatDuration } from '@shared/analysis/errors';
 import { MAX_CLOCK_OFFSET_SECONDS, MIN_OVERLAP_SECONDS } from '@shared/analysis/method';
 import type { RecordingStatistics, Side } from '@shared/analysis/types';
@@ -7,6 +8,8 @@ import { findUsableFirmware, findUsableModel, findUsableRecordingDevice } from '
 import { AppError, ConflictError, ValidationError } from '../../lib/errors';
 import { isUniqueViolation } from '../../lib/pg-errors';
 import type { Queue } from '../../jobs/queue';
+import type { ObjectStore } from '../../lib/object-store';
+import { keepOriginals } from '../originals/originals.service';
 import { enqueueAnalysis } from './analyse-submission.job';
 import { prepareRecording, RecordingTaskError } from './recording-tasks';
 import type { PreparedRecording } from './recording-tasks.worker';
@@ -28,12 +31,13 @@ class UnusableFileError extends AppError {
 }
 
 /**
- * Checks the tags and both files, then stores the submission and its two
- * normalised streams in one transaction and queues the analysis. Nothing is
- * written when anything is wrong.
+ * Checks the tags and both files, writes both files (location removed) to the
+ * object store, then stores the submission and its two normalised streams in one
+ * transaction and queues the analysis. Nothing is written when anything is wrong;
+ * objects written for an upload that then fails are swept later.
  */
 export async function createSubmission(
-  deps: { db: Knex; queue?: Queue },
+  deps: { db: Knex; queue?: Queue; store: ObjectStore },
   riderId: number,
   input: CreateSubmissionInput,
   files: Record<Side, UploadedFile>,
@@ -53,6 +57,12 @@ export async function createSubmission(
   // The same two files with A and B swapped are the same ride: refused like an exact re-upload.
   const existing = await submissions.findIdBySameFiles(db, hashes.a, hashes.b);
   if (existing) throw duplicate(existing);
+  // Objects first, rows second: a row never names an object that is not there.
+  const [keptA, keptB] = await keepOriginals(deps.store, [
+    { sha256: streams.a.originalSha256, bytes: streams.a.original },
+    { sha256: streams.b.originalSha256, bytes: streams.b.original },
+  ]);
+  const originals = { a: keptA, b: keptB };
 
   let id: number;
   try {
@@ -76,6 +86,8 @@ export async function createSubmission(
           deviceInfo: streams[side].device,
           recordingStats: streams[side].recording,
           stream: streams[side].stored,
+          original: originals[side],
+          decoderVersion: DECODER_VERSION,
         })),
       ),
     );

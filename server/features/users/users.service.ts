@@ -8,7 +8,10 @@ import {
   type UpdateAccountInput,
 } from '../../../shared/schemas/auth';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
+import type { Logger } from '../../lib/logger';
+import type { ObjectStore } from '../../lib/object-store';
 import { recordAudit } from '../audit/audit.repository';
+import { detachOriginalsOfRider } from '../originals/originals.service';
 import * as users from './users.repository';
 
 /** Who is making a request, as the server keeps it on `req.user`. */
@@ -114,9 +117,12 @@ export async function updateAccount(db: Knex, userId: number, input: UpdateAccou
 /**
  * Deleting an account keeps its rows (submissions' statistics stay) but removes
  * everything that identifies the person; their posts then show "deleted rider".
+ * Their uploaded files are removed from the object store once the rows no longer
+ * name them (a store that fails then leaves them to the sweep of unnamed objects).
  */
-export async function deleteAccount(db: Knex, userId: number, confirmHandle: string): Promise<void> {
-  await db.transaction(async (trx) => {
+export async function deleteAccount(deps: { db: Knex; store: ObjectStore; logger?: Logger }, userId: number, confirmHandle: string): Promise<void> {
+  const { db } = deps;
+  const removeOriginals = await db.transaction(async (trx) => {
     const user = await users.findUserById(trx, userId);
     if (!user || user.deletedAt) throw new NotFoundError('This account no longer exists.');
     if (user.handle !== confirmHandle) {
@@ -139,7 +145,9 @@ export async function deleteAccount(db: Knex, userId: number, confirmHandle: str
     });
     // No personal data in the record: the point of deleting is to forget it.
     await recordAudit(trx, { actorId: userId, action: 'user.deleted', subjectType: 'user', subjectId: userId, before: { roles } });
+    return detachOriginalsOfRider(trx, userId);
   });
+  await removeOriginals(deps);
 }
 
 async function activeUser(trx: Knex.Transaction, userId: number) {

@@ -1,4 +1,5 @@
 import { afterAll } from 'vitest';
+import { testObjectStoreEnv } from '../../support/test-object-store';
 import { buildClientIfStale } from '../../../scripts/lib/client-build';
 import { freePort } from '../../../scripts/lib/port';
 import { loadConfig } from '../../../server/config/env';
@@ -13,11 +14,13 @@ export async function startAppForBrowser(): Promise<RunningServer> {
   await buildClientIfStale(() => {});
   const logger = createLogger({ LOG_LEVEL: 'silent' });
   const db = createDb(process.env.DATABASE_URL!);
-  const fakes = await startLocalFakes({ db, logger });
+  // The object store is this test file's bucket (setup-database.ts), which the test's own uploads share.
+  const fakes = await startLocalFakes({ db, logger, objectStore: false });
   const config = loadConfig({
     NODE_ENV: 'test',
     LOG_LEVEL: 'silent',
     DATABASE_URL: process.env.DATABASE_URL,
+    ...testObjectStoreEnv(),
     PORT: String(await freePort()),
     ...fakes.env,
   });

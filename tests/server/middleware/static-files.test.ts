@@ -6,6 +6,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { createApp, HASHED_ASSET_MAX_AGE_SECONDS } from '../../../server/app';
 import { createDb } from '../../../server/db/knex';
 import { createLogger } from '../../../server/lib/logger';
+import { createObjectStore } from '../../../server/lib/object-store';
 import { testConfig } from '../support/test-app';
 
 // A built client as Vite writes it: index.html, hashed files under assets/, and a
@@ -20,7 +21,7 @@ fs.writeFileSync(path.join(dist, 'favicon.svg'), '<svg xmlns="http://www.w3.org/
 
 const config = testConfig();
 const db = createDb(config.DATABASE_URL);
-const app = createApp({ config, db, logger: createLogger(config), clientDist: dist });
+const app = createApp({ config, db, logger: createLogger(config), store: createObjectStore(config), clientDist: dist });
 afterAll(async () => {
   await db.destroy();
   fs.rmSync(dist, { recursive: true, force: true });

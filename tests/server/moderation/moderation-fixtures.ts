@@ -4,6 +4,7 @@ import { createSubmission } from '../../../server/features/submissions/submissio
 import { createSubmissionInput } from '../../../shared/schemas/submission';
 import { type TestCatalogue, submissionMeta } from '../support/catalogue-factory';
 import { asBuffer, cleanPair } from '../submissions/fit-pairs';
+import { testObjectStore } from '../../support/test-object-store';
 
 let nextSeed = 1000;
 
@@ -14,7 +15,7 @@ let nextSeed = 1000;
 export async function submissionAwaitingReview(db: Db, riderId: number, catalogue: TestCatalogue, options: { seed?: number; meta?: Record<string, unknown> } = {}) {
   const pair = cleanPair(options.seed ?? nextSeed++);
   const input = createSubmissionInput.parse(submissionMeta(catalogue, options.meta));
-  const { id } = await createSubmission({ db }, riderId, input, {
+  const { id } = await createSubmission({ db, store: testObjectStore() }, riderId, input, {
     a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
     b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
   });

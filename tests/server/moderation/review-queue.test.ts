@@ -7,6 +7,7 @@ import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
 import { asBuffer, cleanPair } from '../submissions/fit-pairs';
 import { submissionAwaitingReview } from './moderation-fixtures';
+import { testObjectStore } from '../../support/test-object-store';
 
 const { app, db } = await createTestContext({ fakes: true });
 
@@ -69,7 +70,7 @@ describe('the review page', () => {
     // The same ride written by another head unit: other files by hash, the same streams.
     const input = createSubmissionInput.parse(submissionMeta(catalogue));
     const other = cleanPair(7001, { headUnitSerial: 987_654 });
-    const { id: again } = await createSubmission({ db }, rider.user.id, input, {
+    const { id: again } = await createSubmission({ db, store: testObjectStore() }, rider.user.id, input, {
       a: { buffer: asBuffer(other.a), originalName: 'a.fit' },
       b: { buffer: asBuffer(other.b), originalName: 'b.fit' },
     });

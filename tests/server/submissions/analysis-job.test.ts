@@ -15,6 +15,7 @@ import { asBuffer, cleanPair } from './fit-pairs';
 import { insertFirmware } from '../../../server/features/catalogue/catalogue.repository';
 import { versionOrder } from '../../../shared/schemas/catalogue';
 import { simulatePair } from '../../../shared/simulator/pair';
+import { testObjectStore } from '../../support/test-object-store';
 
 const { app, db, queue } = await createTestContext({ fakes: true, worker: true });
 
@@ -39,7 +40,7 @@ async function waitForStatus(agent: TestAgent, id: number, statuses: string[], t
 async function storedSubmission(seed: number) {
   const pair = cleanPair(seed);
   const input = createSubmissionInput.parse(submissionMeta(catalogue));
-  const { id } = await createSubmission({ db }, rider.user.id, input, {
+  const { id } = await createSubmission({ db, store: testObjectStore() }, rider.user.id, input, {
     a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
     b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
   });
@@ -82,7 +83,7 @@ describe('the analysis job', () => {
     });
     const meta = submissionMeta(catalogue);
     const input = createSubmissionInput.parse({ ...meta, a: { ...meta.a, firmwareId: tagged.id } });
-    const { id } = await createSubmission({ db }, rider.user.id, input, {
+    const { id } = await createSubmission({ db, store: testObjectStore() }, rider.user.id, input, {
       a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
       b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
     });

@@ -9,6 +9,7 @@ import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/
 import { signedInAgent, type TestAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
 import { asBuffer, cleanPair } from './fit-pairs';
+import { testObjectStore } from '../../support/test-object-store';
 
 const { app, db } = await createTestContext({ fakes: true });
 
@@ -22,7 +23,7 @@ beforeAll(async () => {
 
 async function analysedSubmission(seed: number) {
   const pair = cleanPair(seed);
-  const { id } = await createSubmission({ db }, rider.user.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
+  const { id } = await createSubmission({ db, store: testObjectStore() }, rider.user.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
     a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
     b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
   });

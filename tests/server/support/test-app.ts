@@ -1,4 +1,5 @@
 import { afterAll } from 'vitest';
+import { testObjectStoreEnv } from '../../support/test-object-store';
 import { createApp } from '../../../server/app';
 import { type Config, loadConfig } from '../../../server/config/env';
 import { createDb, type Db } from '../../../server/db/knex';
@@ -6,12 +7,15 @@ import { type LocalFakes, startLocalFakes } from '../../../server/fakes/start-fa
 import { type Queue, startQueue } from '../../../server/jobs/queue';
 import { registerWorkers } from '../../../server/jobs/workers';
 import { createLogger } from '../../../server/lib/logger';
+import { createObjectStore, type ObjectStore } from '../../../server/lib/object-store';
 
 export interface TestContext {
   app: ReturnType<typeof createApp>;
   db: Db;
   config: Config;
   queue?: Queue;
+  /** This test file's bucket in the run's fake S3 service. */
+  store: ObjectStore;
   /** With `fakes: true`: the local fake OAuth provider (and other fakes). */
   fakes?: LocalFakes;
 }
@@ -29,6 +33,8 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     NODE_ENV: 'test',
     LOG_LEVEL: 'silent',
     DATABASE_URL: process.env.DATABASE_URL,
+    // This file's bucket in the run's fake S3 service (tests/server/setup-database.ts).
+    ...testObjectStoreEnv(),
     // Tests sign in and write far faster than people; rate-limit tests lower these.
     RATE_LIMIT_WRITES_PER_WINDOW: '10000',
     RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW: '10000',
@@ -46,17 +52,20 @@ export async function createTestContext(
   const bootConfig = testConfig(options.env);
   const logger = createLogger(bootConfig);
   const db = createDb(bootConfig.DATABASE_URL);
-  const fakes = options.fakes ? await startLocalFakes({ db, logger }) : undefined;
+  // Every test file has its own bucket already (setup-database.ts): no fake store of its own.
+  const fakes = options.fakes ? await startLocalFakes({ db, logger, objectStore: false }) : undefined;
   const config = fakes ? testConfig({ ...fakes.env, ...options.env }) : bootConfig;
   const queue = options.queue || options.worker ? await startQueue(config.DATABASE_URL, logger) : undefined;
-  if (queue && options.worker) await registerWorkers({ queue, db, logger, config });
-  const app = createApp({ config, db, logger, queue });
+  const store = createObjectStore(config);
+  if (queue && options.worker) await registerWorkers({ queue, db, logger, config, store });
+  const app = createApp({ config, db, logger, queue, store });
   afterAll(async () => {
     await queue?.stop({ graceful: false, wait: true });
     await fakes?.stop();
+    store.close();
     await db.destroy();
   });
-  const context = { app, db, config, queue, fakes };
+  const context = { app, db, config, queue, store, fakes };
   contexts.set(app, context);
   return context;
 }
