@@ -45,6 +45,8 @@ export async function getReview(db: Knex, submissionId: number, viewer: Viewer) 
     riderHistory,
     duplicates,
     deviceChecks: submission.recordings.flatMap((r) => deviceChecks(r)),
+    // Whether each file is kept (location removed) for decoding again; older recordings have their streams only.
+    originals: submission.recordings.map((r) => ({ side: r.side, kept: r.originalBytes !== null, decoderVersion: r.decoderVersion })),
     history: history.map((h) => ({ ...h, id: Number(h.id), createdAt: new Date(h.createdAt).toISOString() })),
   };
 }

@@ -200,6 +200,8 @@ const recordingColumns = [
   'f.version as firmwareVersion',
   'r.recording_device_id as recordingDeviceId',
   'd.name as recordingDeviceName',
+  'r.original_bytes as originalBytes',
+  'r.decoder_version as decoderVersion',
 ];
 
 export interface SubmissionRecordingRow {
@@ -221,6 +223,10 @@ export interface SubmissionRecordingRow {
   firmwareVersion: string;
   recordingDeviceId: number;
   recordingDeviceName: string;
+  /** Size of the kept original (location removed); null for recordings stored before originals were kept. */
+  originalBytes: number | null;
+  /** The decoder that built the stored stream; null when it was not recorded. */
+  decoderVersion: number | null;
 }
 
 export interface SubmissionRow {

@@ -26,6 +26,7 @@ export interface Review<S = unknown> {
     nearIdentical: boolean;
   }>;
   deviceChecks: Array<{ side: 'a' | 'b'; what: string; tagged: string; inFile: string | null; agrees: boolean | null; message: string }>;
+  originals: Array<{ side: 'a' | 'b'; kept: boolean; decoderVersion: number | null }>;
   history: Array<{ id: number; action: string; reason: string | null; actorHandle: string | null; createdAt: string }>;
 }
 

@@ -49,6 +49,11 @@ export function ReviewEvidence({ review }: { review: Review }) {
             </li>
           ))}
         </ul>
+        <p className="mt-3 text-caption text-ink-soft">
+          {review.originals
+            .map((o) => `File ${o.side.toUpperCase()}: ${o.kept ? 'original kept (location removed)' : 'original not kept, streams only'}`)
+            .join(' · ')}
+        </p>
       </Panel>
 
       <Panel title="Possible duplicates">
