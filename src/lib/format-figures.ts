@@ -52,3 +52,15 @@ export function pValue(p: number): string {
 export function seconds(value: number): string {
   return `${plain(value, Number.isInteger(value) ? 0 : 1)} s`;
 }
+
+/** 0 → "0 B", 1234 → "1.2 kB", 5.6e9 → "5.6 GB" (decimal units, as storage providers bill; the number and unit never part). */
+export function byteSize(bytes: number): string {
+  const units = ['B', 'kB', 'MB', 'GB', 'TB'];
+  let value = bytes;
+  let unit = 0;
+  while (value >= 1000 && unit < units.length - 1) {
+    value /= 1000;
+    unit++;
+  }
+  return `${unit === 0 ? value : value.toFixed(value < 10 ? 1 : 0)}\u00a0${units[unit]}`;
+}

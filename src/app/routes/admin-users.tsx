@@ -1,4 +1,5 @@
 import { AdminPage } from '@/features/admin/components/admin-page';
+import { ObjectStoreLine } from '@/features/admin/components/object-store-line';
 import { UsersTable } from '@/features/admin/components/users-table';
 
 export function AdminUsersRoute() {
@@ -7,7 +8,10 @@ export function AdminUsersRoute() {
       title="People and roles"
       intro="Make people moderators or admins, and verify makers’ staff. Every change goes into the audit log."
     >
-      <UsersTable />
+      <div className="space-y-6">
+        <ObjectStoreLine />
+        <UsersTable />
+      </div>
     </AdminPage>
   );
 }
