@@ -75,6 +75,10 @@ export interface StoredRecording {
   recordingDeviceId: number;
   recordingDeviceFirmware: string;
   stream: Buffer;
+  /** The kept original (location removed) to decode again with a newer decoder (originals.service fetchOriginal); null: streams only. */
+  originalKey: string | null;
+  /** The decoder that built `stream`; null when not recorded. */
+  decoderVersion: number | null;
 }
 
 /** Both stored recordings of a submission with the tags the comparison needs, A first. */
@@ -91,6 +95,8 @@ export async function findStoredRecordings(db: Knex, id: number): Promise<Stored
       'r.recording_device_id as recordingDeviceId',
       'r.recording_device_firmware as recordingDeviceFirmware',
       'r.stream',
+      'r.original_key as originalKey',
+      'r.decoder_version as decoderVersion',
     )
     .orderBy('r.side');
 }
