@@ -58,5 +58,6 @@ for (const scenario of SCENARIOS) {
   console.log(scenario.name.padEnd(52), pct(coverage).padStart(9), String(noMedian).padStart(10), pct(falseRate).padStart(14), pct(halvingFound / CROWDS).padStart(14), met ? '' : '  ← goal missed');
 }
 console.log(`\nGoals: coverage of the median's 95 % interval ≥ ${pct(COVERAGE_GOAL)}; any false verdict over a model's two steps ≤ ${pct(FALSE_VERDICT_GOAL)}.`);
+console.log(`Simulation error at ${CROWDS} crowds: about ±${pct(Math.sqrt((0.95 * 0.05) / CROWDS))} on a coverage of 95 %, ±${pct(Math.sqrt((0.05 * 0.95) / CROWDS))} on a rate of 5 %.`);
 console.log(`${allMet ? 'All goals met' : 'Some goals missed'} in ${((performance.now() - started) / 1000).toFixed(1)} s.`);
 process.exitCode = allMet ? 0 : 1;

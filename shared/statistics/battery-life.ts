@@ -2,7 +2,7 @@ import type { BatteryComparison, BatteryLifeFigure, FirmwareBatteryLife, Previou
 import { createRandom } from '../simulator/random';
 import { studentTQuantile } from './distributions';
 import { holmAdjust } from './multiple-comparisons';
-import { clusteredLogRankTest, kaplanMeier, type ClusteredObservation } from './survival';
+import { clusteredLogRankTest, kaplanMeier, logRankTest, type ClusteredObservation } from './survival';
 import { comparisonVerdict } from './verdict';
 
 /** Below these, battery life is "not enough batteries yet": one rider's habits are not a model's. */
@@ -103,16 +103,21 @@ export function batteryLife(spans: BatterySpan[], seed = 1): BatteryLifeFigure {
 
 /**
  * Battery life per firmware (oldest first), each version against its predecessor by the
- * rider-clustered log-rank test, Holm-adjusted over the model's steps, with its verdict in words.
+ * rider-clustered log-rank test (or the classic one, whichever is less sure), Holm-adjusted
+ * over the model's steps, with its verdict in words.
  */
 export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: number; version: string }[]): FirmwareBatteryLife[] {
   const lives = firmware.map((f) => ({ f, spans: spans.filter((s) => s.firmwareId === f.id) })).map(({ f, spans: own }) => ({ f, own, life: batteryLife(own, f.id) }));
   const tests = lives.map((current, i) => {
     const previous = lives[i - 1];
     if (!previous?.life.enough || !current.life.enough) return null;
-    return clusteredLogRankTest(observations(previous.own), observations(current.own));
+    const older = observations(previous.own);
+    const newer = observations(current.own);
+    const clustered = clusteredLogRankTest(older, newer);
+    // Never more sure than the classic log-rank: with one battery per rider the robust variance alone is too small.
+    return { score: clustered.score, pValue: Math.max(clustered.smallSamplePValue, logRankTest(older, newer).pValue) };
   });
-  const adjusted = holmAdjust(tests.map((t) => t?.smallSamplePValue ?? null));
+  const adjusted = holmAdjust(tests.map((t) => t?.pValue ?? null));
   return lives.map((current, i) => {
     const previous = lives[i - 1];
     if (!previous) return { version: current.f.version, life: current.life, againstPredecessor: null };
@@ -123,7 +128,7 @@ export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: numb
       from: previous.f.version,
       verdict,
       words: batteryVerdictWords(verdict, previous.f.version),
-      pValue: test?.smallSamplePValue ?? null,
+      pValue: test?.pValue ?? null,
       adjustedPValue: adjusted[i] ?? null,
     };
     return { version: current.f.version, life: current.life, againstPredecessor };
