@@ -85,7 +85,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/me/meters', myMetersRouter({ db }));
   app.use('/api/moderation/models', batteryClaimRouter({ db }));
   app.use('/api/moderation', moderationRouter({ db, queue: deps.queue, config: deps.config }));
-  app.use('/api/mail', mailRouter({ db, config: deps.config }));
+  app.use('/api/mail', mailRouter({ db, config: deps.config, queue: deps.queue }));
   app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
   app.use('/api/models', modelConditionsRouter({ db }));

@@ -20,7 +20,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const logger = createLogger(config);
   const db = createDb(config.DATABASE_URL);
   const store = createObjectStore(config);
-  const queue = await startQueue(config.DATABASE_URL, logger);
+  const queue = await startQueue(config, logger);
   if (config.RUN_WORKER) await registerWorkers({ queue, db, logger, config, store });
   const app = createApp({ config, db, logger, queue, store });
   const server = await new Promise<Server>((resolve, reject) => {

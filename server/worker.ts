@@ -14,7 +14,7 @@ const shutdown = createShutdown({ log: (line) => logger.info(line) });
 shutdown.handleSignals();
 const db = createDb(config.DATABASE_URL);
 shutdown.add('the database connections', () => db.destroy());
-const queue = await startQueue(config.DATABASE_URL, logger);
+const queue = await startQueue(config, logger);
 shutdown.add('the job queue', () => queue.stop({ graceful: true, wait: true, timeout: 10_000 }), 20_000);
 const store = createObjectStore(config);
 shutdown.add('the object store client', () => store.close());

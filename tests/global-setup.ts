@@ -7,6 +7,7 @@ import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { register } from 'tsx/esm/api';
+import { loadConfig } from '../server/config/env';
 import { createDb } from '../server/db/knex';
 import { startFakeS3 } from '../server/fakes/fake-s3';
 import { runMigrations } from '../server/db/migrate';
@@ -46,7 +47,7 @@ async function startShared(): Promise<Shared> {
     await runMigrations(db);
     await db.destroy();
     // pg-boss creates its schema on first start; do it once in the template.
-    const queue = await startQueue(cluster.urlFor(TEMPLATE_DATABASE), createLogger({ LOG_LEVEL: 'silent' }));
+    const queue = await startQueue(loadConfig({ DATABASE_URL: cluster.urlFor(TEMPLATE_DATABASE) }), createLogger({ LOG_LEVEL: 'silent' }));
     await queue.stop({ graceful: true, wait: true, timeout: 5_000 });
   } catch (err) {
     teardown();

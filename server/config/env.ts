@@ -51,6 +51,17 @@ const configSchema = z.object({
   S3_FORCE_PATH_STYLE: booleanish.default(false),
   /** Objects no recording refers to are removed once they are this old (an upload in flight writes before it commits). */
   ORIGINALS_SWEEP_GRACE_HOURS: z.coerce.number().positive().default(24),
+  /** Mail retries: the first after this long, each later one twice as long, capped; given up after MAIL_GIVE_UP_AFTER_SECONDS. */
+  MAIL_RETRY_FIRST_DELAY_SECONDS: z.coerce.number().int().positive().default(30),
+  MAIL_RETRY_MAX_DELAY_SECONDS: z.coerce.number().int().positive().default(3600),
+  /** Two days: an outage of a day or more still ends in delivery. */
+  MAIL_GIVE_UP_AFTER_SECONDS: z.coerce.number().int().positive().default(172_800),
+  /** How often every worker looks for mail that is due and has no job (retries, mail stored while no worker ran). */
+  MAIL_SWEEP_SECONDS: z.coerce.number().int().positive().default(30),
+  /** An analysis job still active after this long (its worker died) is failed by pg-boss and retried. */
+  ANALYSIS_JOB_EXPIRE_SECONDS: z.coerce.number().int().min(1).default(90),
+  /** How often pg-boss expires stuck jobs (and does its other upkeep). */
+  JOB_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).default(30),
 });
 
 export type Config = z.infer<typeof configSchema>;

@@ -1,18 +1,27 @@
 import PgBoss from 'pg-boss';
+import type { Config } from '../config/env';
 import { createMailQueue } from '../features/mail/send-mail.job';
 import { createOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
 import { createAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
+import { JOB_SCHEMA } from './queue-schema';
 
 export type Queue = PgBoss;
+export type QueueConfig = Pick<Config, 'DATABASE_URL' | 'ANALYSIS_JOB_EXPIRE_SECONDS' | 'JOB_MAINTENANCE_SECONDS'>;
 
-// pg-boss keeps its jobs in the same PostgreSQL database, in its own schema.
 // Queues are created at start so that web processes can send before any worker runs.
-export async function startQueue(databaseUrl: string, logger: Logger): Promise<Queue> {
-  const boss = new PgBoss({ connectionString: databaseUrl, max: 4 });
+// Maintenance (which fails jobs still active past their expiry, so they are retried)
+// runs in one process at a time, every JOB_MAINTENANCE_SECONDS.
+export async function startQueue(config: QueueConfig, logger: Logger): Promise<Queue> {
+  const boss = new PgBoss({
+    connectionString: config.DATABASE_URL,
+    schema: JOB_SCHEMA,
+    max: 4,
+    maintenanceIntervalSeconds: config.JOB_MAINTENANCE_SECONDS,
+  });
   boss.on('error', (err) => logger.error({ err }, 'job queue error'));
   await boss.start();
-  await createAnalysisQueue(boss);
+  await createAnalysisQueue(boss, config);
   await createMailQueue(boss);
   await createOriginalsSweepQueue(boss);
   return boss;

@@ -1,11 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { mailMessageParams, type MailMessageParams } from '../../../shared/schemas/mail';
 import { requireRole } from '../../auth/require-user';
 import type { Config } from '../../config/env';
 import type { Db } from '../../db/knex';
+import type { Queue } from '../../jobs/queue';
 import { validate } from '../../middleware/validate';
 import * as mail from './mail.repository';
-import { topicDescription, unsubscribe } from './mail.service';
+import { listUndeliveredMail, resendFailedMail, topicDescription, unsubscribe } from './mail.service';
 
 const unsubscribeQuery = z.object({ token: z.string().max(200).default('') });
 const outboxQuery = z.object({ page: z.coerce.number().int().min(1).max(10_000).default(1) });
@@ -20,7 +22,7 @@ h1{font-size:1.5rem;margin:0 0 .75rem;color:#1d5557}a{color:#1d5557}</style></he
 <body><main><h1>${escapeHtml(title)}</h1><p>${escapeHtml(message)}</p><p><a href="/">Back to Crosswatt</a></p></main></body></html>`;
 }
 
-export function mailRouter({ db, config }: { db: Db; config: Config }) {
+export function mailRouter({ db, config, queue }: { db: Db; config: Config; queue?: Queue }) {
   const router = Router();
 
   // One click from an e-mail, without signing in: the signed token says who and what.
@@ -37,6 +39,17 @@ export function mailRouter({ db, config }: { db: Db; config: Config }) {
   router.get('/outbox', requireRole('admin'), validate(outboxQuery, 'query'), async (_req, res) => {
     const { total, messages } = await mail.listOutbox(db, res.locals.query.page);
     res.json({ total, pageSize: mail.OUTBOX_PAGE_SIZE, messages });
+  });
+
+  // Mail that has not reached the mail service, with its last error: admins only.
+  router.get('/undelivered', requireRole('admin'), async (_req, res) => {
+    res.json({ messages: await listUndeliveredMail(db) });
+  });
+
+  router.post('/messages/:id/resend', requireRole('admin'), validate(mailMessageParams, 'params'), async (req, res) => {
+    const { id } = res.locals.params as MailMessageParams;
+    await resendFailedMail(db, { config, queue }, { actorId: req.user!.id, mailId: id });
+    res.status(204).end();
   });
 
   return router;

@@ -1,6 +1,9 @@
 import type { Knex } from 'knex';
 import { type Config, publicUrl } from '../../config/env';
+import type { UndeliveredMail } from '../../../shared/schemas/mail';
 import type { Queue } from '../../jobs/queue';
+import { ConflictError, NotFoundError } from '../../lib/errors';
+import { recordAudit } from '../audit/audit.repository';
 import * as mail from './mail.repository';
 import { enqueueMail } from './send-mail.job';
 import { type MailTopic, signUnsubscribeToken, verifyUnsubscribeToken } from './unsubscribe-token';
@@ -78,4 +81,48 @@ export async function unsubscribe(db: Knex, config: Config, token: string): Prom
 
 export function topicDescription(topic: MailTopic): string {
   return TOPIC_TEXT[topic];
+}
+
+/** Undelivered mail for the admins' Outbox, field by field. */
+export async function listUndeliveredMail(db: Knex): Promise<UndeliveredMail[]> {
+  const rows = await mail.listUndelivered(db);
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    to: r.to,
+    subject: r.subject,
+    status: r.status,
+    attempts: r.attempts,
+    lastError: r.lastError,
+    nextAttemptAt: new Date(r.nextAttemptAt).toISOString(),
+    createdAt: new Date(r.createdAt).toISOString(),
+  }));
+}
+
+/**
+ * An admin's "send again" for a message that was given up: queued once more, due
+ * now, with a fresh give-up clock, and audited. Only a failed message can be sent
+ * again, so a second click (or two admins at once) queues nothing more.
+ */
+export async function resendFailedMail(db: Knex, deps: MailDeps, { actorId, mailId }: { actorId: number; mailId: number }): Promise<void> {
+  const requeued = await db.transaction(async (trx) => {
+    const before = await mail.requeueFailed(trx, mailId);
+    if (before) {
+      await recordAudit(trx, {
+        actorId,
+        action: 'mail.resent',
+        subjectType: 'mail_message',
+        subjectId: mailId,
+        before: { status: 'failed', attempts: before.attempts, lastError: before.lastError },
+        after: { status: 'queued' },
+      });
+    }
+    return before;
+  });
+  if (!requeued) {
+    if (await mail.messageExists(db, mailId)) throw new ConflictError('This message is not failed: it was sent, or it is already waiting to be sent.');
+    throw new NotFoundError('There is no such message.');
+  }
+  // Without a queue (or if queueing fails) a worker's sweep sends it.
+  if (deps.queue) await enqueueMail(deps.queue, mailId).catch(() => undefined);
 }

@@ -2,24 +2,30 @@ import type { Knex } from 'knex';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Config } from '../../config/env';
 import type { Queue } from '../../jobs/queue';
+import { defineQueue } from '../../jobs/queue-schema';
 import type { Logger } from '../../lib/logger';
 import * as mail from './mail.repository';
 
 export const SEND_MAIL_QUEUE = 'send-mail';
-/** Attempts before a message is given up as failed (with back-off, about a quarter of an hour in all). */
-export const MAX_MAIL_ATTEMPTS = 6;
 
+// A job sends one stored message once. Failures to reach the mail service are not
+// pg-boss retries: the message row keeps its attempts, last error and next attempt,
+// and every worker's sweep queues it again when it is due (retryLimit here covers
+// only our own unexpected errors). 'stately' with the message id as singleton key:
+// at most one job waiting and one running per message, whoever sends.
 export async function createMailQueue(queue: Queue) {
-  await queue.createQueue(SEND_MAIL_QUEUE, {
-    name: SEND_MAIL_QUEUE,
-    retryLimit: MAX_MAIL_ATTEMPTS - 1,
-    retryDelay: 5,
-    retryBackoff: true,
-  });
+  await defineQueue(queue, SEND_MAIL_QUEUE, { policy: 'stately', retryLimit: 3, retryDelay: 5, retryBackoff: true, expireInSeconds: 120 });
 }
 
 export async function enqueueMail(queue: Queue, mailId: number) {
   await queue.send(SEND_MAIL_QUEUE, { mailId }, { singletonKey: String(mailId) });
+}
+
+export type MailRetryConfig = Pick<Config, 'MAIL_RETRY_FIRST_DELAY_SECONDS' | 'MAIL_RETRY_MAX_DELAY_SECONDS' | 'MAIL_GIVE_UP_AFTER_SECONDS'>;
+
+/** Seconds to wait after the `attempts`-th failed attempt: doubling from the first delay, capped. */
+export function mailRetryDelaySeconds(attempts: number, config: MailRetryConfig): number {
+  return Math.min(config.MAIL_RETRY_FIRST_DELAY_SECONDS * 2 ** Math.min(attempts - 1, 30), config.MAIL_RETRY_MAX_DELAY_SECONDS);
 }
 
 export function createTransport(config: Config): Transporter {
@@ -39,33 +45,48 @@ export async function workMailQueue(queue: Queue, db: Knex, config: Config, logg
   await queue.work<{ mailId: number }>(SEND_MAIL_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
     await sendQueuedMail(db, transport, config, job.data.mailId, logger);
   });
-  // Messages stored while no worker ran (or whose job was lost) are queued again.
-  for (const id of await mail.findQueuedIds(db)) await enqueueMail(queue, id);
+  // Messages that are due and have no job: retries, mail stored while no worker ran
+  // (the demo seed's, say) or whose job was lost. At start, then periodically.
+  const sweep = async () => {
+    for (const id of await mail.findDueWithoutJob(db, SEND_MAIL_QUEUE)) await enqueueMail(queue, id);
+  };
+  await sweep();
+  const timer = setInterval(() => {
+    sweep().catch((err) => logger.warn({ err }, 'sweep for waiting mail failed'));
+  }, config.MAIL_SWEEP_SECONDS * 1000);
+  timer.unref();
+  queue.once('stopped', () => clearInterval(timer));
 }
 
 /**
- * Sends one stored message. Idempotent: a message already sent (or given up) is
- * left alone. A failure is recorded and thrown so pg-boss retries with back-off;
- * after the last attempt the message is marked failed.
+ * Sends one stored message if it is queued and due. The row stays locked while
+ * it is sent, so two workers never send the same message. A failure is recorded
+ * with the next attempt's time; once the next attempt would fall past the give-up
+ * time the message is marked failed (an admin can send it again).
  */
 export async function sendQueuedMail(db: Knex, transport: Transporter, config: Config, mailId: number, logger?: Logger): Promise<void> {
-  const message = await mail.findQueuedMessage(db, mailId);
-  if (!message) return;
-  try {
-    await transport.sendMail({
-      from: config.SMTP_FROM,
-      to: message.to,
-      subject: message.subject,
-      text: message.text,
-      ...(message.unsubscribeUrl && {
-        list: { unsubscribe: { url: message.unsubscribeUrl, comment: 'Unsubscribe' } },
-      }),
-    });
-    await mail.markSent(db, mailId);
-  } catch (err) {
-    const final = message.attempts + 1 >= MAX_MAIL_ATTEMPTS;
-    await mail.markAttemptFailed(db, mailId, err instanceof Error ? err.message : String(err), final);
-    logger?.warn({ err, mailId, attempts: message.attempts + 1 }, 'sending mail failed');
-    if (!final) throw err;
-  }
+  await db.transaction(async (trx) => {
+    const message = await mail.lockDueMessage(trx, mailId);
+    if (!message) return;
+    try {
+      await transport.sendMail({
+        from: config.SMTP_FROM,
+        to: message.to,
+        subject: message.subject,
+        text: message.text,
+        ...(message.unsubscribeUrl && {
+          list: { unsubscribe: { url: message.unsubscribeUrl, comment: 'Unsubscribe' } },
+        }),
+      });
+      await mail.markSent(trx, mailId);
+    } catch (err) {
+      const attempts = message.attempts + 1;
+      const status = await mail.markAttemptFailed(trx, mailId, {
+        error: err instanceof Error ? err.message : String(err),
+        retryInSeconds: mailRetryDelaySeconds(attempts, config),
+        giveUpAfterSeconds: config.MAIL_GIVE_UP_AFTER_SECONDS,
+      });
+      logger?.warn({ err, mailId, attempts, status }, 'sending mail failed');
+    }
+  });
 }

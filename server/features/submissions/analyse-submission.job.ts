@@ -1,6 +1,8 @@
 import type { Knex } from 'knex';
 import { AnalysisError } from '@shared/analysis/errors';
+import type { Config } from '../../config/env';
 import type { Queue } from '../../jobs/queue';
+import { defineQueue } from '../../jobs/queue-schema';
 import type { Logger } from '../../lib/logger';
 import { compareStoredSubmission } from './ride-comparison';
 import * as submissions from './submissions.repository';
@@ -9,12 +11,16 @@ export const ANALYSE_SUBMISSION_QUEUE = 'analyse-submission';
 /** Attempts before an unexpected error marks the submission failed. */
 export const MAX_ANALYSIS_ATTEMPTS = 3;
 
-export async function createAnalysisQueue(queue: Queue) {
-  await queue.createQueue(ANALYSE_SUBMISSION_QUEUE, {
-    name: ANALYSE_SUBMISSION_QUEUE,
+// 'stately' with the submission id as singleton key: at most one job waiting and one
+// running per submission. A job whose worker died stays active until it expires
+// (ANALYSIS_JOB_EXPIRE_SECONDS, checked by pg-boss's maintenance), then is retried.
+export async function createAnalysisQueue(queue: Queue, config: Pick<Config, 'ANALYSIS_JOB_EXPIRE_SECONDS'>) {
+  await defineQueue(queue, ANALYSE_SUBMISSION_QUEUE, {
+    policy: 'stately',
     retryLimit: MAX_ANALYSIS_ATTEMPTS,
     retryDelay: 1,
     retryBackoff: true,
+    expireInSeconds: config.ANALYSIS_JOB_EXPIRE_SECONDS,
   });
 }
 
@@ -30,10 +36,11 @@ export async function workAnalysisQueue(queue: Queue, db: Knex, logger: Logger, 
     await analyseSubmission(db, job.data.submissionId, logger);
   });
   const requeue = async (idleSeconds: number) => {
-    for (const id of await submissions.findWaitingForAnalysis(db, idleSeconds)) await enqueueAnalysis(queue, id);
+    for (const id of await submissions.findWaitingWithoutJob(db, ANALYSE_SUBMISSION_QUEUE, idleSeconds)) await enqueueAnalysis(queue, id);
   };
-  // Submissions stored while no worker ran are queued again at start; later, those whose
-  // job was lost (say, queueing failed after the upload committed) are picked up by a sweep.
+  // Submissions stored while no worker ran are queued at start; later, those whose job
+  // was lost (say, queueing failed after the upload committed) are picked up by a sweep.
+  // Only submissions without a live job: a restart must not queue a second one.
   await requeue(0);
   const timer = setInterval(() => {
     requeue(sweep.idleSeconds).catch((err) => logger.warn({ err }, 'sweep for lost analysis jobs failed'));

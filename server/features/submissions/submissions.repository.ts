@@ -3,6 +3,7 @@ import type { ComparisonResult, DeviceInfo, MeasurementPosition, QualityFlag, Re
 import type { ModelKind } from '@shared/schemas/catalogue';
 import type { RecordingMode, RecordingTagsInput, SubmissionStatus, Surface, ZeroOffsetAnswer } from '@shared/schemas/submission';
 import { storedDeviceInfo, storedRecordingStats, storedResult } from './stored-ride-facts';
+import { hasLiveJob } from '../../jobs/queue-schema';
 
 export interface NewRecording {
   side: 'a' | 'b';
@@ -178,12 +179,14 @@ export async function markFailed(db: Knex, id: number, code: string, message: st
     .update({ status: 'failed', error_code: code, error_message: message, updated_at: db.fn.now() });
 }
 
-/** Submissions still waiting for their analysis, untouched for at least `idleSeconds`. */
-export async function findWaitingForAnalysis(db: Knex, idleSeconds = 0): Promise<number[]> {
-  const rows = await db('submissions')
-    .whereIn('status', ['received', 'analysing'])
-    .where('updated_at', '<=', db.raw(`now() - make_interval(secs => ?)`, [idleSeconds]))
-    .select('id');
+/** Submissions still waiting for their analysis, untouched for at least `idleSeconds`, with no job waiting or running. */
+export async function findWaitingWithoutJob(db: Knex, queueName: string, idleSeconds = 0): Promise<number[]> {
+  const rows = await db('submissions as s')
+    .whereIn('s.status', ['received', 'analysing'])
+    .where('s.updated_at', '<=', db.raw(`now() - make_interval(secs => ?)`, [idleSeconds]))
+    .whereNot(hasLiveJob(db, queueName, 's.id'))
+    .orderBy('s.id')
+    .select('s.id');
   return rows.map((r) => r.id);
 }
 

@@ -114,6 +114,8 @@ const rules: Record<string, Rule> = {
   'POST /api/me/meters/:meterId/riding': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/riding' },
   'DELETE /api/me/meters/:meterId/riding/:ridingId': { allowed: SIGNED_IN, path: () => '/api/me/meters/999999/riding/1' },
   'PUT /api/moderation/models/:id/battery-claim': { allowed: MODERATORS, path: () => '/api/moderation/models/999999/battery-claim' },
+  // mail (issue 19): admins send a failed message again
+  'POST /api/mail/messages/:id/resend': { allowed: ADMINS, path: () => '/api/mail/messages/999999/resend' },
 };
 
 const WRITE_METHODS = ['post', 'put', 'patch', 'delete'] as const;

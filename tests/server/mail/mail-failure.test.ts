@@ -1,13 +1,15 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createTransport, MAX_MAIL_ATTEMPTS, sendQueuedMail } from '../../../server/features/mail/send-mail.job';
+import { createTransport, sendQueuedMail } from '../../../server/features/mail/send-mail.job';
 import { freePort } from '../../../scripts/lib/port';
 import { createCatalogue, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent } from '../support/sign-in';
-import { createTestContext } from '../support/test-app';
+import { createTestContext, testConfig } from '../support/test-app';
+import { waitFor } from '../../support/wait-for';
 import { submissionAwaitingReview } from '../moderation/moderation-fixtures';
 
 // The mail service is down: nothing listens on SMTP_PORT.
-const { app, db, config } = await createTestContext({ fakes: true, worker: true, env: { SMTP_PORT: String(await freePort()) } });
+const smtpPort = String(await freePort());
+const { app, db, config } = await createTestContext({ fakes: true, worker: true, env: { SMTP_PORT: smtpPort, MAIL_RETRY_FIRST_DELAY_SECONDS: '60' } });
 
 let catalogue: TestCatalogue;
 
@@ -16,7 +18,7 @@ beforeAll(async () => {
 });
 
 describe('e-mail when the mail service is down', () => {
-  it('when the SMTP service refuses connections, then the decision still succeeds and the mail waits for a retry', async () => {
+  it('when the SMTP service refuses connections, then the decision still succeeds and the mail waits for its next attempt', async () => {
     const rider = await signedInAgent(app, { handle: 'unlucky-rider' });
     const moderator = await signedInAgent(app, { handle: 'down-mod', roles: ['moderator'] });
     const { id, version } = await submissionAwaitingReview(db, rider.user.id, catalogue);
@@ -27,26 +29,46 @@ describe('e-mail when the mail service is down', () => {
       .send({ decision: 'accept', expectedVersion: version });
 
     expect(res.status).toBe(200);
-    const until = Date.now() + 10_000;
-    let message: { status: string; attempts: number; last_error: string | null } | undefined;
-    do {
-      message = await db('mail_messages').where({ user_id: rider.user.id }).first('status', 'attempts', 'last_error');
-      if (message && message.attempts > 0) break;
-      await new Promise((r) => setTimeout(r, 200));
-    } while (Date.now() < until);
-    expect(message).toMatchObject({ status: 'queued' });
-    expect(message?.attempts).toBeGreaterThanOrEqual(1);
-    expect(message?.last_error).toMatch(/ECONNREFUSED|connect/i);
+    const message = await waitFor<{ status: string; attempts: number; last_error: string | null; next_attempt_at: Date; created_at: Date }>(
+      () => db('mail_messages').where({ user_id: rider.user.id }).where('attempts', '>', 0).first('status', 'attempts', 'last_error', 'next_attempt_at', 'created_at'),
+      { what: 'a first failed attempt' },
+    );
+    expect(message).toMatchObject({ status: 'queued', attempts: 1 });
+    expect(message.last_error).toMatch(/ECONNREFUSED|connect/i);
+    // The next attempt is a minute on (MAIL_RETRY_FIRST_DELAY_SECONDS above), not at once.
+    expect(message.next_attempt_at.getTime() - message.created_at.getTime()).toBeGreaterThan(50_000);
   });
 
-  it('when the last attempt fails, then the message is marked failed and not retried', async () => {
+  it('when an attempt fails after the give-up time, then the message is marked failed with its error', async () => {
     const rider = await signedInAgent(app, { handle: 'failed-mail-rider' });
     const [{ id }] = await db('mail_messages')
-      .insert({ user_id: rider.user.id, kind: 'submission_accepted', to_address: 'x@riders.crosswatt.test', subject: 's', text_body: 't', attempts: MAX_MAIL_ATTEMPTS - 1 })
+      .insert({
+        user_id: rider.user.id,
+        kind: 'submission_accepted',
+        to_address: 'x@riders.crosswatt.test',
+        subject: 's',
+        text_body: 't',
+        attempts: 20,
+        retrying_since: db.raw(`now() - interval '3 days'`),
+      })
       .returning('id');
 
     await sendQueuedMail(db, createTransport(config), config, id);
 
-    expect(await db('mail_messages').where({ id }).first('status', 'attempts')).toEqual({ status: 'failed', attempts: MAX_MAIL_ATTEMPTS });
+    const stored = await db('mail_messages').where({ id }).first('status', 'attempts', 'last_error');
+    expect(stored).toMatchObject({ status: 'failed', attempts: 21 });
+    expect(stored.last_error).toMatch(/ECONNREFUSED|connect/i);
+  });
+
+  it('when an attempt fails within the give-up time, then the message stays queued', async () => {
+    const rider = await signedInAgent(app, { handle: 'patient-mail-rider' });
+    const [{ id }] = await db('mail_messages')
+      .insert({ user_id: rider.user.id, kind: 'submission_accepted', to_address: 'y@riders.crosswatt.test', subject: 's', text_body: 't', attempts: 20, retrying_since: db.raw(`now() - interval '23 hours'`) })
+      .returning('id');
+
+    // Two days by default (server/config/env.ts): an outage of a whole day is outlived.
+    await sendQueuedMail(db, createTransport(config), testConfig({ SMTP_PORT: smtpPort }), id);
+
+    expect(await db('mail_messages').where({ id }).first('status', 'attempts')).toEqual({ status: 'queued', attempts: 21 });
   });
 });

@@ -55,7 +55,7 @@ export async function createTestContext(
   // Every test file has its own bucket already (setup-database.ts): no fake store of its own.
   const fakes = options.fakes ? await startLocalFakes({ db, logger, objectStore: false }) : undefined;
   const config = fakes ? testConfig({ ...fakes.env, ...options.env }) : bootConfig;
-  const queue = options.queue || options.worker ? await startQueue(config.DATABASE_URL, logger) : undefined;
+  const queue = options.queue || options.worker ? await startQueue(config, logger) : undefined;
   const store = createObjectStore(config);
   if (queue && options.worker) await registerWorkers({ queue, db, logger, config, store });
   const app = createApp({ config, db, logger, queue, store });
