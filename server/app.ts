@@ -71,7 +71,7 @@ export function createApp(deps: AppDeps) {
   const passport = createPassport({ config: deps.config, db });
   const csrf = createCsrf(deps.config);
   app.use(['/api', '/auth'], cookieParser(), sessionMiddleware({ config: deps.config, db }), passport.initialize(), passport.session());
-  app.use(['/api', '/auth'], writeLimiter(deps.config), addressWriteLimiter(deps.config));
+  app.use(['/api', '/auth'], writeLimiter(deps.config, db), addressWriteLimiter(deps.config, db));
   app.use(['/api', '/auth/logout'], csrf.requireCsrfToken);
   app.use('/auth', authRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));

@@ -21,9 +21,9 @@ interface AuthDeps {
 }
 
 // /auth/github → provider → /auth/github/callback → back into Crosswatt, signed in.
-export function authRouter({ config, passport }: AuthDeps) {
+export function authRouter({ config, db, passport }: AuthDeps) {
   const router = Router();
-  const limitSignIns = signInLimiter(config);
+  const limitSignIns = signInLimiter(config, db);
 
   router.get('/github', limitSignIns, validate(signInQuerySchema, 'query'), (req, res, next) => {
     const { login, returnTo } = res.locals.query as { login?: string; returnTo?: string };

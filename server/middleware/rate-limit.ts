@@ -1,6 +1,12 @@
 import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Config } from '../config/env';
+import type { Db } from '../db/knex';
+import { PostgresRateLimitStore } from './postgres-rate-limit-store';
+
+// Every limiter counts in PostgreSQL, so the budgets hold across web processes and
+// restarts. The daily submission limit is counted from the submissions themselves
+// (server/features/submissions/submissions.service.ts).
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -13,13 +19,17 @@ function addressKey(req: Request): string {
   return `ip:${ipKeyGenerator(req.ip ?? '')}`;
 }
 
-function limiter(
-  windowMs: number,
-  limit: number,
-  message: string,
-  skip?: (req: Request) => boolean,
-  keyGenerator: (req: Request) => string = personKey,
-): RequestHandler {
+interface LimiterOptions {
+  /** Names the budget in the shared table: one name per limiter. */
+  name: string;
+  windowMs: number;
+  limit: number;
+  message: string;
+  skip?: (req: Request) => boolean;
+  keyGenerator?: (req: Request) => string;
+}
+
+function limiter(db: Db, { name, windowMs, limit, message, skip, keyGenerator = personKey }: LimiterOptions): RequestHandler {
   return rateLimit({
     windowMs,
     limit,
@@ -27,81 +37,64 @@ function limiter(
     legacyHeaders: false,
     keyGenerator,
     skip,
+    store: new PostgresRateLimitStore(db, `${name}:`),
+    // With PostgreSQL unreachable the request goes on and fails (or answers 503) on its own.
+    passOnStoreError: true,
     handler: (_req, res, _next, options) => {
       res.status(options.statusCode).json({ error: { code: 'too_many_requests', message } });
     },
   });
 }
 
+const isRead = (req: Request) => SAFE_METHODS.has(req.method);
+
 /**
  * One budget for every state-changing request (POST/PUT/PATCH/DELETE) of one
  * person. app.ts mounts one instance in front of all routers, so every write
  * route is covered, including ones added later.
  */
-export function writeLimiter(config: Config): RequestHandler {
-  return limiter(
-    config.RATE_LIMIT_WINDOW_MS,
-    config.RATE_LIMIT_WRITES_PER_WINDOW,
-    'Too many changes in a short time. Wait a minute and try again.',
-    (req) => SAFE_METHODS.has(req.method),
-  );
+export function writeLimiter(config: Config, db: Db): RequestHandler {
+  return limiter(db, {
+    name: 'writes',
+    windowMs: config.RATE_LIMIT_WINDOW_MS,
+    limit: config.RATE_LIMIT_WRITES_PER_WINDOW,
+    message: 'Too many changes in a short time. Wait a minute and try again.',
+    skip: isRead,
+  });
 }
 
 /**
  * A wider budget per network address, whoever is signed in: many accounts
  * writing from one address are limited together.
  */
-export function addressWriteLimiter(config: Config): RequestHandler {
-  return limiter(
-    config.RATE_LIMIT_WINDOW_MS,
-    config.RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW,
-    'Too many changes from your network in a short time. Wait a minute and try again.',
-    (req) => SAFE_METHODS.has(req.method),
-    addressKey,
-  );
+export function addressWriteLimiter(config: Config, db: Db): RequestHandler {
+  return limiter(db, {
+    name: 'address-writes',
+    windowMs: config.RATE_LIMIT_WINDOW_MS,
+    limit: config.RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW,
+    message: 'Too many changes from your network in a short time. Wait a minute and try again.',
+    skip: isRead,
+    keyGenerator: addressKey,
+  });
 }
 
-/** Starting a sign-in and coming back from the provider. */
-export function signInLimiter(config: Config): RequestHandler {
-  return limiter(
-    config.RATE_LIMIT_WINDOW_MS,
-    config.RATE_LIMIT_SIGNINS_PER_WINDOW,
-    'Too many sign-in attempts in a short time. Wait a minute and try again.',
-  );
-}
-
-const DAY_MS = 24 * 60 * 60 * 1000;
-
-/**
- * How many submissions one rider may make in 24 hours (SUBMISSIONS_PER_DAY).
- * Refused uploads (a bad file, a duplicate) do not count against it.
- */
-export function submissionsPerDayLimiter(config: Config): RequestHandler {
-  const perDay = config.SUBMISSIONS_PER_DAY;
-  return rateLimit({
-    windowMs: DAY_MS,
-    limit: perDay,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    keyGenerator: personKey,
-    skipFailedRequests: true,
-    handler: (_req, res, _next, options) => {
-      res.status(options.statusCode).json({
-        error: {
-          code: 'daily_submission_limit',
-          message: `You have made ${perDay} submissions in the last 24 hours, the most Crosswatt takes from one rider in a day. Please try again tomorrow.`,
-        },
-      });
-    },
+/** Starting a sign-in (the provider's callback is not counted: one sign-in, one hit). */
+export function signInLimiter(config: Config, db: Db): RequestHandler {
+  return limiter(db, {
+    name: 'sign-ins',
+    windowMs: config.RATE_LIMIT_WINDOW_MS,
+    limit: config.RATE_LIMIT_SIGNINS_PER_WINDOW,
+    message: 'Too many sign-in attempts in a short time. Wait a minute and try again.',
   });
 }
 
 /** Starting threads, replying and editing posts; counted on top of the write budget. */
-export function postingLimiter(config: Config): RequestHandler {
-  return limiter(
-    10 * 60_000,
-    config.RATE_LIMIT_POSTS_PER_TEN_MINUTES,
-    'You have posted a lot in the last few minutes. Wait a little before posting again.',
-    (req) => SAFE_METHODS.has(req.method),
-  );
+export function postingLimiter(config: Config, db: Db): RequestHandler {
+  return limiter(db, {
+    name: 'posts',
+    windowMs: 10 * 60_000,
+    limit: config.RATE_LIMIT_POSTS_PER_TEN_MINUTES,
+    message: 'You have posted a lot in the last few minutes. Wait a little before posting again.',
+    skip: isRead,
+  });
 }

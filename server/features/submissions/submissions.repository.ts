@@ -26,6 +26,23 @@ export async function findIdBySameFiles(db: Knex, aSha256: string, bSha256: stri
   return row?.id;
 }
 
+/** Submissions the rider made in the last `hours` hours. */
+export async function countSinceHoursAgo(db: Knex | Knex.Transaction, riderId: number, hours: number): Promise<number> {
+  const [{ count }] = await db('submissions')
+    .where({ rider_id: riderId })
+    .where('created_at', '>', db.raw('now() - make_interval(hours => ?)', [hours]))
+    .count<{ count: string }[]>({ count: '*' });
+  return Number(count);
+}
+
+// The first key of the two-key advisory lock: what is locked (a rider's new submissions).
+const RIDER_SUBMISSIONS_LOCK = 19_001;
+
+/** Holds until the transaction ends: one new submission of this rider at a time, in every process. */
+export async function lockRiderSubmissions(trx: Knex.Transaction, riderId: number): Promise<void> {
+  await trx.raw('select pg_advisory_xact_lock(?, ?)', [RIDER_SUBMISSIONS_LOCK, riderId]);
+}
+
 export async function insertSubmission(
   trx: Knex.Transaction,
   row: { riderId: number; indoor: boolean; surface: string; notes: string; aSha256: string; bSha256: string; rideStartedAt: Date; rideEndedAt: Date },

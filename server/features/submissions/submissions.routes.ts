@@ -8,7 +8,6 @@ import type { Queue } from '../../jobs/queue';
 import type { ObjectStore } from '../../lib/object-store';
 import { NotFoundError, ValidationError } from '../../lib/errors';
 import { fitUpload, uploadedFile } from '../../middleware/fit-upload';
-import { submissionsPerDayLimiter } from '../../middleware/rate-limit';
 import { formatZodError, validate } from '../../middleware/validate';
 import { loadRideTrace } from './ride-trace.service';
 import { createSubmission } from './submissions.service';
@@ -38,9 +37,7 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config;
   const { db } = deps;
   const router = Router();
 
-  const perDay = submissionsPerDayLimiter(deps.config);
-
-  router.post('/', requireUser, perDay, fitUpload, async (req, res) => {
+  router.post('/', requireUser, fitUpload, async (req, res) => {
     const input = parseMeta(req.body?.meta);
     const fileA = uploadedFile(req, 'fileA');
     const fileB = uploadedFile(req, 'fileB');
@@ -48,7 +45,7 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config;
       const fields = { ...(!fileA && { fileA: 'choose the first FIT file (A)' }), ...(!fileB && { fileB: 'choose the second FIT file (B)' }) };
       throw new ValidationError('Upload exactly two FIT files: the first (A) and the second (B).', { fields });
     }
-    const { id } = await createSubmission(deps, req.user!.id, input, {
+    const { id } = await createSubmission({ db, queue: deps.queue, submissionsPerDay: deps.config.SUBMISSIONS_PER_DAY }, req.user!.id, input, {
       a: { buffer: fileA.buffer, originalName: fileA.originalname },
       b: { buffer: fileB.buffer, originalName: fileB.originalname },
     });

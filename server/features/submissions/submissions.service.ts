@@ -30,19 +30,43 @@ class UnusableFileError extends AppError {
   }
 }
 
+class DailySubmissionLimitError extends AppError {
+  constructor(perDay: number) {
+    super(
+      429,
+      'daily_submission_limit',
+      `You have made ${perDay} submissions in the last 24 hours, the most Crosswatt takes from one rider in a day. Please try again tomorrow.`,
+    );
+  }
+}
+
+/**
+ * SUBMISSIONS_PER_DAY: the rider's stored submissions of the last 24 hours are
+ * counted, so the limit holds across processes and restarts, and refused uploads
+ * (a bad file, a duplicate) do not count.
+ */
+async function checkDailyLimit(db: Knex | Knex.Transaction, riderId: number, perDay: number | undefined): Promise<void> {
+  if (perDay === undefined) return;
+  if ((await submissions.countSinceHoursAgo(db, riderId, 24)) >= perDay) throw new DailySubmissionLimitError(perDay);
+}
+
 /**
  * Checks the tags and both files, writes both files (location removed) to the
  * object store, then stores the submission and its two normalised streams in one
  * transaction and queues the analysis. Nothing is written when anything is wrong;
- * objects written for an upload that then fails are swept later.
+ * objects written for an upload that then fails are swept later. With
+ * `submissionsPerDay`, a rider's uploads in 24 hours are limited (the routes set
+ * it; the demo seed and tests need not).
  */
 export async function createSubmission(
-  deps: { db: Knex; queue?: Queue; store: ObjectStore },
+  deps: { db: Knex; queue?: Queue; store: ObjectStore; submissionsPerDay?: number },
   riderId: number,
   input: CreateSubmissionInput,
   files: Record<Side, UploadedFile>,
 ): Promise<{ id: number }> {
   const { db } = deps;
+  // Checked before the files are read (no work for a refused upload), and again under a lock.
+  await checkDailyLimit(db, riderId, deps.submissionsPerDay);
   await checkTags(db, riderId, input);
   // Both files are decoded and checked in worker threads, side by side.
   const [preparedA, preparedB] = await Promise.allSettled([prepare(files.a.buffer, 'a'), prepare(files.b.buffer, 'b')]);
@@ -66,8 +90,11 @@ export async function createSubmission(
 
   let id: number;
   try {
-    id = await db.transaction((trx) =>
-      submissions.insertSubmission(
+    id = await db.transaction(async (trx) => {
+      // One rider's uploads are stored one at a time, so two processes cannot both take the last place of the day.
+      await submissions.lockRiderSubmissions(trx, riderId);
+      await checkDailyLimit(trx, riderId, deps.submissionsPerDay);
+      return submissions.insertSubmission(
         trx,
         {
           riderId,
@@ -89,8 +116,8 @@ export async function createSubmission(
           original: originals[side],
           decoderVersion: DECODER_VERSION,
         })),
-      ),
-    );
+      );
+    });
   } catch (err) {
     if (isUniqueViolation(err)) {
       const raced = await submissions.findIdBySameFiles(db, hashes.a, hashes.b);

@@ -24,7 +24,7 @@ const slugParams = z.object({ slug: z.string().trim().min(1).max(120) });
 export function threadsRouter(deps: service.ThreadDeps) {
   const { db } = deps;
   const router = Router();
-  const posting = postingLimiter(deps.config);
+  const posting = postingLimiter(deps.config, db);
   const threadMakerStaff = requireMakerStaff((req) => service.makerOfThread(db, Number(req.params.id)));
   const threadId = validate(idParams, 'params');
   const show = async (id: number, user: Express.User | undefined) => service.getThread(db, id, user);

@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { describe, expect, it } from 'vitest';
+import { beforeEach, describe, expect, it } from 'vitest';
 import { signedInAgent, signInThroughFakeProvider } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
 
@@ -102,6 +102,11 @@ describe('CSRF protection', () => {
 });
 
 describe('rate limits', () => {
+  // The budgets live in this file's database, shared by all its apps: each test starts from none used.
+  beforeEach(async () => {
+    await db('rate_limit_counters').delete();
+  });
+
   it('when someone writes more often than the limit, then they get a JSON 429', async () => {
     const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_WRITES_PER_WINDOW: '2' } });
     const { agent, csrf } = await signedInAgent(limited.app, { handle: 'eager-writer' });
