@@ -1,9 +1,10 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
+import { createCatalogue, type TestCatalogue } from '../support/catalogue-factory';
 import { lockRiderSubmissions } from '../../../server/features/submissions/submissions.repository';
 import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
-import { asBuffer, cleanPair } from '../submissions/fit-pairs';
+import { cleanPair } from '../submissions/fit-pairs';
+import { uploadPair } from '../support/upload-pair';
 import { waitFor } from '../../support/wait-for';
 
 // Two web processes on one database, as a deployment with more than one runs them
@@ -20,15 +21,7 @@ beforeAll(async () => {
 
 type Rider = Awaited<ReturnType<typeof signedInAgent>>;
 
-async function upload(rider: Rider, seed: number) {
-  const pair = cleanPair(seed);
-  return rider.agent
-    .post('/api/submissions')
-    .set('X-CSRF-Token', await rider.csrf())
-    .field('meta', JSON.stringify(submissionMeta(catalogue)))
-    .attach('fileA', asBuffer(pair.a), 'a.fit')
-    .attach('fileB', asBuffer(pair.b), 'b.fit');
-}
+const upload = (rider: Rider, seed: number) => uploadPair(rider, catalogue, cleanPair(seed));
 
 describe('limits shared by every web process', () => {
   it('when a rider limited to 2 submissions a day has made 2 through one app, then a third through the other app is refused', async () => {

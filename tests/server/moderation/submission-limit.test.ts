@@ -1,8 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
+import { createCatalogue, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent } from '../support/sign-in';
 import { createTestContext } from '../support/test-app';
-import { asBuffer, cleanPair } from '../submissions/fit-pairs';
+import { cleanPair } from '../submissions/fit-pairs';
+import { uploadPair } from '../support/upload-pair';
 
 const { app, db } = await createTestContext({ fakes: true, env: { SUBMISSIONS_PER_DAY: '2' } });
 
@@ -12,15 +13,8 @@ beforeAll(async () => {
   catalogue = await createCatalogue(db);
 });
 
-async function upload(rider: Awaited<ReturnType<typeof signedInAgent>>, seed: number, files?: { a: Uint8Array; b: Uint8Array }) {
-  const pair = files ?? cleanPair(seed);
-  return rider.agent
-    .post('/api/submissions')
-    .set('X-CSRF-Token', await rider.csrf())
-    .field('meta', JSON.stringify(submissionMeta(catalogue)))
-    .attach('fileA', asBuffer(pair.a), 'a.fit')
-    .attach('fileB', asBuffer(pair.b), 'b.fit');
-}
+const upload = (rider: Awaited<ReturnType<typeof signedInAgent>>, seed: number, files?: { a: Uint8Array; b: Uint8Array }) =>
+  uploadPair(rider, catalogue, files ?? cleanPair(seed));
 
 describe('the daily submission limit', () => {
   it('when a rider reaches SUBMISSIONS_PER_DAY, then the next upload is refused with 429 and a clear message; refused uploads do not count; other riders still submit', async () => {
