@@ -33,7 +33,8 @@ export function authRouter({ config, db, passport }: AuthDeps) {
     passport.authenticate(OAUTH_PROVIDER, options)(req, res, next);
   });
 
-  router.get('/github/callback', limitSignIns, (req, res, next) => {
+  // Not limited: the start of the sign-in was counted, and one sign-in is one hit.
+  router.get('/github/callback', (req, res, next) => {
     passport.authenticate(OAUTH_PROVIDER, (err: unknown, user: Express.User | false, info?: { message?: string }) =>
       finishSignIn(req, res, next, err, user, info),
     )(req, res, next);

@@ -2,6 +2,7 @@ import type { Request, RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Config } from '../config/env';
 import type { Db } from '../db/knex';
+import { messagePage } from '../lib/message-page';
 import { PostgresRateLimitStore } from './postgres-rate-limit-store';
 
 // Every limiter counts in PostgreSQL, so the budgets hold across web processes and
@@ -40,8 +41,11 @@ function limiter(db: Db, { name, windowMs, limit, message, skip, keyGenerator = 
     store: new PostgresRateLimitStore(db, `${name}:`),
     // With PostgreSQL unreachable the request goes on and fails (or answers 503) on its own.
     passOnStoreError: true,
-    handler: (_req, res, _next, options) => {
-      res.status(options.statusCode).json({ error: { code: 'too_many_requests', message } });
+    handler: (req, res, _next, options) => {
+      res.status(options.statusCode);
+      // A page the browser navigated to (a sign-in link, say) gets a page; fetches get JSON.
+      if (req.accepts(['json', 'html']) === 'html') res.type('html').send(messagePage('Please wait a moment', message));
+      else res.json({ error: { code: 'too_many_requests', message } });
     },
   });
 }

@@ -133,13 +133,38 @@ describe('rate limits', () => {
     expect(answers[3]!.body.error.message).toMatch(/from your network/);
   });
 
-  it('when someone starts sign-ins more often than the limit, then they get a JSON 429', async () => {
+  it('when someone starts sign-ins more often than the limit from a script, then they get a JSON 429', async () => {
     const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_SIGNINS_PER_WINDOW: '2' } });
 
     const answers = [];
-    for (let i = 0; i < 3; i++) answers.push(await request(limited.app).get('/auth/github'));
+    for (let i = 0; i < 3; i++) answers.push(await request(limited.app).get('/auth/github').set('Accept', 'application/json'));
 
     expect(answers.map((r) => r.status)).toEqual([302, 302, 429]);
-    expect(answers[2]!.body.error.code).toBe('too_many_requests');
+    expect(answers[2]!.type).toBe('application/json');
+    expect(answers[2]!.body.error).toEqual({ code: 'too_many_requests', message: 'Too many sign-in attempts in a short time. Wait a minute and try again.' });
+  });
+
+  it('when the sign-in limit is 2, then two whole sign-ins (start and callback each) succeed: the callback is not counted', async () => {
+    const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_SIGNINS_PER_WINDOW: '2' } });
+
+    await signInThroughFakeProvider(request.agent(limited.app), 'counted-once-1');
+    await signInThroughFakeProvider(request.agent(limited.app), 'counted-once-2');
+    const third = await request(limited.app).get('/auth/github').set('Accept', 'application/json');
+
+    expect(third.status).toBe(429);
+  });
+
+  it('when a browser navigates to a sign-in over the limit, then it gets a page with the message and a link home, not JSON', async () => {
+    const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_SIGNINS_PER_WINDOW: '1' } });
+    // What Chromium sends for a navigation (from memory of its request headers).
+    const navigation = 'text/html,application/xhtml+xml,application/xml;q=0.9,image/avif,image/webp,*/*;q=0.8';
+
+    await request(limited.app).get('/auth/github').set('Accept', navigation);
+    const refused = await request(limited.app).get('/auth/github').set('Accept', navigation);
+
+    expect(refused.status).toBe(429);
+    expect(refused.type).toBe('text/html');
+    expect(refused.text).toContain('Too many sign-in attempts in a short time. Wait a minute and try again.');
+    expect(refused.text).toContain('<a href="/">Back to Crosswatt</a>');
   });
 });
