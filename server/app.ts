@@ -89,7 +89,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api', threadsRouter({ db, config: deps.config, queue: deps.queue }));
 
   app.use('/api/models', modelConditionsRouter({ db }));
-  app.use('/api', scoreboardRouter({ db }));
+  app.use('/api', scoreboardRouter({ db, queue: deps.queue }));
   app.use('/api', notFound);
 
   serveClient(app, deps.clientDist ?? clientDist);

@@ -2,6 +2,7 @@ import PgBoss from 'pg-boss';
 import type { Config } from '../config/env';
 import { createMailQueue } from '../features/mail/send-mail.job';
 import { createOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
+import { createConsensusQueue } from '../features/statistics/consensus-refit.job';
 import { createAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 import { JOB_SCHEMA } from './queue-schema';
@@ -24,5 +25,6 @@ export async function startQueue(config: QueueConfig, logger: Logger): Promise<Q
   await createAnalysisQueue(boss, config);
   await createMailQueue(boss);
   await createOriginalsSweepQueue(boss);
+  await createConsensusQueue(boss);
   return boss;
 }

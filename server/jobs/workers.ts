@@ -2,6 +2,7 @@ import type { Config } from '../config/env';
 import type { Db } from '../db/knex';
 import { workMailQueue } from '../features/mail/send-mail.job';
 import { workOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
+import { workConsensusQueue } from '../features/statistics/consensus-refit.job';
 import { workAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 import type { ObjectStore } from '../lib/object-store';
@@ -21,4 +22,5 @@ export async function registerWorkers({ queue, db, logger, config, store }: Work
   await workAnalysisQueue(queue, db, logger);
   await workMailQueue(queue, db, config, logger);
   await workOriginalsSweepQueue(queue, { db, store, logger, graceHours: config.ORIGINALS_SWEEP_GRACE_HOURS });
+  await workConsensusQueue(queue, db, logger);
 }

@@ -160,6 +160,8 @@ export interface ModelHeader {
 
 export interface ModelPage {
   model: ModelHeader;
+  /** When the consensus offsets shown were fitted (a refit runs in a worker shortly after a like-for-like decision); null before the first fit. */
+  consensusFittedAt: string | null;
   note: { body: string; pinnedAt: string } | null;
   figures: MeterFigures;
   firmware: FirmwareSummary[];
@@ -169,6 +171,8 @@ export interface ModelPage {
 
 export interface FirmwarePage {
   model: ModelHeader;
+  /** As on ModelPage. */
+  consensusFittedAt: string | null;
   firmware: FirmwareSummary;
   note: { body: string; pinnedAt: string } | null;
   dropoutBreakdown: DropoutBreakdownRow[];

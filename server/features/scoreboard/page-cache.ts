@@ -1,5 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import type { Queue } from '../../jobs/queue';
+import { requestConsensusRefit } from '../statistics/consensus-refit.job';
 import { ensureConsensusFresh } from '../statistics/consensus.service';
 import { readStatisticsState, type StatisticsState } from '../statistics/statistics-state';
 
@@ -53,15 +55,29 @@ function stateReader(db: Knex): () => Promise<StatisticsState> {
   return read;
 }
 
-export function createPageCache(db: Knex, maxPages = MAX_PAGES): PageCache {
+/**
+ * With a queue, stale consensus offsets are refitted by a worker (asked for here,
+ * at most once per debounce interval from this process) and pages show the last
+ * fit meanwhile; without one (scripts, tests without a queue) the first reader refits.
+ */
+export function createPageCache(db: Knex, { queue, maxPages = MAX_PAGES }: { queue?: Queue; maxPages?: number } = {}): PageCache {
   const readState = stateReader(db);
   let version = -1;
   const pages = new Map<string, Promise<KeptPage>>();
+  let refitAskedAt = 0;
+  const askForRefit = (q: Queue) => {
+    if (Date.now() - refitAskedAt < 1000) return;
+    refitAskedAt = Date.now();
+    requestConsensusRefit(q).catch(() => {
+      refitAskedAt = 0;
+    });
+  };
 
   return {
     async get(key, render) {
       let state = await readState();
-      if (state.consensusStale) {
+      if (state.consensusStale && queue) askForRefit(queue);
+      else if (state.consensusStale) {
         // A decision marked the consensus offsets stale: refit (one process claims it), then read the new version.
         await ensureConsensusFresh(db);
         state = await readState();

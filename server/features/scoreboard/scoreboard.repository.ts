@@ -128,6 +128,12 @@ export async function findConsensusOfModel(db: Knex, modelId: number) {
   >;
 }
 
+/** When the stored consensus offsets were fitted, or null before the first fit. */
+export async function findConsensusFittedAt(db: Knex): Promise<Date | null> {
+  const row: { consensus_computed_at: Date | null } = await db('statistics_state').where({ id: 1 }).first('consensus_computed_at');
+  return row.consensus_computed_at;
+}
+
 export async function findDropoutTags(db: Knex, modelId: number, firmwareId: number | null): Promise<DropoutTagRow[]> {
   const query = db('dropout_tag_statistics').where({ model_id: modelId }).orderBy(['tag', 'value']);
   if (firmwareId === null) query.whereNull('firmware_id');

@@ -5,6 +5,7 @@ import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
 import type { Db } from '../../db/knex';
+import type { Queue } from '../../jobs/queue';
 import { NotFoundError } from '../../lib/errors';
 import { validate } from '../../middleware/validate';
 import { scoreboardCsv, writeSubmissionsCsv } from './open-data';
@@ -14,11 +15,11 @@ import { getFirmwarePage, getModelPage, getScoreboard } from './scoreboard.servi
 
 // Public, read-only: the scoreboard, model and firmware pages, the method's
 // parameters and the open data. Mounted at /api.
-export function scoreboardRouter({ db }: { db: Db }) {
+export function scoreboardRouter({ db, queue }: { db: Db; queue?: Queue }) {
   const router = Router();
   const licenceHeader = `<${OPEN_DATA_LICENCE.url}>; rel="license"`;
   // Between two changes every shopper sees the same pages: answer them from memory.
-  const pages = createPageCache(db);
+  const pages = createPageCache(db, { queue });
   // The entity tag is set beforehand, so Express neither hashes the body again nor sends it to a client that has it (304).
   const sendJson = (res: Response, page: KeptPage) => res.type('json').set('ETag', page.etag).send(page.body);
 

@@ -65,15 +65,16 @@ function modelHeader(model: repository.ModelRow): ModelHeader {
   };
 }
 
-/** Everything both pages need about a model: its figures per firmware and overall (consensus offsets as last fitted: page-cache.ts refits stale ones first). */
+/** Everything both pages need about a model: its figures per firmware and overall (consensus offsets as last fitted: a worker refits stale ones, see consensus-refit.job.ts). */
 async function loadModel(db: Knex, slug: string) {
   const model = await repository.findModelBySlug(db, slug);
   if (!model) throw new NotFoundError('No such model in the catalogue.');
-  const [firmware, statistics, consensus, biases] = await Promise.all([
+  const [firmware, statistics, consensus, biases, consensusFittedAt] = await Promise.all([
     repository.findFirmwareOfModel(db, model.id),
     repository.findStatisticsOfModel(db, model.id),
     repository.findConsensusOfModel(db, model.id),
     repository.findAcceptedBiases(db, model.id),
+    repository.findConsensusFittedAt(db),
   ]);
   const statisticsOf = (firmwareId: number | null) => statistics.find((row) => row.firmware_id === firmwareId);
   const medianOf = (firmwareId: number | null) =>
@@ -104,7 +105,15 @@ async function loadModel(db: Knex, slug: string) {
     predecessor = current;
   }
   const modelRow = statisticsOf(null);
-  return { model, firmware, summaries, statisticsOf, modelRow, figures: meterFigures(modelRow, modelRow ? medianOf(null) : null) };
+  return {
+    model,
+    firmware,
+    summaries,
+    statisticsOf,
+    modelRow,
+    figures: meterFigures(modelRow, modelRow ? medianOf(null) : null),
+    consensusFittedAt: consensusFittedAt && new Date(consensusFittedAt).toISOString(),
+  };
 }
 
 function consensusFigure(row: { offset_percent: number; lower_percent: number | null; upper_percent: number | null; connected_to: number }): ConsensusFigure {
@@ -144,6 +153,7 @@ export async function getModelPage(db: Knex, slug: string): Promise<ModelPage> {
   ]);
   return {
     model: modelHeader(loaded.model),
+    consensusFittedAt: loaded.consensusFittedAt,
     note,
     figures: loaded.figures,
     firmware: loaded.summaries,
@@ -165,6 +175,7 @@ export async function getFirmwarePage(db: Knex, slug: string, version: string): 
   ]);
   return {
     model: modelHeader(loaded.model),
+    consensusFittedAt: loaded.consensusFittedAt,
     firmware: loaded.summaries[index],
     note,
     dropoutBreakdown: dropouts,

@@ -1,6 +1,7 @@
 import type { ConsensusFigure, MeterFigures } from '@shared/schemas/statistics';
 import { IntervalBar } from '@/components/ui/interval-bar';
 import { NotEnoughData } from '@/components/ui/not-enough-data';
+import { formatDayAndTime } from '@/lib/format-date';
 import { hours, percentPlusMinus, percentRange, perHour, seconds, signedPercent } from '@/lib/format-figures';
 
 function Figure({ label, children, note }: { label: string; children: React.ReactNode; note?: string }) {
@@ -13,7 +14,16 @@ function Figure({ label, children, note }: { label: string; children: React.Reac
   );
 }
 
-export function HeadlineFigures({ figures, consensus }: { figures: MeterFigures; consensus?: ConsensusFigure | null }) {
+export function HeadlineFigures({
+  figures,
+  consensus,
+  consensusFittedAt,
+}: {
+  figures: MeterFigures;
+  consensus?: ConsensusFigure | null;
+  /** When the offsets were last fitted: a refit follows a like-for-like decision within seconds. */
+  consensusFittedAt?: string | null;
+}) {
   const { evidence, bias, agreement, powerDropouts, cadenceDropouts, sprints } = figures;
   return (
     <dl className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
@@ -49,7 +59,10 @@ export function HeadlineFigures({ figures, consensus }: { figures: MeterFigures;
         {sprints?.meanPeakPercent != null ? `${signedPercent(sprints.meanPeakPercent)} peak over ${sprints.count} sprints` : <NotEnoughData />}
       </Figure>
       {consensus !== undefined && (
-        <Figure label="Offset from crowd consensus" note={consensus ? `Compared with ${consensus.connectedTo} other meters like for like` : 'Needs like-for-like comparisons with at least 2 other meters'}>
+        <Figure
+          label="Offset from crowd consensus"
+          note={`${consensus ? `Compared with ${consensus.connectedTo} other meters like for like` : 'Needs like-for-like comparisons with at least 2 other meters'}${consensusFittedAt ? `; fitted ${formatDayAndTime(consensusFittedAt)}` : ''}`}
+        >
           {consensus ? (
             consensus.lowerPercent !== null && consensus.upperPercent !== null ? (
               percentPlusMinus(consensus.offsetPercent, consensus.lowerPercent, consensus.upperPercent)
