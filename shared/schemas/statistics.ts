@@ -160,8 +160,10 @@ export interface ModelHeader {
 
 export interface ModelPage {
   model: ModelHeader;
-  /** When the consensus offsets shown were fitted (a refit runs in a worker shortly after a like-for-like decision); null before the first fit. */
-  consensusFittedAt: string | null;
+  /** The consensus offsets shown: the day they were fitted (null before the first fit; a day, like every public time). */
+  consensusFittedOn: string | null;
+  /** A like-for-like decision came after that fit: a worker refits within seconds. */
+  consensusRefitPending: boolean;
   note: { body: string; pinnedAt: string } | null;
   figures: MeterFigures;
   firmware: FirmwareSummary[];
@@ -172,7 +174,8 @@ export interface ModelPage {
 export interface FirmwarePage {
   model: ModelHeader;
   /** As on ModelPage. */
-  consensusFittedAt: string | null;
+  consensusFittedOn: string | null;
+  consensusRefitPending: boolean;
   firmware: FirmwareSummary;
   note: { body: string; pinnedAt: string } | null;
   dropoutBreakdown: DropoutBreakdownRow[];

@@ -128,10 +128,10 @@ export async function findConsensusOfModel(db: Knex, modelId: number) {
   >;
 }
 
-/** When the stored consensus offsets were fitted, or null before the first fit. */
-export async function findConsensusFittedAt(db: Knex): Promise<Date | null> {
-  const row: { consensus_computed_at: Date | null } = await db('statistics_state').where({ id: 1 }).first('consensus_computed_at');
-  return row.consensus_computed_at;
+/** The stored consensus fit: the day it was made (null before the first) and whether a decision since has made it stale. */
+export async function findConsensusFit(db: Knex): Promise<{ fittedOn: string | null; refitPending: boolean }> {
+  const row: { consensus_computed_at: Date | null; consensus_stale: boolean } = await db('statistics_state').where({ id: 1 }).first('consensus_computed_at', 'consensus_stale');
+  return { fittedOn: row.consensus_computed_at && dayOf(row.consensus_computed_at), refitPending: row.consensus_stale };
 }
 
 export async function findDropoutTags(db: Knex, modelId: number, firmwareId: number | null): Promise<DropoutTagRow[]> {

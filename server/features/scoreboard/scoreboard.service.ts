@@ -69,12 +69,12 @@ function modelHeader(model: repository.ModelRow): ModelHeader {
 async function loadModel(db: Knex, slug: string) {
   const model = await repository.findModelBySlug(db, slug);
   if (!model) throw new NotFoundError('No such model in the catalogue.');
-  const [firmware, statistics, consensus, biases, consensusFittedAt] = await Promise.all([
+  const [firmware, statistics, consensus, biases, consensusFit] = await Promise.all([
     repository.findFirmwareOfModel(db, model.id),
     repository.findStatisticsOfModel(db, model.id),
     repository.findConsensusOfModel(db, model.id),
     repository.findAcceptedBiases(db, model.id),
-    repository.findConsensusFittedAt(db),
+    repository.findConsensusFit(db),
   ]);
   const statisticsOf = (firmwareId: number | null) => statistics.find((row) => row.firmware_id === firmwareId);
   const medianOf = (firmwareId: number | null) =>
@@ -112,7 +112,7 @@ async function loadModel(db: Knex, slug: string) {
     statisticsOf,
     modelRow,
     figures: meterFigures(modelRow, modelRow ? medianOf(null) : null),
-    consensusFittedAt: consensusFittedAt && new Date(consensusFittedAt).toISOString(),
+    consensusFit,
   };
 }
 
@@ -153,7 +153,8 @@ export async function getModelPage(db: Knex, slug: string): Promise<ModelPage> {
   ]);
   return {
     model: modelHeader(loaded.model),
-    consensusFittedAt: loaded.consensusFittedAt,
+    consensusFittedOn: loaded.consensusFit.fittedOn,
+    consensusRefitPending: loaded.consensusFit.refitPending,
     note,
     figures: loaded.figures,
     firmware: loaded.summaries,
@@ -175,7 +176,8 @@ export async function getFirmwarePage(db: Knex, slug: string, version: string): 
   ]);
   return {
     model: modelHeader(loaded.model),
-    consensusFittedAt: loaded.consensusFittedAt,
+    consensusFittedOn: loaded.consensusFit.fittedOn,
+    consensusRefitPending: loaded.consensusFit.refitPending,
     firmware: loaded.summaries[index],
     note,
     dropoutBreakdown: dropouts,

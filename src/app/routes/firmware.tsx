@@ -31,7 +31,7 @@ export function FirmwareRoute() {
         affects={[getModelQueryOptions(slug).queryKey, getScoreboardQueryOptions({}).queryKey]}
       />
       <div className="mt-8">
-        <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} consensusFittedAt={page.consensusFittedAt} />
+        <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} consensusFit={{ fittedOn: page.consensusFittedOn, refitPending: page.consensusRefitPending }} />
       </div>
       <Section title="Against the previous firmware">
         <FirmwareComparisonTable modelSlug={page.model.slug} firmware={[page.firmware]} />

@@ -42,6 +42,7 @@ const ROUTES: Record<string, RouteRule> = {
   'GET /api/csrf-token': { visitor: 'public' },
   'GET /api/health': { visitor: 'public' },
   'GET /api/mail/outbox': { visitor: 'signed_in_only' },
+  'GET /api/mail/undelivered': { visitor: 'signed_in_only' },
   'GET /api/mail/unsubscribe': { visitor: 'public', paths: () => ['/api/mail/unsubscribe?token=not-a-token'] },
   'GET /api/me': { visitor: 'signed_in_only' },
   'GET /api/me/submissions': { visitor: 'signed_in_only' },

@@ -1,7 +1,7 @@
 import type { ConsensusFigure, MeterFigures } from '@shared/schemas/statistics';
 import { IntervalBar } from '@/components/ui/interval-bar';
 import { NotEnoughData } from '@/components/ui/not-enough-data';
-import { formatDayAndTime } from '@/lib/format-date';
+import { formatDay } from '@/lib/format-date';
 import { hours, percentPlusMinus, percentRange, perHour, seconds, signedPercent } from '@/lib/format-figures';
 
 function Figure({ label, children, note }: { label: string; children: React.ReactNode; note?: string }) {
@@ -17,13 +17,16 @@ function Figure({ label, children, note }: { label: string; children: React.Reac
 export function HeadlineFigures({
   figures,
   consensus,
-  consensusFittedAt,
+  consensusFit,
 }: {
   figures: MeterFigures;
   consensus?: ConsensusFigure | null;
-  /** When the offsets were last fitted: a refit follows a like-for-like decision within seconds. */
-  consensusFittedAt?: string | null;
+  /** The fit the offset comes from: its day, and whether a refit after a newer decision is under way. */
+  consensusFit?: { fittedOn: string | null; refitPending: boolean };
 }) {
+  const fitNote = consensusFit
+    ? `${consensusFit.fittedOn ? `; fitted ${formatDay(consensusFit.fittedOn)}` : ''}${consensusFit.refitPending ? '; a refit with the newest decisions is under way' : ''}`
+    : '';
   const { evidence, bias, agreement, powerDropouts, cadenceDropouts, sprints } = figures;
   return (
     <dl className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
@@ -61,7 +64,7 @@ export function HeadlineFigures({
       {consensus !== undefined && (
         <Figure
           label="Offset from crowd consensus"
-          note={`${consensus ? `Compared with ${consensus.connectedTo} other meters like for like` : 'Needs like-for-like comparisons with at least 2 other meters'}${consensusFittedAt ? `; fitted ${formatDayAndTime(consensusFittedAt)}` : ''}`}
+          note={`${consensus ? `Compared with ${consensus.connectedTo} other meters like for like` : 'Needs like-for-like comparisons with at least 2 other meters'}${fitNote}`}
         >
           {consensus ? (
             consensus.lowerPercent !== null && consensus.upperPercent !== null ? (
