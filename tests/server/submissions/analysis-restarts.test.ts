@@ -1,3 +1,4 @@
+import { testObjectStore } from '../../support/test-object-store';
 import { afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { ANALYSE_SUBMISSION_QUEUE, enqueueAnalysis } from '../../../server/features/submissions/analyse-submission.job';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
@@ -35,7 +36,7 @@ afterEach(async () => {
 /** A stored submission with no job, as an upload leaves it when queueing fails or no worker runs. */
 async function waitingSubmission(seed: number): Promise<number> {
   const pair = cleanPair(seed);
-  const { id } = await createSubmission({ db }, riderId, createSubmissionInput.parse(submissionMeta(catalogue)), {
+  const { id } = await createSubmission({ db, store: testObjectStore() }, riderId, createSubmissionInput.parse(submissionMeta(catalogue)), {
     a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
     b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
   });
@@ -45,7 +46,7 @@ async function waitingSubmission(seed: number): Promise<number> {
 async function startWorker(): Promise<Queue> {
   const queue = await startQueue(config, logger);
   running.push(queue);
-  await registerWorkers({ queue, db, logger, config });
+  await registerWorkers({ queue, db, logger, config, store: testObjectStore() });
   return queue;
 }
 
