@@ -33,6 +33,9 @@ export interface FitDefinition {
  */
 export type FitMessageVisitor = (definition: FitDefinition, offset: number, fitTime: number) => void;
 
+/** Called for every definition message; `at` is its record header's offset in `bytes`. */
+export type FitDefinitionVisitor = (definition: FitDefinition, at: number, localType: number) => void;
+
 /** Unix seconds at the FIT epoch, 1989-12-31T00:00:00Z (FIT SDK profile, date_time). */
 export const FIT_EPOCH_UNIX_SECONDS = 631065600;
 
@@ -56,7 +59,7 @@ export interface FitWalkSummary {
  * `visit` for every data message. Throws AnalysisError (not_fit, ended_early,
  * damaged_file) with a message that says which part is wrong.
  */
-export function walkFit(bytes: Uint8Array, visit: FitMessageVisitor): FitWalkSummary {
+export function walkFit(bytes: Uint8Array, visit: FitMessageVisitor, visitDefinition?: FitDefinitionVisitor): FitWalkSummary {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   // Local definitions carry over between chained parts, as in the FIT SDK's Decoder.
   const definitions: (FitDefinition | undefined)[] = new Array(16);
@@ -69,7 +72,7 @@ export function walkFit(bytes: Uint8Array, visit: FitMessageVisitor): FitWalkSum
       throw damaged(`it has ${bytes.length - start} bytes of something else after its end`);
     }
     const dataEnd = checkPart(bytes, view, start, parts);
-    readMessages(bytes, view, start + bytes[start], dataEnd, definitions, state, visit);
+    readMessages(bytes, view, start + bytes[start], dataEnd, definitions, state, visit, visitDefinition);
     start = dataEnd + 2;
     parts++;
   }
@@ -113,6 +116,7 @@ function readMessages(
   definitions: (FitDefinition | undefined)[],
   state: { lastFitTime: number },
   visit: FitMessageVisitor,
+  visitDefinition: FitDefinitionVisitor | undefined,
 ): void {
   let pos = from;
   while (pos < dataEnd) {
@@ -134,7 +138,9 @@ function readMessages(
       visit(definition, pos, fitTime);
       pos += definition.size;
     } else if ((header & DEFINITION_HEADER) !== 0) {
+      const at = pos - 1;
       pos = readDefinition(bytes, view, pos, header, dataEnd, definitions);
+      visitDefinition?.(definitions[header & 0x0f]!, at, header & 0x0f);
     } else {
       const definition = definitions[header & 0x0f];
       if (definition === undefined) throw damaged(`a record at byte ${pos - 1} uses a message type the file never defined`);

@@ -1,9 +1,8 @@
 import { availableParallelism } from 'node:os';
-import { createRequire } from 'node:module';
-import { pathToFileURL } from 'node:url';
 import Piscina from 'piscina';
 import { AnalysisError } from '@shared/analysis/errors';
 import type { ComparisonResult, CompareOptions } from '@shared/analysis/types';
+import { workerExecArgv } from '../../lib/worker-exec-argv';
 import type { PreparedRecording, RecordingTask, TaskOutcome } from './recording-tasks.worker';
 
 // A small pool of worker threads for decoding uploads and analysing pairs, off the
@@ -22,19 +21,21 @@ export class RecordingTaskError extends Error {
   }
 }
 
-let pool: Piscina<RecordingTask, TaskOutcome<unknown>> | null = null;
-
-function tsxLoaderArgs(): string[] {
-  // Worker threads start plain Node: give them tsx's loader, as the main process has.
-  if (process.execArgv.some((arg) => arg.includes('tsx'))) return process.execArgv;
-  const loader = createRequire(import.meta.url).resolve('tsx');
-  return ['--import', pathToFileURL(loader).href];
+/** Why a pool task failed: piscina's abort on our time limit, the thread's heap limit, or anything else that killed it. */
+export function taskFailureReason(err: unknown): RecordingTaskError['reason'] {
+  const code = (err as { code?: string }).code;
+  const name = (err as { name?: string }).name;
+  if (name === 'AbortError' || name === 'TimeoutError') return 'time';
+  if (code === 'ERR_WORKER_OUT_OF_MEMORY') return 'memory';
+  return 'crash';
 }
+
+let pool: Piscina<RecordingTask, TaskOutcome<unknown>> | null = null;
 
 function recordingPool() {
   pool ??= new Piscina<RecordingTask, TaskOutcome<unknown>>({
     filename: new URL('./recording-tasks.worker.ts', import.meta.url).href,
-    execArgv: tsxLoaderArgs(),
+    execArgv: workerExecArgv(),
     minThreads: 0,
     maxThreads: Math.max(2, availableParallelism()),
     idleTimeout: 30_000,
@@ -48,11 +49,7 @@ async function run<T>(task: RecordingTask, timeLimitMs: number): Promise<T> {
   try {
     outcome = await recordingPool().run(task, { signal: AbortSignal.timeout(timeLimitMs) });
   } catch (err) {
-    const code = (err as { code?: string }).code;
-    const name = (err as { name?: string }).name;
-    if (name === 'AbortError' || name === 'TimeoutError') throw new RecordingTaskError('time', err);
-    if (code === 'ERR_WORKER_OUT_OF_MEMORY') throw new RecordingTaskError('memory', err);
-    throw new RecordingTaskError('crash', err);
+    throw new RecordingTaskError(taskFailureReason(err), err);
   }
   if (!outcome.ok) throw new AnalysisError(outcome.error.code, outcome.error.message);
   return outcome.value as T;
