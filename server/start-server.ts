@@ -36,9 +36,9 @@ export async function startServer(config: Config): Promise<RunningServer> {
     async close() {
       await closeHttpServer(server);
       await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
+      await closeRecordingTasks();
       await db.destroy();
       store.close();
-      await closeRecordingTasks();
     },
   };
 }

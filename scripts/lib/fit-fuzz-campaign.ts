@@ -10,7 +10,7 @@ import Piscina from 'piscina';
 import type { Side } from '@shared/analysis/types';
 import { createRandom, deriveSeed } from '@shared/simulator/random';
 import { taskFailureReason } from '../../server/features/submissions/recording-tasks';
-import { workerExecArgv } from '../../server/lib/worker-exec-argv';
+import { tsxExecArgv } from '../../server/lib/tsx-exec-argv';
 import { fuzzSeedPairs, type SeedPair } from './fit-fuzz-seeds';
 import type { EngineVerdict, FuzzTask, ReferenceVerdict } from './fit-fuzz.worker';
 import { type FitLayout, fitLayout, type Mutant, mutateFit } from './fit-mutations';
@@ -98,7 +98,7 @@ export async function runFitFuzz(options: FuzzOptions): Promise<FuzzSummary> {
   const withReference = options.reference ?? true;
   const pool = new Piscina<FuzzTask, EngineVerdict | ReferenceVerdict>({
     filename: new URL('./fit-fuzz.worker.ts', import.meta.url).href,
-    execArgv: workerExecArgv(),
+    execArgv: tsxExecArgv(),
     minThreads: threads,
     maxThreads: threads,
     resourceLimits: { maxOldGenerationSizeMb: options.heapLimitMb ?? 256 },

@@ -85,11 +85,13 @@ function reference(bytes: Uint8Array): ReferenceVerdict {
 function firstDifference(ours: RideStream, sdk: ReferenceRecords): string | null {
   if (ours.timestamps.length !== sdk.timestamps.length)
     return `${ours.timestamps.length} records against the SDK's ${sdk.timestamps.length}`;
+  // Our value columns are single precision by design (decode-fit.ts): the SDK's values are rounded alike.
+  const single = (values: number[]) => values.map(Math.fround);
   const columns: Array<[name: string, ours: ArrayLike<number>, sdk: number[]]> = [
     ['timestamp', ours.timestamps, sdk.timestamps],
-    ['power', ours.powerWatts, sdk.power],
-    ['cadence', ours.cadenceRpm, sdk.cadence],
-    ['balance', ours.rightBalancePercent, sdk.rightBalance],
+    ['power', ours.powerWatts, single(sdk.power)],
+    ['cadence', ours.cadenceRpm, single(sdk.cadence)],
+    ['balance', ours.rightBalancePercent, single(sdk.rightBalance)],
   ];
   for (const [name, mine, theirs] of columns) {
     for (let i = 0; i < theirs.length; i++) {

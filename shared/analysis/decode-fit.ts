@@ -105,10 +105,12 @@ function layoutOf(definition: FitDefinition): RecordLayout {
 function fillRecords(bytes: Uint8Array, count: number, hasTemperature: boolean) {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const timestamps = new Float64Array(count);
-  const powerWatts = new Float64Array(count);
-  const cadenceRpm = new Float64Array(count);
-  const rightBalancePercent = new Float64Array(count);
-  const temperatureCelsius = hasTemperature ? new Float64Array(count) : undefined;
+  // Values in single precision (exact for every value these fields carry): with the
+  // smallest records (3 bytes) the columns are what bounds memory per byte of file.
+  const powerWatts = new Float32Array(count);
+  const cadenceRpm = new Float32Array(count);
+  const rightBalancePercent = new Float32Array(count);
+  const temperatureCelsius = hasTemperature ? new Float32Array(count) : undefined;
   let layout: RecordLayout | null = null;
   let n = 0;
   const value = (index: number, offset: number, definition: FitDefinition) => {
@@ -214,20 +216,23 @@ function decodeBalance(raw: number): number {
 }
 
 /** Records are normally in time order; an out-of-order file is sorted (stably) rather than rejected. */
-function sortByTime(timestamps: Float64Array, columns: Float64Array[]): void {
+function sortByTime(timestamps: Float64Array, columns: Float32Array[]): void {
   let sorted = true;
   for (let i = 1; i < timestamps.length && sorted; i++) sorted = timestamps[i] >= timestamps[i - 1];
   if (sorted) return;
   const order = Uint32Array.from(timestamps.keys()).sort((x, y) => timestamps[x] - timestamps[y] || x - y);
-  for (const column of [timestamps, ...columns]) {
+  const permute = (column: Float32Array | Float64Array) => {
     const copy = column.slice();
     for (let i = 0; i < order.length; i++) column[i] = copy[order[i]];
-  }
+  };
+  permute(timestamps);
+  for (const column of columns) permute(column);
 }
 
 export function recordingStatistics(timestamps: Float64Array): RecordingStatistics {
   const count = timestamps.length;
-  const intervals = new Float64Array(Math.max(count - 1, 0));
+  // Whole seconds within the span the decoder allows: exact in single precision.
+  const intervals = new Float32Array(Math.max(count - 1, 0));
   let longGapCount = 0;
   let longGapSeconds = 0;
   for (let i = 1; i < count; i++) {

@@ -39,7 +39,7 @@ export function toSecondGrid(stream: RideStream): SecondGrid {
  * (sorted by time, as the decoder leaves them) plus filling the grid; samples
  * outside [start, start + length) are ignored.
  */
-export function resample(times: Float64Array, values: Float64Array, start: number, length: number): Float64Array {
+export function resample(times: Float64Array, values: Float32Array | Float64Array, start: number, length: number): Float64Array {
   const grid = new Float64Array(length).fill(NaN);
   let second = -1;
   let sum = 0;
@@ -71,7 +71,7 @@ export function resample(times: Float64Array, values: Float64Array, start: numbe
 }
 
 /** The same for records out of time order: per-second sums over the grid. */
-function resampleUnsorted(times: Float64Array, values: Float64Array, start: number, length: number): Float64Array {
+function resampleUnsorted(times: Float64Array, values: Float32Array | Float64Array, start: number, length: number): Float64Array {
   const sums = new Float64Array(length);
   const counts = new Uint32Array(length);
   for (let i = 0; i < times.length; i++) {

@@ -49,12 +49,14 @@ export interface RecordingStatistics {
 export interface RideStream {
   /** UTC seconds (Unix epoch). */
   timestamps: Float64Array;
-  powerWatts: Float64Array;
-  cadenceRpm: Float64Array;
+  // Single precision holds every value a FIT record can carry in these fields exactly
+  // (whole watts up to 65,534, rpm, percent, °C) at half the memory of a double.
+  powerWatts: Float32Array;
+  cadenceRpm: Float32Array;
   /** The right leg's share of total power in percent; NaN when absent or the side is unknown. */
-  rightBalancePercent: Float64Array;
+  rightBalancePercent: Float32Array;
   /** Record temperature in °C, parallel to timestamps; present only when the file records it. */
-  temperatureCelsius?: Float64Array;
+  temperatureCelsius?: Float32Array;
   device: DeviceInfo;
   /** Every device_info message of the power meter, in file order (set by the decoder). */
   powerMeterReports?: PowerMeterReport[];

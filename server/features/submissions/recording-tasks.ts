@@ -1,8 +1,9 @@
 import { availableParallelism } from 'node:os';
+import type { Worker } from 'node:worker_threads';
 import Piscina from 'piscina';
 import { AnalysisError } from '@shared/analysis/errors';
 import type { ComparisonResult, CompareOptions } from '@shared/analysis/types';
-import { workerExecArgv } from '../../lib/worker-exec-argv';
+import { tsxExecArgv } from '../../lib/tsx-exec-argv';
 import type { PreparedRecording, RecordingTask, TaskOutcome } from './recording-tasks.worker';
 
 // A small pool of worker threads for decoding uploads and analysing pairs, off the
@@ -35,7 +36,7 @@ let pool: Piscina<RecordingTask, TaskOutcome<unknown>> | null = null;
 function recordingPool() {
   pool ??= new Piscina<RecordingTask, TaskOutcome<unknown>>({
     filename: new URL('./recording-tasks.worker.ts', import.meta.url).href,
-    execArgv: workerExecArgv(),
+    execArgv: tsxExecArgv(),
     minThreads: 0,
     maxThreads: Math.max(2, availableParallelism()),
     idleTimeout: 30_000,
@@ -65,6 +66,12 @@ export function compareStoredRecordings(a: Uint8Array, b: Uint8Array, options: C
   return run<ComparisonResult>({ kind: 'compare', a, b, options }, TASK_TIME_LIMIT_MS);
 }
 
+/** The pool's threads now (none before the first task and after closing); for the tests of the shutdown. */
+export function recordingTaskThreads(): readonly Worker[] {
+  return pool?.threads ?? [];
+}
+
+/** Lets running tasks finish, then ends the threads; part of every process's shutdown. */
 export async function closeRecordingTasks(): Promise<void> {
   const closing = pool;
   pool = null;

@@ -41,7 +41,7 @@ export function decodeStream(stored: Buffer): RideStream {
   const timestamps = new Float64Array(count);
   for (let i = 0; i < count; i++, offset += 8) timestamps[i] = body.readDoubleLE(offset);
   const column = () => {
-    const values = new Float64Array(count);
+    const values = new Float32Array(count);
     for (let i = 0; i < count; i++, offset += 4) values[i] = body.readFloatLE(offset);
     return values;
   };

@@ -2,7 +2,7 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { MAX_FIT_FILE_BYTES } from '../../../shared/limits';
 import { MAX_RECORDS_PER_FILE } from '../../../shared/analysis/decode-fit';
-import { FILE_TYPE, simpleActivity, tinyRecordFile } from '../../shared/analysis/fit-bytes';
+import { FILE_TYPE, simpleActivity, tinyRecordFile } from '../../../scripts/lib/fit-bytes';
 import { recordingFit } from '../../shared/analysis/fit-files';
 import { createCatalogue, submissionMeta, type TestCatalogue } from '../support/catalogue-factory';
 import { signedInAgent, type TestAgent } from '../support/sign-in';

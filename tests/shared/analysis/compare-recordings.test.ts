@@ -136,7 +136,8 @@ describe('compareRecordings on per-second arrays', () => {
 
     const segment = result.steadySegments.find((s) => s.startSeconds <= 630 && s.startSeconds + s.durationSeconds >= 1170);
     expect(segment).toBeDefined();
-    expect(segment!.percent).toBeCloseTo(5, 6);
+    // Streams hold power in single precision, so 1.05 × whole watts is rounded a little.
+    expect(segment!.percent).toBeCloseTo(5, 4);
   });
 
   it('when the result is serialised, then the contract keys are all there and nothing is NaN', () => {

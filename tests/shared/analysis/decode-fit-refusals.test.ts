@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { decodeFit, MAX_RECORDING_SPAN_SECONDS, MAX_RECORDS_PER_FILE } from '@shared/analysis/decode-fit';
 import { AnalysisError } from '@shared/analysis/errors';
 import { toSecondGrid } from '@shared/analysis/timeline';
-import { BASE, FILE_TYPE, FIT_EPOCH, FitBytes, MESG, simpleActivity, tinyRecordFile } from './fit-bytes';
+import { BASE, FILE_TYPE, FIT_EPOCH, FitBytes, MESG, simpleActivity, tinyRecordFile } from '../../../scripts/lib/fit-bytes';
 import { rideStream } from './ride-streams';
 
 function refusal(bytes: Uint8Array): AnalysisError {

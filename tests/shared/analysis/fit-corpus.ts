@@ -6,7 +6,7 @@ import { Encoder, Profile } from '@garmin/fitsdk';
 import { crc16Arc } from '@shared/analysis/fit-crc';
 import { simulatePair } from '@shared/simulator/pair';
 import { encodeActivityWithGps, withShortHeader, withZeroHeaderCrc } from '../fit/gps-fit-files';
-import { BASE, chain, FILE_TYPE, FIT_EPOCH, FitBytes, MESG } from './fit-bytes';
+import { BASE, chain, FILE_TYPE, FIT_EPOCH, FitBytes, MESG } from '../../../scripts/lib/fit-bytes';
 
 const M = Profile.MesgNum;
 type SdkMesg = Parameters<Encoder['onMesg']>[1];

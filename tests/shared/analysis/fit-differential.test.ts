@@ -3,7 +3,7 @@ import { decodeFit, readRideStream } from '@shared/analysis/decode-fit';
 import { AnalysisError } from '@shared/analysis/errors';
 import { readWithFitSdk } from '../../../scripts/lib/fit-sdk-reference';
 import { compressedTimestampFile, deviceDescribedTwiceFile, sdkReadableCorpus } from './fit-corpus';
-import { BASE, chain, FILE_TYPE, FitBytes, fitFile, MESG } from './fit-bytes';
+import { BASE, chain, FILE_TYPE, FitBytes, fitFile, MESG } from '../../../scripts/lib/fit-bytes';
 
 const corpus = sdkReadableCorpus();
 

@@ -18,7 +18,7 @@ export interface StreamSpec {
 export function rideStream(spec: StreamSpec): RideStream {
   const start = spec.start ?? RIDE_START;
   const indexes = Array.from({ length: spec.power.length }, (_, i) => i).filter((i) => !spec.skip?.(i));
-  const pick = (values: ArrayLike<number> | undefined) => Float64Array.from(indexes, (i) => (values === undefined ? NaN : values[i]));
+  const pick = (values: ArrayLike<number> | undefined) => Float32Array.from(indexes, (i) => (values === undefined ? NaN : values[i]));
   const timestamps = Float64Array.from(indexes, (i) => start + i);
   return {
     timestamps,

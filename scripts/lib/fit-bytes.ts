@@ -1,4 +1,4 @@
-// FIT files built message by message, byte by byte, for the variants no encoder
+// FIT files built message by message, byte by byte, for the decoder tests and the ingest benchmark:
 // writes on request: big-endian definitions, compressed timestamp headers, developer
 // fields, odd header sizes and CRCs, chained files, cut-off files. Layout from the
 // FIT protocol (FIT SDK, "Flexible and Interoperable Data Transfer Protocol", 3.3–4.1).
@@ -130,7 +130,7 @@ export function simpleActivity(options: { seconds: number; start?: number; fileT
  * A valid activity of `count` power-only records, 3 bytes each after the first
  * (compressed timestamp headers): the smallest file that holds that many records.
  */
-export function tinyRecordFile(count: number, start = 1_717_225_200): Uint8Array {
+export function tinyRecordFile(count: number, start = 1_717_225_200, perSecond = 4): Uint8Array {
   const head = new FitBytes()
     .define(0, MESG.fileId, [[0, BASE.enum]])
     .data(0, [FILE_TYPE.activity])
@@ -141,7 +141,7 @@ export function tinyRecordFile(count: number, start = 1_717_225_200): Uint8Array
   const data = new Uint8Array(headBytes.length + (count - 1) * 3);
   data.set(headBytes);
   for (let i = 1, at = headBytes.length; i < count; i++, at += 3) {
-    data[at] = 0x80 | (2 << 5) | ((start - FIT_EPOCH + Math.floor(i / 4)) & 0x1f);
+    data[at] = 0x80 | (2 << 5) | ((start - FIT_EPOCH + Math.floor(i / perSecond)) & 0x1f);
     data[at + 1] = 200;
     data[at + 2] = 0;
   }
