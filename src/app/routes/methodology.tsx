@@ -12,6 +12,7 @@ import { MINIMUM_PARTNERS } from '@shared/statistics/consensus';
 import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { WEIGHT_CAP_HOURS } from '@shared/statistics/weighted-bias';
 import { PageSection } from '@/components/ui/page-section';
+import { FileRefusals } from '@/features/methodology/components/file-refusals';
 import { RideComparisonMethod } from '@/features/methodology/components/ride-comparison-method';
 
 export function MethodologyRoute() {
@@ -40,6 +41,8 @@ export function MethodologyRoute() {
       </PageSection>
 
       <RideComparisonMethod />
+
+      <FileRefusals />
 
       <PageSection title="From rides to a model's figures">
         <ul className="list-disc space-y-2 pl-5">
