@@ -23,6 +23,7 @@ if (!Number.isInteger(count) || count < 1 || !Number.isInteger(seed)) {
   process.exit(2);
 }
 
+let reported = 0;
 const summary = await runFitFuzz({
   count,
   seed,
@@ -31,7 +32,9 @@ const summary = await runFitFuzz({
   timeLimitMs: Number(values['time-limit-ms']),
   reference: !values['no-sdk'],
   onProgress: (done) => {
-    if (done % 1000 === 0) process.stderr.write(`  ${done}/${count} mutants\n`);
+    if (Math.floor(done / 1000) <= reported) return;
+    reported = Math.floor(done / 1000);
+    process.stderr.write(`  ${reported * 1000}/${count} mutants\n`);
   },
 });
 console.log(formatFuzzSummary(summary, { seed, keepDir: values['keep-dir'] }));
