@@ -89,3 +89,10 @@ export function slugify(text: string): string {
     .replace(/[^a-z0-9]+/g, '-')
     .replace(/^-+|-+$/g, '');
 }
+
+/** What a rider's proposal answers: the new entry, usable by its proposer at once. */
+export type ProposedEntry =
+  | { type: 'maker'; entry: CatalogueMaker }
+  | { type: 'model'; entry: CatalogueModel }
+  | { type: 'firmware'; entry: CatalogueFirmware }
+  | { type: 'recording_device'; entry: CatalogueRecordingDevice };

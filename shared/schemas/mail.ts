@@ -21,3 +21,20 @@ export type UndeliveredMail = z.infer<typeof undeliveredMailSchema>;
 
 export const undeliveredMailListSchema = z.object({ messages: z.array(undeliveredMailSchema) });
 export type UndeliveredMailList = z.infer<typeof undeliveredMailListSchema>;
+
+/** A message the local stand-in SMTP service received (the admins' Outbox). */
+export interface OutboxMessage {
+  id: number;
+  from: string;
+  recipients: string[];
+  subject: string;
+  text: string;
+  headers: Record<string, string>;
+  receivedAt: string;
+}
+
+export interface Outbox {
+  total: number;
+  pageSize: number;
+  messages: OutboxMessage[];
+}

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { QualityFlag } from '../analysis/types';
 import { day } from './day';
 import { boundedWholeNumber, idNumber, singleLineText } from './fields';
 import { recordingTagsInput, SUBMISSION_STATUSES } from './submission';
@@ -127,3 +128,120 @@ export const submissionDecisionResponse = z.object({
   decision: decisionView.nullable(),
 });
 export type SubmissionDecisionResponse = z.infer<typeof submissionDecisionResponse>;
+
+// ——— responses of the moderation API (the client reads these same types) ———
+
+/** A catalogue entry a rider proposed, waiting for a moderator. */
+export interface PendingEntry {
+  id: number;
+  name: string;
+  slug?: string;
+  makerName?: string;
+  modelName?: string;
+  proposedBy: string | null;
+  createdAt: string;
+}
+
+export interface PendingEntries {
+  makers: PendingEntry[];
+  models: PendingEntry[];
+  firmware: PendingEntry[];
+  recordingDevices: PendingEntry[];
+}
+
+export interface ReviewQueueRecording {
+  side: 'a' | 'b';
+  makerId: number;
+  makerName: string;
+  modelId: number;
+  modelName: string;
+  firmwareVersion: string;
+  position: string;
+  recordingDeviceName: string;
+}
+
+export interface ReviewQueueRow {
+  id: number;
+  version: number;
+  createdAt: string;
+  flags: QualityFlag[];
+  flagSeverity: number;
+  biasPercent: number | null;
+  loaLowerPercent: number | null;
+  loaUpperPercent: number | null;
+  matchedSeconds: number | null;
+  correlation: number | null;
+  likeForLikeMode: string | null;
+  aPowerDropouts: number | null;
+  bPowerDropouts: number | null;
+  riderHandle: string | null;
+  recordings: ReviewQueueRecording[];
+}
+
+export interface ReviewQueue {
+  total: number;
+  pageSize: number;
+  submissions: ReviewQueueRow[];
+  flagCounts: Array<{ code: string; count: number }>;
+}
+
+export interface ReviewFlag extends QualityFlag {
+  /** What the moderator should look at, and the rejection reason it most often leads to. */
+  check: string | null;
+  likelyReason: RejectReason | null;
+}
+
+export interface PossibleDuplicate {
+  id: number;
+  status: string;
+  riderHandle: string | null;
+  createdAt: string;
+  overlapSeconds: number;
+  overlapShare: number;
+  sameStreamShare: number;
+  nearIdentical: boolean;
+}
+
+/** Everything a moderator needs to decide one submission; `S` is the submission as the viewer may see it. */
+export interface Review<S = unknown> {
+  submission: S & { id: number; status: string; version: number };
+  decision: DecisionView | null;
+  flags: ReviewFlag[];
+  riderHistory: { accepted: number; rejected: number; sentBack: number; withdrawn: number; other: number };
+  duplicates: PossibleDuplicate[];
+  deviceChecks: Array<{ side: 'a' | 'b'; what: string; tagged: string; inFile: string | null; agrees: boolean | null; message: string }>;
+  originals: Array<{ side: 'a' | 'b'; kept: boolean; decoderVersion: number | null }>;
+  history: Array<{ id: number; action: string; reason: string | null; actorHandle: string | null; createdAt: string }>;
+}
+
+/** A rider's corrected tags for a submission a moderator sent back. */
+export const resubmitTagsInput = z.object({
+  a: recordingTagsInput.partial().strict().optional(),
+  b: recordingTagsInput.partial().strict().optional(),
+  expectedVersion: z.coerce.number().int().positive(),
+});
+export type ResubmitTagsInput = z.infer<typeof resubmitTagsInput>;
+
+/** What a tag change answers: the submission's new state. */
+export interface TagChangeResult {
+  id: number;
+  status: (typeof SUBMISSION_STATUSES)[number];
+  version: number;
+  /** Position or model changed: the submission goes through the analysis again. */
+  reanalyse: boolean;
+}
+
+/** What curation answers: the curated entry, or what a merge moved. */
+export type CurationResult = CuratedEntry | MergeResult;
+export interface CuratedEntry {
+  id: number;
+  type: CatalogueEntryType;
+  name: string;
+  status: string;
+}
+export interface MergeResult {
+  mergedId: number;
+  intoId: number;
+  movedRecordings: number;
+  movedAcceptedSubmissions: number;
+}

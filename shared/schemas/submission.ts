@@ -52,3 +52,10 @@ export const createSubmissionInput = z.object({
   notes: multiLineText().trim().max(MAX_NOTES_LENGTH, `at most ${MAX_NOTES_LENGTH} characters`).default(''),
 });
 export type CreateSubmissionInput = z.infer<typeof createSubmissionInput>;
+
+/** What an accepted upload answers: the new submission, waiting for its analysis. */
+export interface CreatedSubmission {
+  id: number;
+  status: 'received';
+  url: string;
+}

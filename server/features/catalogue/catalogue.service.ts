@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { type ProposeCatalogueEntryInput, slugify, versionOrder } from '@shared/schemas/catalogue';
+import { type ProposeCatalogueEntryInput, type ProposedEntry, slugify, versionOrder } from '@shared/schemas/catalogue';
 import { ConflictError, NotFoundError } from '../../lib/errors';
 import { isUniqueViolation } from '../../lib/pg-errors';
 import * as catalogue from './catalogue.repository';
@@ -9,7 +9,7 @@ import * as catalogue from './catalogue.repository';
  * missing: it is usable in their own submissions at once and stays 'pending'
  * until a moderator approves it.
  */
-export async function proposeEntry(db: Knex, riderId: number, input: ProposeCatalogueEntryInput) {
+export async function proposeEntry(db: Knex, riderId: number, input: ProposeCatalogueEntryInput): Promise<ProposedEntry> {
   try {
     switch (input.type) {
       case 'maker':

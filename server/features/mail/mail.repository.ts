@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { Outbox, OutboxMessage } from '@shared/schemas/mail';
 import { hasLiveJob } from '../../jobs/queue-schema';
 
 type Db = Knex | Knex.Transaction;
@@ -44,13 +45,22 @@ export async function insertMessage(
 }
 
 /** The message, locked for sending, if it is queued and due; undefined when another worker holds it. */
-export async function lockDueMessage(trx: Knex.Transaction, id: number) {
+export interface DueMessage {
+  id: number;
+  to: string;
+  subject: string;
+  text: string;
+  unsubscribeUrl: string | null;
+  attempts: number;
+}
+
+export async function lockDueMessage(trx: Knex.Transaction, id: number): Promise<DueMessage | undefined> {
   return trx('mail_messages')
     .where({ id, status: 'queued' })
     .where('next_attempt_at', '<=', trx.fn.now())
     .forUpdate()
     .skipLocked()
-    .first('id', 'to_address as to', 'subject', 'text_body as text', 'unsubscribe_url as unsubscribeUrl', 'attempts');
+    .first<DueMessage | undefined>('id', 'to_address as to', 'subject', 'text_body as text', 'unsubscribe_url as unsubscribeUrl', 'attempts');
 }
 
 export async function markSent(db: Db, id: number): Promise<void> {
@@ -143,12 +153,12 @@ export async function setPreference(db: Db, userId: number, column: 'email_on_de
 
 export const OUTBOX_PAGE_SIZE = 50;
 
-export async function listOutbox(db: Db, page: number) {
+export async function listOutbox(db: Db, page: number): Promise<Omit<Outbox, 'pageSize'>> {
   const [{ count }] = await db('mail_outbox').count<{ count: string }[]>({ count: '*' });
   const rows = await db('mail_outbox')
     .orderBy('id', 'desc')
     .limit(OUTBOX_PAGE_SIZE)
     .offset((page - 1) * OUTBOX_PAGE_SIZE)
-    .select('id', 'mail_from as from', 'recipients', 'subject', 'text_body as text', 'headers', 'received_at as receivedAt');
-  return { total: Number(count), messages: rows };
+    .select<(Omit<OutboxMessage, 'receivedAt'> & { receivedAt: Date })[]>('id', 'mail_from as from', 'recipients', 'subject', 'text_body as text', 'headers', 'received_at as receivedAt');
+  return { total: Number(count), messages: rows.map((row) => ({ ...row, receivedAt: row.receivedAt.toISOString() })) };
 }

@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { CatalogueEntryType } from '@shared/schemas/moderation';
+import type { CatalogueEntryType, PendingEntries, PendingEntry } from '@shared/schemas/moderation';
 
 type Db = Knex | Knex.Transaction;
 
@@ -85,31 +85,34 @@ export async function countRecordingsUsing(db: Db, type: CatalogueEntryType, id:
 }
 
 /** Entries riders proposed that no moderator has looked at yet, with who proposed them and how often they are used. */
-export async function listPending(db: Knex) {
+type PendingRecord = Omit<PendingEntry, 'createdAt'> & { createdAt: Date };
+const pendingEntryOf = (row: PendingRecord): PendingEntry => ({ ...row, createdAt: row.createdAt.toISOString() });
+
+export async function listPending(db: Knex): Promise<PendingEntries> {
   const proposer = (table: string) => db.raw(`(select handle from users u where u.id = ${table}.proposed_by) as "proposedBy"`);
   const [makers, models, firmware, devices] = await Promise.all([
-    db('makers').where({ status: 'pending' }).select('id', 'name', 'slug', 'created_at as createdAt', proposer('makers')),
+    db('makers').where({ status: 'pending' }).select<PendingRecord[]>('id', 'name', 'slug', 'created_at as createdAt', proposer('makers')),
     db('models as models')
       .join('makers as mk', 'mk.id', 'models.maker_id')
       .where('models.status', 'pending')
-      .select('models.id', 'models.name', 'models.slug', 'mk.name as makerName', 'models.created_at as createdAt', proposer('models')),
+      .select<PendingRecord[]>('models.id', 'models.name', 'models.slug', 'mk.name as makerName', 'models.created_at as createdAt', proposer('models')),
     db('firmware_versions as firmware_versions')
       .join('models as m', 'm.id', 'firmware_versions.model_id')
       .where('firmware_versions.status', 'pending')
-      .select('firmware_versions.id', 'firmware_versions.version as name', 'm.name as modelName', 'firmware_versions.created_at as createdAt', proposer('firmware_versions')),
-    db('recording_devices').where({ status: 'pending' }).select('id', 'name', 'slug', 'created_at as createdAt', proposer('recording_devices')),
+      .select<PendingRecord[]>('firmware_versions.id', 'firmware_versions.version as name', 'm.name as modelName', 'firmware_versions.created_at as createdAt', proposer('firmware_versions')),
+    db('recording_devices').where({ status: 'pending' }).select<PendingRecord[]>('id', 'name', 'slug', 'created_at as createdAt', proposer('recording_devices')),
   ]);
-  return { makers, models, firmware, recordingDevices: devices };
+  return { makers: makers.map(pendingEntryOf), models: models.map(pendingEntryOf), firmware: firmware.map(pendingEntryOf), recordingDevices: devices.map(pendingEntryOf) };
 }
 
 /** Finds an entry by a name it had before (a rename or a merge); follows merges to the entry that is used now. */
-export async function findByAlias(db: Db, type: CatalogueEntryType, nameOrSlug: string) {
+export async function findByAlias(db: Db, type: CatalogueEntryType, nameOrSlug: string): Promise<{ id: number; name: string; slug: string | null; status: string } | undefined> {
   const alias = await db('catalogue_aliases')
     .where({ entry_type: type })
     .andWhere((q) => q.whereRaw('lower(name) = lower(?)', [nameOrSlug]).orWhere('slug', nameOrSlug))
     .orderBy('id', 'desc')
-    .first('entry_id');
+    .first<{ entry_id: number } | undefined>('entry_id');
   if (!alias) return undefined;
-  const row = await db(ENTRY_TABLES[type]).where({ id: alias.entry_id }).first();
+  const row = await db(ENTRY_TABLES[type]).where({ id: alias.entry_id }).first<Record<string, unknown> | undefined>();
   return row && { id: row.id as number, name: row[NAME_COLUMN[type]] as string, slug: (row.slug ?? null) as string | null, status: row.status as string };
 }

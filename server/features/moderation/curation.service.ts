@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { CuratedEntry, MergeResult } from '@shared/schemas/moderation';
 import { versionOrder, versionString } from '@shared/schemas/catalogue';
 import type { CatalogueEntryType, CurateEntryInput } from '@shared/schemas/moderation';
 import { ConflictError, NotFoundError, ValidationError } from '../../lib/errors';
@@ -17,7 +18,7 @@ async function lockExisting(trx: Knex.Transaction, type: CatalogueEntryType, id:
 }
 
 /** Approve, reject or rename one catalogue entry, audited with before and after. */
-export async function curateEntry(db: Knex, command: { type: CatalogueEntryType; id: number; actorId: number; input: CurateEntryInput }) {
+export async function curateEntry(db: Knex, command: { type: CatalogueEntryType; id: number; actorId: number; input: CurateEntryInput }): Promise<CuratedEntry> {
   const { type, id, actorId, input } = command;
   try {
     return await db.transaction(async (trx) => {
@@ -64,7 +65,7 @@ export async function curateEntry(db: Knex, command: { type: CatalogueEntryType;
  * the statistics) move, the old entry stays as "merged" so old links resolve, and
  * its name stays as an alias. All in one transaction.
  */
-export async function mergeEntries(db: Knex, command: { type: CatalogueEntryType; fromId: number; intoId: number; actorId: number; reason: string }) {
+export async function mergeEntries(db: Knex, command: { type: CatalogueEntryType; fromId: number; intoId: number; actorId: number; reason: string }): Promise<MergeResult> {
   const { type, fromId, intoId, actorId } = command;
   if (fromId === intoId) throw new ValidationError('intoId: an entry cannot be merged into itself', { fields: { intoId: 'choose another entry' } });
   return db.transaction(async (trx) => {

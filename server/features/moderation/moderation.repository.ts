@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import type { ReviewQueueQuery } from '@shared/schemas/moderation';
+import type { ReviewQueueQuery, ReviewQueueRow } from '@shared/schemas/moderation';
 import type { RecordingTagsInput, SubmissionStatus } from '@shared/schemas/submission';
 
 type Db = Knex | Knex.Transaction;
@@ -114,7 +114,7 @@ const recordingsJson = `(select json_agg(json_build_object(
   where r.submission_id = s.id) as recordings`;
 
 /** Awaiting review, most severe flags first, then the longest waiting. */
-export async function listReviewQueue(db: Knex, query: ReviewQueueQuery) {
+export async function listReviewQueue(db: Knex, query: ReviewQueueQuery): Promise<{ total: number; rows: ReviewQueueRow[] }> {
   const filtered = db('submissions as s')
     .where('s.status', 'awaiting_review')
     .modify((q) => {
@@ -138,7 +138,7 @@ export async function listReviewQueue(db: Knex, query: ReviewQueueQuery) {
   const rows = await filtered
     .clone()
     .leftJoin('users as u', 'u.id', 's.rider_id')
-    .select(
+    .select<(Omit<ReviewQueueRow, 'createdAt'> & { createdAt: Date })[]>(
       's.id',
       's.version',
       's.created_at as createdAt',
@@ -158,7 +158,7 @@ export async function listReviewQueue(db: Knex, query: ReviewQueueQuery) {
     .orderBy([{ column: 's.flag_severity', order: 'desc' }, { column: 's.created_at', order: 'asc' }, { column: 's.id', order: 'asc' }])
     .limit(QUEUE_PAGE_SIZE)
     .offset((query.page - 1) * QUEUE_PAGE_SIZE);
-  return { total: Number(count), rows };
+  return { total: Number(count), rows: rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString() })) };
 }
 
 /** How many waiting submissions carry each flag, for the queue's filter. */
@@ -189,14 +189,24 @@ export async function riderHistory(db: Db, riderId: number | null, exceptId: num
 }
 
 /** Other submissions whose ride overlaps this one's time range (the same ride uploaded twice shows here). */
-export async function overlappingSubmissions(db: Db, id: number, limit = 10) {
+/** A submission of the same time range, with how long the two overlap. */
+export interface OverlappingSubmission {
+  id: number;
+  status: SubmissionStatus;
+  createdAt: Date;
+  riderHandle: string | null;
+  overlapSeconds: number;
+  rideSeconds: number;
+}
+
+export async function overlappingSubmissions(db: Db, id: number, limit = 10): Promise<OverlappingSubmission[]> {
   return db('submissions as s2')
     .join('submissions as s', 's.id', db.raw('?', [id]))
     .whereNot('s2.id', id)
     .whereNot('s2.status', 'failed')
     .whereRaw('s2.ride_started_at < s.ride_ended_at and s2.ride_ended_at > s.ride_started_at')
     .leftJoin('users as u', 'u.id', 's2.rider_id')
-    .select(
+    .select<OverlappingSubmission[]>(
       's2.id',
       's2.status',
       's2.created_at as createdAt',
@@ -214,19 +224,40 @@ export async function streamsOf(db: Db, ids: number[]): Promise<Array<{ submissi
   return db('submission_recordings').whereIn('submission_id', ids).select('submission_id as submissionId', 'side', 'stream');
 }
 
-export async function decisionHistory(db: Db, id: number) {
+export interface DecisionHistoryEntry {
+  id: number | string;
+  action: string;
+  reason: string | null;
+  before: unknown;
+  after: unknown;
+  createdAt: Date;
+  actorHandle: string | null;
+}
+
+export async function decisionHistory(db: Db, id: number): Promise<DecisionHistoryEntry[]> {
   return db('audit_log as a')
     .leftJoin('users as u', 'u.id', 'a.actor_id')
     .where({ 'a.subject_type': 'submission', 'a.subject_id': String(id) })
     .orderBy('a.id', 'asc')
-    .select('a.id', 'a.action', 'a.reason', 'a.before', 'a.after', 'a.created_at as createdAt', 'u.handle as actorHandle');
+    .select<DecisionHistoryEntry[]>('a.id', 'a.action', 'a.reason', 'a.before', 'a.after', 'a.created_at as createdAt', 'u.handle as actorHandle');
 }
 
-export async function findDecision(db: Db, id: number) {
+export interface DecisionRecord {
+  id: number;
+  riderId: number | null;
+  status: SubmissionStatus;
+  version: number;
+  decisionReason: string | null;
+  decisionNote: string | null;
+  decidedAt: Date | null;
+  decidedByHandle: string | null;
+}
+
+export async function findDecision(db: Db, id: number): Promise<DecisionRecord | undefined> {
   return db('submissions as s')
     .leftJoin('users as u', 'u.id', 's.decided_by')
     .where('s.id', id)
-    .first(
+    .first<DecisionRecord | undefined>(
       's.id',
       's.rider_id as riderId',
       's.status',

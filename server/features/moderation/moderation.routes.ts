@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { correctTagsInput, decideSubmissionInput, reviewQueueQuery } from '@shared/schemas/moderation';
-import { recordingTagsInput } from '@shared/schemas/submission';
+import { correctTagsInput, decideSubmissionInput, resubmitTagsInput, reviewQueueQuery } from '@shared/schemas/moderation';
 import { requireRole, requireUser } from '../../auth/require-user';
 import type { Config } from '../../config/env';
 import type { Db } from '../../db/knex';
@@ -70,12 +69,6 @@ export function moderationRouter(deps: Deps) {
   return router;
 }
 
-const resubmitInput = z.object({
-  a: recordingTagsInput.partial().strict().optional(),
-  b: recordingTagsInput.partial().strict().optional(),
-  expectedVersion: z.coerce.number().int().positive(),
-});
-
 /** Mounted beside the submissions router: the decision as the rider sees it, and the rider's correction. */
 export function submissionDecisionRouter(deps: Deps) {
   const { db } = deps;
@@ -87,7 +80,7 @@ export function submissionDecisionRouter(deps: Deps) {
     res.json({ id: row.id, status: row.status, version: row.version, decision: decisionOf(row) });
   });
 
-  router.patch('/:id/tags', requireUser, validate(idParams, 'params'), validate(resubmitInput), async (req, res) => {
+  router.patch('/:id/tags', requireUser, validate(idParams, 'params'), validate(resubmitTagsInput), async (req, res) => {
     const outcome = await resubmitTags(db, { submissionId: res.locals.params.id, riderId: req.user!.id, ...res.locals.body });
     await afterTagChange(deps, outcome);
     res.json(outcome);

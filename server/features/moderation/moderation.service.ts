@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import type { TagChangeResult } from '@shared/schemas/moderation';
 import type { CorrectTagsInput, Decision, RejectReason } from '@shared/schemas/moderation';
 import type { RecordingTagsInput, SubmissionStatus } from '@shared/schemas/submission';
 import { assertIndependentOf } from '../../auth/require-user';
@@ -138,13 +139,7 @@ async function comparisonWords(db: Knex | Knex.Transaction, submissionId: number
 
 // Tags
 
-export interface TagChangeOutcome {
-  id: number;
-  status: SubmissionStatus;
-  version: number;
-  /** Position or model changed: the submission goes through the analysis again. */
-  reanalyse: boolean;
-}
+export type TagChangeOutcome = TagChangeResult;
 
 /** A moderator corrects a submission's tags; recorded as a correction, with before and after. */
 export async function correctSubmissionTags(db: Knex, command: { submissionId: number; moderatorId: number } & CorrectTagsInput): Promise<TagChangeOutcome> {

@@ -2,7 +2,8 @@ import type { Knex } from 'knex';
 import type { DeviceInfo } from '@shared/analysis/types';
 import { FLAG_GUIDANCE } from '@shared/moderation/flag-guidance';
 import { dayOf } from '@shared/schemas/day';
-import { type DecisionView, REJECT_REASON_LABELS } from '@shared/schemas/moderation';
+import { type DecisionView, type PossibleDuplicate, REJECT_REASON_LABELS, type Review, type ReviewFlag } from '@shared/schemas/moderation';
+import type { SubmissionView } from '@shared/schemas/submission-view';
 import { NotFoundError } from '../../lib/errors';
 import { decodeStream } from '../submissions/stream-codec';
 import { presentSubmission } from '../submissions/submission.presenter';
@@ -24,10 +25,10 @@ interface Viewer {
  * what to check, the rider's record, possible duplicates and whether the files'
  * own device info agrees with the tags.
  */
-export async function getReview(db: Knex, submissionId: number, viewer: Viewer) {
+export async function getReview(db: Knex, submissionId: number, viewer: Viewer): Promise<Review<SubmissionView>> {
   const submission = await findSubmission(db, submissionId);
   if (!submission) throw new NotFoundError('No such submission.');
-  const flags = (submission.flags as Array<{ code: string; severity: string; message: string }>).map((flag) => ({
+  const flags: ReviewFlag[] = (submission.flags as Omit<ReviewFlag, 'check' | 'likelyReason'>[]).map((flag) => ({
     ...flag,
     check: FLAG_GUIDANCE[flag.code]?.check ?? null,
     likelyReason: FLAG_GUIDANCE[flag.code]?.likelyReason ?? null,
@@ -66,7 +67,7 @@ export function decisionOf(row: { decisionReason?: string | null; decisionNote?:
  * Submissions of the same time range whose power streams are nearly the same as
  * one of this submission's: the same ride uploaded again with other files.
  */
-async function possibleDuplicates(db: Knex, submissionId: number) {
+async function possibleDuplicates(db: Knex, submissionId: number): Promise<PossibleDuplicate[]> {
   const candidates = await moderation.overlappingSubmissions(db, submissionId);
   if (candidates.length === 0) return [];
   const streams = await moderation.streamsOf(db, [submissionId, ...candidates.map((c) => c.id)]);

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { createSubmissionInput } from '@shared/schemas/submission';
+import { type CreatedSubmission, createSubmissionInput } from '@shared/schemas/submission';
 import { requireUser } from '../../auth/require-user';
 import type { Config } from '../../config/env';
 import type { Db } from '../../db/knex';
@@ -49,7 +49,7 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config;
       a: { buffer: fileA.buffer, originalName: fileA.originalname },
       b: { buffer: fileB.buffer, originalName: fileB.originalname },
     });
-    res.status(201).json({ id, status: 'received', url: `/submissions/${id}` });
+    res.status(201).json({ id, status: 'received', url: `/submissions/${id}` } satisfies CreatedSubmission);
   });
 
   router.get('/:id', validate(idParams, 'params'), async (req, res) => {

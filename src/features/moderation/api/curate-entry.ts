@@ -1,5 +1,5 @@
 import { type QueryKey, useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CatalogueEntryType, CurateEntryInput, MergeEntriesInput } from '@shared/schemas/moderation';
+import type { CatalogueEntryType, CurateEntryInput, CurationResult, MergeEntriesInput } from '@shared/schemas/moderation';
 import { api } from '@/lib/api-client';
 import { getCurationCatalogueQueryOptions } from './get-curation-catalogue';
 import { getPendingEntriesQueryOptions } from './get-pending-entries';
@@ -7,11 +7,6 @@ import { getPendingEntriesQueryOptions } from './get-pending-entries';
 export type CurationAction =
   | { kind: 'curate'; type: CatalogueEntryType; id: number; input: CurateEntryInput }
   | { kind: 'merge'; type: CatalogueEntryType; id: number; input: MergeEntriesInput };
-
-/** What the server answers: the curated entry, or what a merge moved. */
-export type CurationResult =
-  | { id: number; type: CatalogueEntryType; name: string; status: string }
-  | { mergedId: number; intoId: number; movedRecordings: number; movedAcceptedSubmissions: number };
 
 export function curateEntry(action: CurationAction) {
   const path = `/api/moderation/catalogue/${action.type}/${action.id}${action.kind === 'merge' ? '/merge' : ''}`;

@@ -1,22 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { PendingEntries } from '@shared/schemas/moderation';
 import { api } from '@/lib/api-client';
-
-export interface PendingEntry {
-  id: number;
-  name: string;
-  slug?: string;
-  makerName?: string;
-  modelName?: string;
-  proposedBy: string | null;
-  createdAt: string;
-}
-
-export interface PendingEntries {
-  makers: PendingEntry[];
-  models: PendingEntry[];
-  firmware: PendingEntry[];
-  recordingDevices: PendingEntry[];
-}
 
 export function getPendingEntries(): Promise<PendingEntries> {
   return api.get<PendingEntries>('/api/moderation/catalogue/pending');

@@ -1,43 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
-import type { QualityFlag } from '@shared/analysis/types';
-import type { ReviewQueueQuery } from '@shared/schemas/moderation';
+import type { ReviewQueue, ReviewQueueQuery } from '@shared/schemas/moderation';
 import { api } from '@/lib/api-client';
-
-export interface QueueRecording {
-  side: 'a' | 'b';
-  makerId: number;
-  makerName: string;
-  modelId: number;
-  modelName: string;
-  firmwareVersion: string;
-  position: string;
-  recordingDeviceName: string;
-}
-
-export interface QueueRow {
-  id: number;
-  version: number;
-  createdAt: string;
-  flags: QualityFlag[];
-  flagSeverity: number;
-  biasPercent: number | null;
-  loaLowerPercent: number | null;
-  loaUpperPercent: number | null;
-  matchedSeconds: number | null;
-  correlation: number | null;
-  likeForLikeMode: string | null;
-  aPowerDropouts: number | null;
-  bPowerDropouts: number | null;
-  riderHandle: string | null;
-  recordings: QueueRecording[];
-}
-
-export interface ReviewQueue {
-  total: number;
-  pageSize: number;
-  submissions: QueueRow[];
-  flagCounts: Array<{ code: string; count: number }>;
-}
 
 export type QueueFilters = Partial<Omit<ReviewQueueQuery, 'page'>> & { page?: number };
 

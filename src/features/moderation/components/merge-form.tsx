@@ -1,11 +1,11 @@
 import type { QueryKey } from '@tanstack/react-query';
 import { useId, useState } from 'react';
 import type { CatalogueEntryType } from '@shared/schemas/moderation';
-import { type CurationResult, useCurateEntry } from '../api/curate-entry';
+import type { MergeResult } from '@shared/schemas/moderation';
+import { useCurateEntry } from '../api/curate-entry';
 import { ActionError, dangerButton, inputClass, primaryButton, quietButton } from './curation-parts';
 import { EntryPicker, type PickableEntry } from './entry-picker';
 
-type MergeResult = Extract<CurationResult, { mergedId: number }>;
 
 const WHAT_MOVES: Record<CatalogueEntryType, (from: string) => string> = {
   maker: (from) => `the models of “${from}” (same-named models are merged too), their submissions and statistics, and its staff`,

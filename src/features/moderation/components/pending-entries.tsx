@@ -1,7 +1,8 @@
 import { useState } from 'react';
 import type { CatalogueEntryType } from '@shared/schemas/moderation';
 import { useCurateEntry } from '../api/curate-entry';
-import { type PendingEntry, usePendingEntries } from '../api/get-pending-entries';
+import type { PendingEntry } from '@shared/schemas/moderation';
+import { usePendingEntries } from '../api/get-pending-entries';
 
 const GROUPS: Array<{ key: 'makers' | 'models' | 'firmware' | 'recordingDevices'; type: CatalogueEntryType; title: string }> = [
   { key: 'makers', type: 'maker', title: 'Makers' },

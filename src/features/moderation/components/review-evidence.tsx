@@ -1,7 +1,7 @@
 import { formatDayAndTime } from '@/lib/format-date';
 import { Link } from 'react-router-dom';
 import { REJECT_REASON_LABELS } from '@shared/schemas/moderation';
-import type { Review } from '../api/get-review';
+import type { Review } from '@shared/schemas/moderation';
 
 const SEVERITY_STYLE = { info: 'border-fjord-100 bg-white', warning: 'border-caution-600/40 bg-caution-100', severe: 'border-alert-600/40 bg-alert-100' } as const;
 const SEVERITY_WORD = { info: 'Note', warning: 'Check', severe: 'Problem' } as const;

@@ -1,6 +1,7 @@
 import { signedPercent } from '@/lib/format-figures';
 import { Link } from 'react-router-dom';
-import { type QueueFilters, type QueueRow, useReviewQueue } from '../api/get-review-queue';
+import type { ReviewQueueRow as QueueRow } from '@shared/schemas/moderation';
+import { type QueueFilters, useReviewQueue } from '../api/get-review-queue';
 import { SeverityBadge } from './severity-badge';
 
 const waited = (iso: string) => {

@@ -1,21 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { Outbox } from '@shared/schemas/mail';
 import { api } from '@/lib/api-client';
-
-export interface OutboxMessage {
-  id: number;
-  from: string;
-  recipients: string[];
-  subject: string;
-  text: string;
-  headers: Record<string, string>;
-  receivedAt: string;
-}
-
-export interface Outbox {
-  total: number;
-  pageSize: number;
-  messages: OutboxMessage[];
-}
 
 export function getOutbox(page: number): Promise<Outbox> {
   return api.get<Outbox>(`/api/mail/outbox?page=${page}`);

@@ -1,13 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateSubmissionInput } from '@shared/schemas/submission';
+import type { CreatedSubmission, CreateSubmissionInput } from '@shared/schemas/submission';
 import { api } from '@/lib/api-client';
 import { getMySubmissionsQueryOptions } from './get-my-submissions';
-
-export interface CreatedSubmission {
-  id: number;
-  status: 'received';
-  url: string;
-}
 
 export interface CreateSubmissionRequest {
   fileA: File;

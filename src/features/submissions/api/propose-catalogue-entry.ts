@@ -1,19 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type {
-  CatalogueFirmware,
-  CatalogueMaker,
-  CatalogueModel,
-  CatalogueRecordingDevice,
-  ProposeCatalogueEntryInput,
-} from '@shared/schemas/catalogue';
+import type { ProposeCatalogueEntryInput, ProposedEntry } from '@shared/schemas/catalogue';
 import { api } from '@/lib/api-client';
 import { getCatalogueQueryOptions } from './get-catalogue';
-
-export type ProposedEntry =
-  | { type: 'maker'; entry: CatalogueMaker }
-  | { type: 'model'; entry: CatalogueModel }
-  | { type: 'firmware'; entry: CatalogueFirmware }
-  | { type: 'recording_device'; entry: CatalogueRecordingDevice };
 
 export function proposeCatalogueEntry(input: ProposeCatalogueEntryInput): Promise<ProposedEntry> {
   return api.post<ProposedEntry>('/api/catalogue/proposals', input);
