@@ -11,8 +11,9 @@ import type { SessionUser } from '@server/features/users/users.service';
 import { MODELS, RIDERS, type WorldModel } from './world';
 
 const DAY_SECONDS = 86_400;
-const HISTORY_DAYS = 540;
 const FORTNIGHT = 14;
+/** The logs begin with the first release of the last year and a half (the site is that old). */
+const FIRST_LOGGED_DAYS_AGO = 540;
 /** Coin cells of one model differ little: Weibull shape 4 gives a spread of about ±28 % (from memory, typical of cell datasheets). */
 const WEIBULL_SHAPE = 4;
 
@@ -35,9 +36,10 @@ export function planBatteryLogs(seed = 2026): PlannedBatteryLog[] {
     const owners = RIDERS.filter((r) => r.meters.includes(model.name));
     owners.forEach((rider, index) => {
       const random = createRandom(deriveSeed(seed, `battery:${model.name}:${rider.handle}`));
-      const hoursPerDay = random.uniform(1.6, 2.6);
+      const hoursPerDay = random.uniform(2.4, 3.4);
       const riderFactor = Math.exp(0.08 * random.normal());
-      const startDaysAgo = HISTORY_DAYS - random.integer(0, 60);
+      // Owners started logging around the first release they ran, within a month of it.
+      const startDaysAgo = (model.firmware.find((f) => f.releasedDaysAgo < FIRST_LOGGED_DAYS_AGO)?.releasedDaysAgo ?? FIRST_LOGGED_DAYS_AGO) - random.integer(0, 30);
       const log: PlannedBatteryLog = { rider: rider.handle, model: model.name, events: [], riding: [] };
       let daysAgo = startDaysAgo;
       let previousEnded: PreviousBatteryEnding = 'first_battery';

@@ -189,12 +189,12 @@ export const MODELS: WorldModel[] = [
   },
   {
     maker: 'brindle-and-kite', name: 'Pennant Pedals', position: 'dual', kind: 'pedal', noiseWatts: 2, noisePercent: 1.2, cadenceLagSeconds: 0,
-    story: 'Firmware 1.3 wakes faster and its coin cells last about half as long: some 200 hours instead of 400.',
+    story: 'Firmware 1.3 wakes faster and its coin cells last less than half as long: some 180 hours instead of 400.',
     battery: {
       type: 'coin_cell',
       claimHours: 400,
       claimSource: "Brindle & Kite's pedal manual, battery section",
-      medianHoursByFirmware: { '1.0': 410, '1.1': 400, '1.3': 200 },
+      medianHoursByFirmware: { '1.0': 410, '1.1': 400, '1.3': 180 },
     },
     firmware: [fw('1.0', 660, -0.4, 0.4, 0.3), fw('1.1', 390, -0.4, 0.4, 0.3), fw('1.3', 140, -0.4, 0.3, 0.3)],
   },

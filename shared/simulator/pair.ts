@@ -35,7 +35,7 @@ export interface DropoutCounts {
 export interface PairTruth {
   /** Expected 100 × (ΣA / ΣB − 1) over matched seconds: scale, drivetrain loss and one-sided doubling of the leg's share. */
   biasPercent: number;
-  /** The meters' own error ratio (scale and drivetrain loss only): what a like-for-like comparison should find. */
+  /** The meters' own error ratio (scale, drivetrain loss and the cold, power-weighted over matched seconds): what a like-for-like comparison should find. */
   instrumentBiasPercent: number;
   /** A stamps an event at T + offset when B stamps it at T. */
   clockOffsetSeconds: number;
@@ -121,7 +121,7 @@ export function simulatePair(options: PairOptions): SimulatedPair {
     recordings: { a: recordingA, b: recordingB },
     truth: {
       biasPercent: 100 * (expected.a / expected.b - 1),
-      instrumentBiasPercent: 100 * (gain(options.a) / gain(options.b) - 1),
+      instrumentBiasPercent: 100 * (expected.instrumentA / expected.instrumentB - 1),
       clockOffsetSeconds,
       cadenceLagSeconds,
       powerDelaySeconds: { a: smoothingDelay(options.a), b: smoothingDelay(options.b) },
@@ -158,6 +158,9 @@ function expectedSums(ride: TrueRide, options: PairOptions, firstSecond: number,
   const gainB = gain(options.b);
   let a = 0;
   let b = 0;
+  // The meters' own error over the ride (scale, drivetrain loss, the cold), without the legs' shares.
+  let instrumentA = 0;
+  let instrumentB = 0;
   let pedallingSeconds = 0;
   for (let t = firstSecond; t <= lastSecond; t += 1) {
     const power = ride.power[t];
@@ -166,8 +169,12 @@ function expectedSums(ride: TrueRide, options: PairOptions, firstSecond: number,
     if (excluded[t]) continue;
     a += gainA * coldGain(options.a, t) * sideFactor(options.a, ride.rightShare[t]) * power;
     b += gainB * coldGain(options.b, t) * sideFactor(options.b, ride.rightShare[t]) * power;
+    instrumentA += gainA * coldGain(options.a, t) * power;
+    instrumentB += gainB * coldGain(options.b, t) * power;
   }
-  return { a, b, pedallingSeconds };
+  // A pair with no matched second keeps the plain gain ratio.
+  if (instrumentB === 0) return { a, b, instrumentA: gainA, instrumentB: gainB, pedallingSeconds };
+  return { a, b, instrumentA, instrumentB, pedallingSeconds };
 }
 
 function countDropouts(dropouts: DropoutWindow[]): DropoutCounts {
