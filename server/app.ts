@@ -20,6 +20,7 @@ import { scoreboardRouter } from './features/scoreboard/scoreboard.routes';
 import { mailRouter } from './features/mail/mail.routes';
 import { catalogueAliasRouter } from './features/moderation/curation.routes';
 import { moderationRouter, submissionDecisionRouter } from './features/moderation/moderation.routes';
+import { reanalysisRouter } from './features/reanalysis/reanalysis.routes';
 import { mySubmissionsRouter, submissionsRouter } from './features/submissions/submissions.routes';
 import { threadsRouter } from './features/threads/threads.routes';
 import { accountRouter } from './features/users/users.routes';
@@ -76,6 +77,7 @@ export function createApp(deps: AppDeps) {
   app.use('/auth', authRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api', authApiRouter({ config: deps.config, db, passport, csrf }));
   app.use('/api/account', accountRouter({ db, store: deps.store, logger }));
+  app.use('/api/admin/reanalysis', reanalysisRouter({ db, queue: deps.queue }));
   app.use('/api/admin', adminRouter({ db, store: deps.store }));
   app.use('/api/catalogue', catalogueRouter({ db }));
   app.use('/api/catalogue/aliases', catalogueAliasRouter({ db }));

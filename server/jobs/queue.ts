@@ -3,6 +3,7 @@ import type { Config } from '../config/env';
 import { createMailQueue } from '../features/mail/send-mail.job';
 import { createOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
 import { createConsensusQueue } from '../features/statistics/consensus-refit.job';
+import { createReanalysisQueue } from '../features/reanalysis/reanalyse-submission.job';
 import { createAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 import { JOB_SCHEMA } from './queue-schema';
@@ -26,5 +27,6 @@ export async function startQueue(config: QueueConfig, logger: Logger): Promise<Q
   await createMailQueue(boss);
   await createOriginalsSweepQueue(boss);
   await createConsensusQueue(boss);
+  await createReanalysisQueue(boss);
   return boss;
 }

@@ -3,6 +3,7 @@ import type { Db } from '../db/knex';
 import { workMailQueue } from '../features/mail/send-mail.job';
 import { workOriginalsSweepQueue } from '../features/originals/originals-sweep.job';
 import { workConsensusQueue } from '../features/statistics/consensus-refit.job';
+import { workReanalysisQueue } from '../features/reanalysis/reanalyse-submission.job';
 import { workAnalysisQueue } from '../features/submissions/analyse-submission.job';
 import type { Logger } from '../lib/logger';
 import type { ObjectStore } from '../lib/object-store';
@@ -23,4 +24,5 @@ export async function registerWorkers({ queue, db, logger, config, store }: Work
   await workMailQueue(queue, db, config, logger);
   await workOriginalsSweepQueue(queue, { db, store, logger, graceHours: config.ORIGINALS_SWEEP_GRACE_HOURS });
   await workConsensusQueue(queue, db, logger);
+  await workReanalysisQueue(queue, db, logger);
 }

@@ -61,6 +61,8 @@ const rules: Record<string, Rule> = {
   'DELETE /api/admin/users/:userId/roles/:role': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/roles/moderator` },
   'PUT /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff`, body: (f) => ({ makerId: f.makerId }) },
   'DELETE /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff` },
+  // re-analysis (issue 14): the stored originals are not available yet, so the admin's call passes the guards and starts nothing
+  'POST /api/admin/reanalysis': { allowed: ADMINS, body: () => ({ source: 'originals' }) },
   // catalogue
   'POST /api/catalogue/proposals': { allowed: SIGNED_IN, body: () => ({}) },
   // submissions

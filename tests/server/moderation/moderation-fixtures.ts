@@ -12,8 +12,14 @@ let nextSeed = 1000;
  * A rider's submission, stored and analysed, awaiting review. Arranged through the
  * services (the upload itself is tested elsewhere); pass a seed to get the same ride.
  */
-export async function submissionAwaitingReview(db: Db, riderId: number, catalogue: TestCatalogue, options: { seed?: number; meta?: Record<string, unknown> } = {}) {
-  const pair = cleanPair(options.seed ?? nextSeed++);
+export async function submissionAwaitingReview(
+  db: Db,
+  riderId: number,
+  catalogue: TestCatalogue,
+  /** pair: a simulated pair of its own (default: the clean pair of the seed). */
+  options: { seed?: number; meta?: Record<string, unknown>; pair?: ReturnType<typeof cleanPair> } = {},
+) {
+  const pair = options.pair ?? cleanPair(options.seed ?? nextSeed++);
   const input = createSubmissionInput.parse(submissionMeta(catalogue, options.meta));
   const { id } = await createSubmission({ db, store: testObjectStore() }, riderId, input, {
     a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },

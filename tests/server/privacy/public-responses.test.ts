@@ -36,6 +36,7 @@ const ROUTES: Record<string, RouteRule> = {
   'GET /api/admin/audit-log': { visitor: 'signed_in_only' },
   'GET /api/admin/makers': { visitor: 'signed_in_only' },
   'GET /api/admin/object-store': { visitor: 'signed_in_only' },
+  'GET /api/admin/reanalysis': { visitor: 'signed_in_only' },
   'GET /api/admin/users': { visitor: 'signed_in_only' },
   'GET /api/catalogue': { visitor: 'public' },
   'GET /api/catalogue/aliases': { visitor: 'public', paths: (w) => w.modelSlugs.slice(0, 3).map((s) => `/api/catalogue/aliases?slug=${s}`) },

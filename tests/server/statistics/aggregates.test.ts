@@ -1,8 +1,15 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { recomputeAllAggregates } from '../../../server/features/statistics/aggregates';
-import type { Db } from '../../../server/db/knex';
 import { createCatalogue, type TestCatalogue } from '../support/catalogue-factory';
-import { acceptSubmission, insertAnalysedSubmission, insertRider, unacceptSubmission, type AnalysedSubmission } from '../support/statistics-factory';
+import {
+  acceptSubmission,
+  expectSameFigures,
+  insertAnalysedSubmission,
+  insertRider,
+  statisticsSnapshot as snapshot,
+  unacceptSubmission,
+  type AnalysedSubmission,
+} from '../support/statistics-factory';
 import { createTestContext } from '../support/test-app';
 
 const { db } = await createTestContext();
@@ -28,30 +35,6 @@ function spiderAgainstPedals(overrides: Partial<AnalysedSubmission>): AnalysedSu
 
 const scope = (modelId: number, firmwareId: number | null) =>
   db('meter_statistics').where({ model_id: modelId }).andWhere((q) => (firmwareId === null ? q.whereNull('firmware_id') : q.where('firmware_id', firmwareId))).first();
-
-/** Every statistics row without ids and timestamps, in a stable order. */
-async function snapshot(database: Db) {
-  const strip = (rows: Record<string, unknown>[]) =>
-    rows.map(({ id: _id, updated_at: _updated, ...rest }) => rest);
-  const order = ['model_id', 'firmware_id'];
-  return {
-    statistics: strip(await database('meter_statistics').orderBy(order)),
-    riders: strip(await database('meter_statistics_riders').orderBy([...order, 'rider_id'])),
-    lags: strip(await database('cadence_lag_counts').orderBy([...order, 'lag_seconds'])),
-    tags: strip(await database('dropout_tag_statistics').orderBy([...order, 'tag', 'value'])),
-  };
-}
-
-function expectSameFigures(actual: unknown, expected: unknown, path = '') {
-  if (typeof expected === 'number' && typeof actual === 'number') {
-    expect(actual, path).toBeCloseTo(expected, 9);
-  } else if (expected && typeof expected === 'object') {
-    expect(Object.keys(actual as object).length, path).toBe(Object.keys(expected).length);
-    for (const [key, value] of Object.entries(expected)) expectSameFigures((actual as Record<string, unknown>)[key], value, `${path}.${key}`);
-  } else {
-    expect(actual, path).toEqual(expected);
-  }
-}
 
 describe('aggregates of accepted submissions', () => {
   it('when three riders have accepted submissions, then the sums are the hand-computed ones for both sides', async () => {

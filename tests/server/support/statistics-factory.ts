@@ -1,3 +1,4 @@
+import { expect } from 'vitest';
 import { randomBytes } from 'node:crypto';
 import type { Db } from '../../../server/db/knex';
 import { decideSubmission } from '../../../server/features/moderation/moderation.service';
@@ -116,4 +117,28 @@ export async function acceptSubmission(db: Db, submissionId: number): Promise<vo
 /** Withdraws an accepted submission, which takes it out of the statistics. */
 export async function unacceptSubmission(db: Db, submissionId: number): Promise<void> {
   await decideSubmission(db, { submissionId, moderatorId: await moderator(db), decision: 'withdraw', reason: 'Statistics test' });
+}
+
+/** Every statistics row without ids and timestamps, in a stable order. */
+export async function statisticsSnapshot(database: Db) {
+  const strip = (rows: Record<string, unknown>[]) => rows.map(({ id: _id, updated_at: _updated, ...rest }) => rest);
+  const order = ['model_id', 'firmware_id'];
+  return {
+    statistics: strip(await database('meter_statistics').orderBy(order)),
+    riders: strip(await database('meter_statistics_riders').orderBy([...order, 'rider_id'])),
+    lags: strip(await database('cadence_lag_counts').orderBy([...order, 'lag_seconds'])),
+    tags: strip(await database('dropout_tag_statistics').orderBy([...order, 'tag', 'value'])),
+  };
+}
+
+/** Two snapshots agree: the same rows, numbers equal to 9 decimals (sums of floats in another order). */
+export function expectSameFigures(actual: unknown, expected: unknown, path = '') {
+  if (typeof expected === 'number' && typeof actual === 'number') {
+    expect(actual, path).toBeCloseTo(expected, 9);
+  } else if (expected && typeof expected === 'object') {
+    expect(Object.keys(actual as object).length, path).toBe(Object.keys(expected).length);
+    for (const [key, value] of Object.entries(expected)) expectSameFigures((actual as Record<string, unknown>)[key], value, `${path}.${key}`);
+  } else {
+    expect(actual, path).toEqual(expected);
+  }
 }
