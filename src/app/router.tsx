@@ -36,6 +36,7 @@ const router = createBrowserRouter([
       { path: 'account', handle: { title: 'Your account' }, lazy: page(() => import('./routes/account'), 'AccountRoute') },
       { path: 'admin/users', handle: { title: 'People and roles' }, lazy: page(() => import('./routes/admin-users'), 'AdminUsersRoute') },
       { path: 'admin/audit-log', handle: { title: 'Audit log' }, lazy: page(() => import('./routes/admin-audit-log'), 'AdminAuditLogRoute') },
+      { path: 'admin/reanalysis', handle: { title: 'Re-analysis' }, lazy: page(() => import('./routes/admin-reanalysis'), 'AdminReanalysisRoute') },
       { path: 'admin/outbox', handle: { title: 'Outbox' }, lazy: page(() => import('./routes/outbox'), 'OutboxRoute') },
       { path: 'moderation', handle: { title: 'Review queue' }, lazy: page(() => import('./routes/moderation-queue'), 'ModerationQueueRoute') },
       { path: 'moderation/catalogue', handle: { title: 'Catalogue curation' }, lazy: page(() => import('./routes/moderation-catalogue'), 'ModerationCatalogueRoute') },

@@ -5,6 +5,7 @@ import { RequireAccess } from '@/features/auth/components/require-access';
 const adminPages = [
   { to: '/admin/users', label: 'People and roles' },
   { to: '/admin/audit-log', label: 'Audit log' },
+  { to: '/admin/reanalysis', label: 'Re-analysis' },
   { to: '/admin/outbox', label: 'Outbox' },
 ];
 

@@ -15,12 +15,26 @@ function Panel({ title, children }: { title: string; children: React.ReactNode }
   );
 }
 
+const SENT_BACK_BY_REANALYSIS = 'submission.sent_back_by_reanalysis';
+
+/** When the last event was a re-analysis that put the ride back in the queue: its line ("Re-analysed with method N: …"). */
+function reanalysisReason(review: Review): string | null {
+  const last = review.history.at(-1);
+  return last?.action === SENT_BACK_BY_REANALYSIS ? last.reason : null;
+}
+
 /** What only moderators see: the flags with what to check, the files against the tags, duplicates and the rider's record. */
 export function ReviewEvidence({ review }: { review: Review }) {
   const history = review.riderHistory;
+  const reanalysed = reanalysisReason(review);
   return (
     <div className="grid gap-5 lg:grid-cols-2">
       <Panel title="Flags and what to check">
+        {reanalysed && (
+          <p role="note" className="mb-3 rounded-lg border border-alert-600/40 bg-alert-100 p-3 text-caption font-semibold text-ink">
+            Back in the queue. {reanalysed}
+          </p>
+        )}
         {review.flags.length === 0 ? (
           <p className="text-ink-soft">The analysis raised no flags.</p>
         ) : (
@@ -94,8 +108,14 @@ export function ReviewEvidence({ review }: { review: Review }) {
           <ol className="mt-4 space-y-1 text-caption text-ink-soft">
             {review.history.map((h) => (
               <li key={h.id}>
-                {formatDayAndTime(h.createdAt)}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by {h.actorHandle ?? 'someone'}
-                {h.reason ? ` (${h.reason})` : ''}
+                {h.action === SENT_BACK_BY_REANALYSIS ? (
+                  `${formatDayAndTime(h.createdAt)}: ${h.reason ?? 'back to review after a re-analysis'}`
+                ) : (
+                  <>
+                    {formatDayAndTime(h.createdAt)}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by {h.actorHandle ?? 'someone'}
+                    {h.reason ? ` (${h.reason})` : ''}
+                  </>
+                )}
               </li>
             ))}
           </ol>
