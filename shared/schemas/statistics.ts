@@ -158,12 +158,20 @@ export interface ModelHeader {
   threadsPath: string;
 }
 
+/** Which comparison methods a page's figures come from (issue 14): the current one, and those of the accepted rides counted. */
+export interface FigureMethods {
+  current: number;
+  /** Distinct method versions of the accepted rides in the figures, ascending; empty without any. */
+  versions: number[];
+}
+
 export interface ModelPage {
   model: ModelHeader;
   /** The consensus offsets shown: the day they were fitted (null before the first fit; a day, like every public time). */
   consensusFittedOn: string | null;
   /** A like-for-like decision came after that fit: a worker refits within seconds. */
   consensusRefitPending: boolean;
+  methods: FigureMethods;
   note: { body: string; pinnedAt: string } | null;
   figures: MeterFigures;
   firmware: FirmwareSummary[];
@@ -176,6 +184,7 @@ export interface FirmwarePage {
   /** As on ModelPage. */
   consensusFittedOn: string | null;
   consensusRefitPending: boolean;
+  methods: FigureMethods;
   firmware: FirmwareSummary;
   note: { body: string; pinnedAt: string } | null;
   dropoutBreakdown: DropoutBreakdownRow[];

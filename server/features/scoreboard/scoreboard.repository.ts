@@ -216,6 +216,21 @@ export async function findRecentAccepted(db: Knex, where: { modelId: number; fir
     );
 }
 
+/** The method versions of the accepted rides with a side on this model (or this firmware), ascending. */
+export async function findMethodVersions(db: Knex, where: { modelId: number; firmwareId?: number }): Promise<number[]> {
+  const rows: { method_version: number }[] = await db('submission_recordings as r')
+    .join('submissions as s', 's.id', 'r.submission_id')
+    .where('r.model_id', where.modelId)
+    .modify((q) => {
+      if (where.firmwareId !== undefined) q.where('r.firmware_id', where.firmwareId);
+    })
+    .where('s.status', 'accepted')
+    .whereNotNull('s.method_version')
+    .distinct('s.method_version')
+    .orderBy('s.method_version');
+  return rows.map((r) => r.method_version);
+}
+
 export async function findPinnedNote(db: Knex, subject: { modelId: number } | { firmwareId: number }) {
   const row = await db('moderator_notes')
     .where('modelId' in subject ? { model_id: subject.modelId } : { firmware_id: subject.firmwareId })

@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { METHOD_VERSION } from '@shared/analysis/method';
 import type {
   ConsensusFigure,
   DropoutBreakdownRow,
@@ -146,15 +147,17 @@ function recentOf(rows: repository.RecentSubmissionRow[]): RecentSubmission[] {
 
 export async function getModelPage(db: Knex, slug: string): Promise<ModelPage> {
   const loaded = await loadModel(db, slug);
-  const [dropouts, recent, note] = await Promise.all([
+  const [dropouts, recent, note, versions] = await Promise.all([
     breakdown(db, loaded.model.id, null, loaded.modelRow),
     repository.findRecentAccepted(db, { modelId: loaded.model.id }, RECENT_ON_MODEL_PAGE),
     repository.findPinnedNote(db, { modelId: loaded.model.id }),
+    repository.findMethodVersions(db, { modelId: loaded.model.id }),
   ]);
   return {
     model: modelHeader(loaded.model),
     consensusFittedOn: loaded.consensusFit.fittedOn,
     consensusRefitPending: loaded.consensusFit.refitPending,
+    methods: { current: METHOD_VERSION, versions },
     note,
     figures: loaded.figures,
     firmware: loaded.summaries,
@@ -169,15 +172,17 @@ export async function getFirmwarePage(db: Knex, slug: string, version: string): 
   if (index < 0) throw new NotFoundError(`No firmware ${version} for this model.`);
   const firmwareId = loaded.firmware[index].id;
   const scope = loaded.statisticsOf(firmwareId);
-  const [dropouts, submissions, note] = await Promise.all([
+  const [dropouts, submissions, note, versions] = await Promise.all([
     breakdown(db, loaded.model.id, firmwareId, scope),
     repository.findRecentAccepted(db, { modelId: loaded.model.id, firmwareId }, SUBMISSIONS_ON_FIRMWARE_PAGE),
     repository.findPinnedNote(db, { firmwareId }),
+    repository.findMethodVersions(db, { modelId: loaded.model.id, firmwareId }),
   ]);
   return {
     model: modelHeader(loaded.model),
     consensusFittedOn: loaded.consensusFit.fittedOn,
     consensusRefitPending: loaded.consensusFit.refitPending,
+    methods: { current: METHOD_VERSION, versions },
     firmware: loaded.summaries[index],
     note,
     dropoutBreakdown: dropouts,

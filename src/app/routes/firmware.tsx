@@ -3,6 +3,7 @@ import { PageSection as Section } from '@/components/ui/page-section';
 import { useFirmware } from '@/features/models/api/get-firmware';
 import { getModelQueryOptions } from '@/features/models/api/get-model';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
+import { FigureMethodsLine } from '@/features/models/components/figure-methods-line';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
 import { BatteryAndTemperature } from '@/features/models/components/battery-and-temperature';
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
@@ -32,6 +33,7 @@ export function FirmwareRoute() {
       />
       <div className="mt-8">
         <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} consensusFit={{ fittedOn: page.consensusFittedOn, refitPending: page.consensusRefitPending }} />
+        <FigureMethodsLine methods={page.methods} />
       </div>
       <Section title="Against the previous firmware">
         <FirmwareComparisonTable modelSlug={page.model.slug} firmware={[page.firmware]} />

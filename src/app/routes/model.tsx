@@ -5,6 +5,7 @@ import { getModelConditionsQueryOptions, useModelConditions } from '@/features/m
 import { BatteryAndTemperature } from '@/features/models/components/battery-and-temperature';
 import { DropoutBreakdown } from '@/features/models/components/dropout-breakdown';
 import { FirmwareChart } from '@/features/models/components/firmware-chart';
+import { FigureMethodsLine } from '@/features/models/components/figure-methods-line';
 import { FirmwareComparisonTable } from '@/features/models/components/firmware-comparison-table';
 import { HeadlineFigures } from '@/features/models/components/headline-figures';
 import { ModelMasthead } from '@/features/models/components/model-masthead';
@@ -35,6 +36,7 @@ export function ModelRoute() {
       />
       <div className="mt-8">
         <HeadlineFigures figures={page.figures} />
+        <FigureMethodsLine methods={page.methods} />
       </div>
       <div className="mt-8">
         <ModelThreadSummary modelSlug={page.model.slug} />

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { METHOD_VERSION } from '@shared/analysis/method';
 import type { RideComparisonView } from '@shared/schemas/submission-view';
 import { BandBiasChart } from './band-bias-chart';
 import { BlandAltmanChart } from './bland-altman-chart';
@@ -63,7 +64,11 @@ export function SubmissionResult({ submissionId, result, names }: { submissionId
           <SteadySegmentsTable segments={result.steadySegments} />
         </Block>
       </div>
-      <p className="text-caption text-ink-faint">Analysed with method version {result.methodVersion}.</p>
+      <p className="text-caption text-ink-faint">
+        Analysed with method version {result.methodVersion}.
+        {result.methodVersion < METHOD_VERSION &&
+          ` That is an older method: the current one is version ${METHOD_VERSION}, and these figures will change when the ride is re-analysed with it.`}
+      </p>
     </div>
   );
 }
