@@ -79,6 +79,7 @@ describe('re-analysis of stored submissions', () => {
     for (const id of [edited.id, plain.id, mistagged.id]) await decide(id, 'accept');
     await decide(rejected.id, 'reject');
     const before = await rows(ids);
+    const modelPageBefore = await request(app).get(`/api/models/${catalogue.spider.slug}`);
     const acceptedBefore = (await db('meter_statistics').where({ model_id: catalogue.spider.id }).whereNull('firmware_id').first('submission_count')).submission_count;
 
     // Act: start a run over HTTP; a second start while it runs is refused; then a worker works the queue.
@@ -126,6 +127,10 @@ describe('re-analysis of stored submissions', () => {
     const afterRun = await statisticsSnapshot(db);
     await recomputeAllAggregates(db);
     expectSameFigures(await statisticsSnapshot(db), afterRun);
+
+    // The public model page says its figures now come from the current method only.
+    expect(modelPageBefore.body.methods).toEqual({ current: METHOD_VERSION, versions: [1] });
+    expect((await request(app).get(`/api/models/${catalogue.spider.slug}`)).body.methods).toEqual({ current: METHOD_VERSION, versions: [METHOD_VERSION] });
 
     // A second run finds nothing to re-analyse and changes no submission.
     const rerun = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});

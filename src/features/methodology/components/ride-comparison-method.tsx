@@ -77,6 +77,11 @@ export function RideComparisonMethod() {
           the bias within ±0.3 percentage points of the truth in every pair (1st–99th percentile of the error −0.10 to +0.16 pp); the clock offset exact in
           99.4 % of pairs inside the window (off by 1 s otherwise); every pair outside the window flagged.
         </p>
+        <p className="mt-3">
+          <strong>Re-analysis.</strong> When the method changes, every stored ride is analysed again with the new one from its stored streams; moderators'
+          decisions stay, an accepted ride whose new result raises a severe flag goes back to the review queue with the reason, and the statistics are rebuilt
+          once at the end. Every page says which method version its figures come from.
+        </p>
       </PageSection>
 
       <PageSection title="Known limits of this method">
