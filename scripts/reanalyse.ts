@@ -12,19 +12,23 @@ import { findRun, findRunningRun } from '../server/features/reanalysis/reanalysi
 import { startReanalysis } from '../server/features/reanalysis/reanalysis.service';
 import { closeRecordingTasks } from '../server/features/submissions/recording-tasks';
 import { createLogger } from '../server/lib/logger';
+import { createObjectStore } from '../server/lib/object-store';
 
 const POLL_MS = 2000;
 
 const config = loadConfig();
 const logger = createLogger(config);
 const db = createDb(config.DATABASE_URL);
-const queue = await startQueue(config.DATABASE_URL, logger);
+const queue = await startQueue(config, logger);
+// --from-originals: kept original files an older decoder read are decoded again (the store's S3_* settings from the environment).
+const source = process.argv.includes('--from-originals') ? 'originals' : 'streams';
+const store = createObjectStore(config);
 let exitCode = 0;
 try {
   const running = await findRunningRun(db);
-  const runId = running ? running.id : (await startReanalysis({ db, queue, logger }, { actorId: null, source: 'streams' })).id;
+  const runId = running ? running.id : (await startReanalysis({ db, queue, logger }, { actorId: null, source })).id;
   console.log(running ? `Following run ${runId}, already running.` : `Started run ${runId} with method version ${METHOD_VERSION}.`);
-  if (!process.argv.includes('--no-worker')) await workReanalysisQueue(queue, db, logger);
+  if (!process.argv.includes('--no-worker')) await workReanalysisQueue(queue, db, logger, store);
   const started = performance.now();
   let lastLine = '';
   for (;;) {
@@ -44,5 +48,6 @@ try {
   await queue.stop({ graceful: true, wait: true, timeout: 10_000 });
   await closeRecordingTasks();
   await db.destroy();
+  store.close();
 }
 process.exit(exitCode);

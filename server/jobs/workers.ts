@@ -24,5 +24,5 @@ export async function registerWorkers({ queue, db, logger, config, store }: Work
   await workMailQueue(queue, db, config, logger);
   await workOriginalsSweepQueue(queue, { db, store, logger, graceHours: config.ORIGINALS_SWEEP_GRACE_HOURS });
   await workConsensusQueue(queue, db, logger);
-  await workReanalysisQueue(queue, db, logger);
+  await workReanalysisQueue(queue, db, logger, store);
 }

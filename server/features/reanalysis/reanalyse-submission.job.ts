@@ -4,13 +4,14 @@ import { METHOD_VERSION } from '@shared/analysis/method';
 import type { ComparisonResult, QualityFlag } from '@shared/analysis/types';
 import type { Queue } from '../../jobs/queue';
 import type { Logger } from '../../lib/logger';
+import type { ObjectStore } from '../../lib/object-store';
 import { recordAudit } from '../audit/audit.repository';
 import { recomputeAllAggregates } from '../statistics/aggregates';
 import { ensureConsensusFresh } from '../statistics/consensus.service';
 import { compareStoredSubmission } from '../submissions/ride-comparison';
-import { resultColumns } from '../submissions/submissions.repository';
+import { findStoredRecordings, resultColumns } from '../submissions/submissions.repository';
 import * as reanalysis from './reanalysis.repository';
-import { loadRecordingsForReanalysis } from './recording-source';
+import { decodesAgain, loadRecordingsForReanalysis, type ReanalysisRecording } from './recording-source';
 
 export const REANALYSE_SUBMISSION_QUEUE = 'reanalyse-submission';
 /** Attempts before an unexpected error counts the submission as failed in its run. */
@@ -40,9 +41,9 @@ export async function enqueueReanalysis(queue: Queue, items: ReanalyseJob[]): Pr
   }
 }
 
-export async function workReanalysisQueue(queue: Queue, db: Knex, logger: Logger) {
+export async function workReanalysisQueue(queue: Queue, db: Knex, logger: Logger, store?: ObjectStore) {
   await queue.work<ReanalyseJob>(REANALYSE_SUBMISSION_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
-    await reanalyseSubmission(db, job.data.runId, job.data.submissionId, logger);
+    await reanalyseSubmission(db, job.data.runId, job.data.submissionId, logger, store);
   });
   // A run whose jobs were lost (the queue's rows gone, a worker stopped for good) resumes when a worker starts.
   await enqueueReanalysis(queue, await reanalysis.findUnfinishedItems(db));
@@ -71,13 +72,13 @@ function newSevereFlags(before: QualityFlag[], after: QualityFlag[]): QualityFla
  * the reason in the audit log. Unexpected errors are retried; the job that
  * completes the run recomputes the statistics.
  */
-export async function reanalyseSubmission(db: Knex, runId: number, submissionId: number, logger?: Logger): Promise<void> {
+export async function reanalyseSubmission(db: Knex, runId: number, submissionId: number, logger?: Logger, store?: ObjectStore): Promise<void> {
   const run = await reanalysis.findRun(db, runId);
   if (run?.status !== 'running') return;
   const attempts = await reanalysis.startItemAttempt(db, runId, submissionId);
   if (attempts !== undefined) {
     try {
-      await reanalyseItem(db, run, submissionId);
+      await reanalyseItem(db, run, submissionId, store);
     } catch (err) {
       logger?.error({ err, runId, submissionId, attempts }, 're-analysis failed');
       if (attempts < MAX_REANALYSIS_ATTEMPTS) throw err;
@@ -88,15 +89,23 @@ export async function reanalyseSubmission(db: Knex, runId: number, submissionId:
   await finishRunIfComplete(db, runId, logger);
 }
 
-async function reanalyseItem(db: Knex, run: reanalysis.ReanalysisRunRecord, submissionId: number): Promise<void> {
+/** Current already: the method, and (for a run from the originals) every recording's decoder where an original is kept. */
+async function upToDate(db: Knex, run: reanalysis.ReanalysisRunRecord, submissionId: number, methodVersion: number | null): Promise<boolean> {
+  if (methodVersion !== METHOD_VERSION) return false;
+  if (run.source !== 'originals') return true;
+  return !(await findStoredRecordings(db, submissionId)).some(decodesAgain);
+}
+
+async function reanalyseItem(db: Knex, run: reanalysis.ReanalysisRunRecord, submissionId: number, store?: ObjectStore): Promise<void> {
   const stored = await reanalysis.findSubmissionForReanalysis(db, submissionId);
-  if (!stored || stored.methodVersion === METHOD_VERSION) {
+  if (!stored || (await upToDate(db, run, submissionId, stored.methodVersion))) {
     await db.transaction((trx) => reanalysis.recordItemOutcome(trx, run.id, submissionId, 'skipped'));
     return;
   }
   let result: ComparisonResult;
+  let recordings: ReanalysisRecording[];
   try {
-    const recordings = await loadRecordingsForReanalysis(db, submissionId, run.source);
+    recordings = await loadRecordingsForReanalysis(db, submissionId, run.source, store);
     // The same comparison as the analysis job: the engine in the worker pool, plus the tag check.
     result = await compareStoredSubmission(db, recordings);
   } catch (err) {
@@ -107,9 +116,13 @@ async function reanalyseItem(db: Knex, run: reanalysis.ReanalysisRunRecord, subm
   }
   await db.transaction(async (trx) => {
     const current = await reanalysis.lockSubmissionForReanalysis(trx, submissionId);
-    if (!current || current.methodVersion === METHOD_VERSION) {
+    if (!current || (current.methodVersion === METHOD_VERSION && !recordings.some((r) => r.redecoded))) {
       await reanalysis.recordItemOutcome(trx, run.id, submissionId, 'skipped');
       return;
+    }
+    // Streams decoded again from the originals replace the stored ones, with the decoder that built them.
+    for (const r of recordings.filter((r) => r.redecoded)) {
+      await trx('submission_recordings').where({ submission_id: submissionId, side: r.side }).update({ stream: r.stream, decoder_version: r.decoderVersion });
     }
     const severe = newSevereFlags(current.flags, result.flags);
     const backToReview = severe.length > 0 && (current.status === 'accepted' || current.status === 'awaiting_review');

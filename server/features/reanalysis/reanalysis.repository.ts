@@ -1,4 +1,5 @@
 import type { Knex } from 'knex';
+import { DECODER_VERSION } from '@shared/analysis/decode-fit';
 import type { QualityFlag } from '@shared/analysis/types';
 import type { ReanalysisSource, ReanalysisStatus } from '@shared/schemas/reanalysis';
 import type { SubmissionStatus } from '@shared/schemas/submission';
@@ -60,11 +61,24 @@ export async function listRuns(db: Db, limit: number): Promise<ReanalysisRunReco
 /** Statuses whose stored result a re-analysis replaces (received/analysing are the analysis job's; failed ones have no result). */
 const REANALYSABLE_STATUSES: SubmissionStatus[] = ['awaiting_review', 'accepted', 'rejected', 'sent_back', 'withdrawn'];
 
-function outdated(db: Db, methodVersion: number) {
+/** Submissions an older method analysed; from the originals, also those with a kept original an older decoder read. */
+function outdated(db: Db, methodVersion: number, source: ReanalysisSource = 'streams') {
   return db('submissions')
     .whereIn('status', REANALYSABLE_STATUSES)
     .whereNotNull('result')
-    .where((q) => q.whereNull('method_version').orWhere('method_version', '<', methodVersion));
+    .where((q) => {
+      q.whereNull('method_version').orWhere('method_version', '<', methodVersion);
+      if (source === 'originals') {
+        q.orWhereExists((e) =>
+          e
+            .select(db.raw('1'))
+            .from('submission_recordings as r')
+            .whereRaw('r.submission_id = submissions.id')
+            .whereNotNull('r.original_key')
+            .where((d) => d.whereNull('r.decoder_version').orWhere('r.decoder_version', '<', DECODER_VERSION)),
+        );
+      }
+    });
 }
 
 export async function countOutdatedSubmissions(db: Db, methodVersion: number): Promise<number> {
@@ -87,7 +101,7 @@ export async function insertRun(
   );
   const id: number | undefined = inserted.rows[0]?.id;
   if (id === undefined) return undefined;
-  const ids: number[] = (await outdated(trx, run.methodVersion).orderBy('id').select('id')).map((r: { id: number }) => r.id);
+  const ids: number[] = (await outdated(trx, run.methodVersion, run.source).orderBy('id').select('id')).map((r: { id: number }) => r.id);
   for (let i = 0; i < ids.length; i += 1000) {
     await trx('reanalysis_run_items').insert(ids.slice(i, i + 1000).map((submissionId) => ({ run_id: id, submission_id: submissionId })));
   }

@@ -7,7 +7,6 @@ import type { Logger } from '../../lib/logger';
 import { recordAudit } from '../audit/audit.repository';
 import { enqueueReanalysis, finishRunIfComplete } from './reanalyse-submission.job';
 import * as reanalysis from './reanalysis.repository';
-import { assertSourceAvailable } from './recording-source';
 
 /** How many runs the admin page lists. */
 export const LISTED_RUNS = 10;
@@ -46,7 +45,6 @@ export async function startReanalysis(
   command: { actorId: number | null; source: ReanalysisSource },
 ): Promise<ReanalysisRunView> {
   const { db, queue } = deps;
-  assertSourceAvailable(command.source);
   const started = await db.transaction(async (trx) => {
     const run = await reanalysis.insertRun(trx, { startedBy: command.actorId, methodVersion: METHOD_VERSION, source: command.source });
     if (!run) {

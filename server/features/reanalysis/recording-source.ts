@@ -1,27 +1,36 @@
 import type { Knex } from 'knex';
+import { DECODER_VERSION } from '@shared/analysis/decode-fit';
 import type { ReanalysisSource } from '@shared/schemas/reanalysis';
-import { AppError } from '../../lib/errors';
+import type { ObjectStore } from '../../lib/object-store';
+import { fetchOriginal } from '../originals/originals.service';
+import { prepareRecording } from '../submissions/recording-tasks';
 import { findStoredRecordings, type StoredRecording } from '../submissions/submissions.repository';
 
-/** A run asked for a source this server cannot read yet (the stored original files come with issue 20). */
-export class ReanalysisSourceUnavailableError extends AppError {
-  constructor(readonly source: ReanalysisSource) {
-    super(400, 'reanalysis_source_unavailable', `Re-analysis from the stored ${source} is not available yet; use the stored streams.`, { source });
-  }
+export interface ReanalysisRecording extends StoredRecording {
+  /** Decoded again from the kept original with the current decoder: its stream replaces the stored one. */
+  redecoded: boolean;
 }
 
-const AVAILABLE_SOURCES: readonly ReanalysisSource[] = ['streams'];
-
-export function assertSourceAvailable(source: ReanalysisSource): void {
-  if (!AVAILABLE_SOURCES.includes(source)) throw new ReanalysisSourceUnavailableError(source);
+/** A recording whose kept original a newer decoder would read again. */
+export function decodesAgain(recording: Pick<StoredRecording, 'originalKey' | 'decoderVersion'>): boolean {
+  return recording.originalKey !== null && (recording.decoderVersion ?? 0) < DECODER_VERSION;
 }
 
 /**
- * The two recordings of a submission as the comparison reads them, from the
- * run's source. The one place a re-analysis loads rides, so the original files
- * (issue 20) can be wired in here.
+ * The two recordings of a submission as the comparison reads them, from the run's
+ * source: the stored streams; or, from the originals, each recording with a kept
+ * original (location removed) that an older decoder built is decoded again in the
+ * worker pool, and the others keep their streams (older uploads have no original).
+ * The one place a re-analysis loads rides.
  */
-export async function loadRecordingsForReanalysis(db: Knex, submissionId: number, source: ReanalysisSource): Promise<StoredRecording[]> {
-  assertSourceAvailable(source);
-  return findStoredRecordings(db, submissionId);
+export async function loadRecordingsForReanalysis(db: Knex, submissionId: number, source: ReanalysisSource, store?: ObjectStore): Promise<ReanalysisRecording[]> {
+  const recordings = await findStoredRecordings(db, submissionId);
+  if (source === 'streams' || !store) return recordings.map((r) => ({ ...r, redecoded: false }));
+  return Promise.all(
+    recordings.map(async (recording) => {
+      if (!decodesAgain(recording)) return { ...recording, redecoded: false };
+      const prepared = await prepareRecording(await fetchOriginal(store, recording.originalKey!));
+      return { ...recording, stream: prepared.stored, decoderVersion: DECODER_VERSION, redecoded: true };
+    }),
+  );
 }

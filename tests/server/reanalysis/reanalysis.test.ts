@@ -2,10 +2,11 @@ import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { decideSubmission } from '../../../server/features/moderation/moderation.service';
 import { reanalyseSubmission, workReanalysisQueue } from '../../../server/features/reanalysis/reanalyse-submission.job';
-import { loadRecordingsForReanalysis, ReanalysisSourceUnavailableError } from '../../../server/features/reanalysis/recording-source';
 import { recomputeAllAggregates } from '../../../server/features/statistics/aggregates';
 import { createLogger } from '../../../server/lib/logger';
+import { DECODER_VERSION } from '../../../shared/analysis/decode-fit';
 import { METHOD_VERSION } from '../../../shared/analysis/method';
+import { testObjectStore } from '../../support/test-object-store';
 import type { QualityFlag } from '../../../shared/analysis/types';
 import { simulatePair } from '../../../shared/simulator/pair';
 import { submissionAwaitingReview } from '../moderation/moderation-fixtures';
@@ -86,7 +87,7 @@ describe('re-analysis of stored submissions', () => {
     const start = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});
     const second = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});
     const progress = await admin.agent.get('/api/admin/reanalysis');
-    await workReanalysisQueue(queue!, db, createLogger(config));
+    await workReanalysisQueue(queue!, db, createLogger(config), testObjectStore());
     const finished = await waitFor(
       async () => {
         const res = await admin.agent.get('/api/admin/reanalysis');
@@ -151,15 +152,39 @@ describe('re-analysis of stored submissions', () => {
     expect(await db('reanalysis_runs').where({ id: run.id }).first('done', 'failed', 'sent_back', 'status')).toEqual(beforeRun);
   });
 
-  it('when the original files are asked for, then the loader refuses with its typed error until they are stored', async () => {
-    await expect(loadRecordingsForReanalysis(db, 1, 'originals')).rejects.toBeInstanceOf(ReanalysisSourceUnavailableError);
-    const res = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({ source: 'originals' });
-    expect(res.status).toBe(400);
-    expect(res.body.error.code).toBe('reanalysis_source_unavailable');
+  it('when the decoder is newer than the one that read a kept original, then a run from the originals decodes it again and stores the new stream with its decoder; a run from the streams leaves it', async () => {
+    const kept = await submissionAwaitingReview(db, riderId, catalogue, { seed: 7105 });
+    const recordings = () => db('submission_recordings').where({ submission_id: kept.id }).orderBy('side').select('side', 'original_key', 'decoder_version', 'stream');
+    const [a, b] = await recordings();
+    expect(a.original_key).not.toBeNull();
+    // As an older decoder would have left it: its version, and (to see the stream replaced) the other side's stream in A.
+    await db('submission_recordings').where({ submission_id: kept.id, side: 'a' }).update({ decoder_version: 1, stream: b.stream });
+    const run = async (source: string) => {
+      const res = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({ source });
+      expect(res.status).toBe(202);
+      return waitFor(
+        async () => {
+          const list = await admin.agent.get('/api/admin/reanalysis');
+          return list.body.runs[0].status !== 'running' && list.body.runs[0];
+        },
+        { timeoutMs: 90_000, what: `the ${source} run to end` },
+      );
+    };
+
+    const fromStreams = await run('streams');
+    const afterStreams = await recordings();
+    const fromOriginals = await run('originals');
+    const [aAfter] = await recordings();
+
+    expect(fromStreams).toMatchObject({ status: 'finished', total: 0 });
+    expect(afterStreams[0].decoder_version).toBe(1);
+    expect(fromOriginals).toMatchObject({ status: 'finished', source: 'originals', total: 1, done: 1, failed: 0 });
+    expect(aAfter.decoder_version).toBe(DECODER_VERSION);
+    expect(Buffer.compare(aAfter.stream, a.stream)).toBe(0);
     const bad = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({ source: 'files' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^source:/);
-  });
+  }, 180_000);
 
   it('when a visitor, a rider or a moderator asks for the re-analysis, then they are refused', async () => {
     const runsBefore = await db('reanalysis_runs').count({ n: '*' }).first();

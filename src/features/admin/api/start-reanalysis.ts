@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { ReanalysisRunView } from '@shared/schemas/reanalysis';
+import type { ReanalysisRunView, ReanalysisSource } from '@shared/schemas/reanalysis';
 import { api } from '@/lib/api-client';
 import { getReanalysisQueryOptions } from './get-reanalysis';
 
-export function startReanalysis(): Promise<{ run: ReanalysisRunView }> {
-  return api.post<{ run: ReanalysisRunView }>('/api/admin/reanalysis', { source: 'streams' });
+export function startReanalysis(source: ReanalysisSource = 'streams'): Promise<{ run: ReanalysisRunView }> {
+  return api.post<{ run: ReanalysisRunView }>('/api/admin/reanalysis', { source });
 }
 
 export function useStartReanalysis() {

@@ -11,6 +11,7 @@ export function ReanalysisPanel() {
   const overview = useReanalysis();
   const start = useStartReanalysis();
   const [confirming, setConfirming] = useState(false);
+  const [fromOriginals, setFromOriginals] = useState(false);
   const confirmId = useId();
 
   if (overview.isPending) return <p className="text-ink-soft" role="status">Loading the re-analysis runs…</p>;
@@ -20,7 +21,7 @@ export function ReanalysisPanel() {
   const running = latest?.status === 'running';
 
   function confirm() {
-    start.mutateAsync().then(
+    start.mutateAsync(fromOriginals ? 'originals' : 'streams').then(
       () => setConfirming(false),
       () => setConfirming(false), // shown from start.error
     );
@@ -58,6 +59,10 @@ export function ReanalysisPanel() {
               <li>An accepted ride whose new result raises a severe flag goes back to the review queue, with the reason.</li>
               <li>The statistics are rebuilt once, when the last ride is done.</li>
             </ul>
+            <label className="flex items-start gap-2 text-ink">
+              <input type="checkbox" className="mt-1" checked={fromOriginals} onChange={(e) => setFromOriginals(e.target.checked)} />
+              <span>Also decode the kept original files again where an older decoder read them (rides uploaded before originals were kept keep their streams).</span>
+            </label>
             <div className="flex flex-wrap gap-2">
               {/* biome-ignore lint/a11y/noAutofocus: the confirmation step replaces the button just pressed, so focus moves to its first action */}
               <button type="button" autoFocus disabled={start.isPending} onClick={confirm} className="rounded-full bg-alert-600 px-4 py-2 font-semibold text-white hover:bg-alert-800 disabled:opacity-60">
