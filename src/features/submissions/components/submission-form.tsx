@@ -1,4 +1,4 @@
-import { type FormEvent, useState } from 'react';
+import { type FormEvent, useEffect, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import type { Side } from '@shared/analysis/types';
 import { SURFACE_LABELS, SURFACES } from '@shared/schemas/submission';
@@ -7,6 +7,7 @@ import { ApiError } from '@/lib/api-client';
 import { useCatalogue } from '../api/get-catalogue';
 import { useCreateSubmission } from '../api/create-submission';
 import { usePairPreview } from '../hooks/use-pair-preview';
+import { checkDraftTags, prefillFromFile } from '../lib/file-tags';
 import {
   checkFile,
   emptySubmissionDraft,
@@ -16,6 +17,7 @@ import {
   parseDraft,
   type SubmissionDraft,
 } from '../lib/submission-draft';
+import { FileTagWarnings } from './file-tag-warnings';
 import { FitFileDrop } from './fit-file-drop';
 import { ChoiceGroup, FieldError, inputBorder, inputClass } from './form-controls';
 import { PairPreviewPanel } from './pair-preview-panel';
@@ -53,6 +55,17 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
     bAfterDrivetrain: isAfterDrivetrain(catalogue.data, draft.b.modelId),
   });
   const previewError = preview.status === 'done' && !preview.answer.ok ? preview.answer.error : null;
+  const fileDevices = preview.status === 'done' && preview.answer.ok ? preview.answer.preview.devices : null;
+
+  // What the files say about their devices fills the blanks when the files are read (and a side's firmware when its model is chosen, in update); the rider's answers stay.
+  useEffect(() => {
+    if (!fileDevices || !catalogue.data) return;
+    const known = catalogue.data;
+    setDraft((current) => {
+      const next = { ...current, a: prefillFromFile(fileDevices.a, current.a, known), b: prefillFromFile(fileDevices.b, current.b, known) };
+      return JSON.stringify(next) === JSON.stringify(current) ? current : next;
+    });
+  }, [fileDevices, catalogue.data]);
 
   // Errors the rider sees: the form's own checks, the preview's verdict on a file, and the server's answer.
   const shownErrors: FieldErrors = { ...errors };
@@ -67,7 +80,13 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
     return found;
   }
 
-  function update(next: SubmissionDraft) {
+  function update(changed: SubmissionDraft) {
+    let next = changed;
+    if (fileDevices && catalogue.data) {
+      for (const side of ['a', 'b'] as const) {
+        if (next[side].modelId !== draft[side].modelId) next = { ...next, [side]: prefillFromFile(fileDevices[side], next[side], catalogue.data) };
+      }
+    }
     setDraft(next);
     // Once the rider has tried to send, messages follow their corrections as they type.
     if (tried) setErrors(collectErrors(next, files));
@@ -164,6 +183,7 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
             onChange={(next) => update({ ...draft, [side]: next })}
             errors={shownErrors}
           />
+          {fileDevices && <FileTagWarnings side={side} disagreements={checkDraftTags(fileDevices[side], draft[side], catalogue.data).disagreements} />}
         </section>
       ))}
 

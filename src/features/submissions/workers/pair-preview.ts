@@ -1,4 +1,4 @@
-import type { CompareOptions, QualityFlag, Side } from '@shared/analysis/types';
+import type { CompareOptions, DeviceInfo, QualityFlag, Side } from '@shared/analysis/types';
 
 export interface PairPreviewRequest {
   aBytes: ArrayBuffer;
@@ -15,6 +15,8 @@ export interface PairPreview {
   lowerLimitPercent: number | null;
   upperLimitPercent: number | null;
   flags: QualityFlag[];
+  /** What each file says about its devices: the form pre-fills and checks the tags with it. */
+  devices: { a: DeviceInfo; b: DeviceInfo };
 }
 
 export type PairPreviewAnswer =

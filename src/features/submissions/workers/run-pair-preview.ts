@@ -16,6 +16,7 @@ export function runPairPreview({ aBytes, bBytes, options }: PairPreviewRequest):
         lowerLimitPercent: result.agreement.lowerLimitPercent,
         upperLimitPercent: result.agreement.upperLimitPercent,
         flags: result.flags,
+        devices: result.devices,
       },
     };
   } catch (error) {
