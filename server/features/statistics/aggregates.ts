@@ -1,74 +1,9 @@
 import type { Knex } from 'knex';
-import {
-  contributionsOf,
-  emptySums,
-  STATISTICS_SUM_COLUMNS,
-  type RecordingRow,
-  type SideContribution,
-  type StatisticsSums,
-  type SubmissionRow,
-} from './contributions';
+import { contributionsOf, STATISTICS_SUM_COLUMNS, type RecordingRow, type SubmissionRow } from './contributions';
 import { medianOfHistogram } from './cadence-median';
+import { accumulate, emptyDeltas, lagRow, riderRow, scopeKey, scopeRowsOf, tagRow, type Deltas, type Scope } from './scope-sums';
 
-// Keeps the per-scope sufficient statistics (meter_statistics and its companion
-// tables; see the migration 20261201003000) in step with moderation decisions.
-// A scope is a model + firmware, or a model over all firmware (firmware_id null).
-
-interface Scope {
-  modelId: number;
-  firmwareId: number | null;
-}
-
-interface Deltas {
-  stats: Map<string, Scope & { sums: StatisticsSums }>;
-  riders: Map<string, Scope & { riderId: number; count: number }>;
-  lags: Map<string, Scope & { lagSeconds: number; count: number }>;
-  tags: Map<string, Scope & { tag: string; value: string; submissionCount: number; pedallingHours: number; powerDropouts: number; cadenceDropouts: number }>;
-  likeForLike: boolean;
-}
-
-const scopeKey = ({ modelId, firmwareId }: Scope) => `${modelId}:${firmwareId ?? '*'}`;
-
-function emptyDeltas(): Deltas {
-  return { stats: new Map(), riders: new Map(), lags: new Map(), tags: new Map(), likeForLike: false };
-}
-
-function accumulate(deltas: Deltas, contributions: SideContribution[], sign: 1 | -1): void {
-  for (const contribution of contributions) {
-    if (contribution.sums.like_for_like_count > 0) deltas.likeForLike = true;
-    for (const scope of [
-      { modelId: contribution.modelId, firmwareId: contribution.firmwareId },
-      { modelId: contribution.modelId, firmwareId: null },
-    ]) {
-      const key = scopeKey(scope);
-      const stats = deltas.stats.get(key) ?? { ...scope, sums: emptySums() };
-      for (const column of STATISTICS_SUM_COLUMNS) stats.sums[column] += sign * contribution.sums[column];
-      deltas.stats.set(key, stats);
-
-      if (contribution.riderId !== null) {
-        const riderKey = `${key}:${contribution.riderId}`;
-        const rider = deltas.riders.get(riderKey) ?? { ...scope, riderId: contribution.riderId, count: 0 };
-        rider.count += sign;
-        deltas.riders.set(riderKey, rider);
-      }
-      if (contribution.cadenceLagSeconds !== null) {
-        const lagKey = `${key}:${contribution.cadenceLagSeconds}`;
-        const lag = deltas.lags.get(lagKey) ?? { ...scope, lagSeconds: contribution.cadenceLagSeconds, count: 0 };
-        lag.count += sign;
-        deltas.lags.set(lagKey, lag);
-      }
-      for (const { tag, value } of contribution.tags) {
-        const tagKey = `${key}:${tag}:${value}`;
-        const row = deltas.tags.get(tagKey) ?? { ...scope, tag, value, submissionCount: 0, pedallingHours: 0, powerDropouts: 0, cadenceDropouts: 0 };
-        row.submissionCount += sign;
-        row.pedallingHours += sign * contribution.sums.pedalling_hours;
-        row.powerDropouts += sign * contribution.sums.power_dropouts;
-        row.cadenceDropouts += sign * contribution.sums.cadence_dropouts;
-        deltas.tags.set(tagKey, row);
-      }
-    }
-  }
-}
+// Keeps the per-scope sufficient statistics (scope-sums.ts) in step with moderation decisions.
 
 const SUBMISSION_COLUMNS = [
   's.id',
@@ -96,21 +31,6 @@ function selectSubmissions(db: Knex) {
     db.raw(`s.result->'peaks'->'sprints' as sprints`),
   );
 }
-
-type DeltaRow<K extends keyof Deltas> = Deltas[K] extends Map<string, infer V> ? V : never;
-
-const riderRow = (r: DeltaRow<'riders'>) => ({ model_id: r.modelId, firmware_id: r.firmwareId, rider_id: r.riderId, contribution_count: r.count });
-const lagRow = (l: DeltaRow<'lags'>) => ({ model_id: l.modelId, firmware_id: l.firmwareId, lag_seconds: l.lagSeconds, submission_count: l.count });
-const tagRow = (t: DeltaRow<'tags'>) => ({
-  model_id: t.modelId,
-  firmware_id: t.firmwareId,
-  tag: t.tag,
-  value: t.value,
-  submission_count: t.submissionCount,
-  pedalling_hours: t.pedallingHours,
-  power_dropouts: t.powerDropouts,
-  cadence_dropouts: t.cadenceDropouts,
-});
 
 const RECORDING_COLUMNS = ['submission_id', 'side', 'model_id', 'firmware_id', 'recording_device_id', 'recording_mode', 'other_meters_on'];
 
@@ -247,42 +167,15 @@ export async function recomputeAllAggregates(db: Knex): Promise<{ submissions: n
     for (const table of ['meter_statistics_riders', 'cadence_lag_counts', 'dropout_tag_statistics', 'meter_statistics']) {
       await trx(table).delete();
     }
-    const ridersPerScope = new Map<string, number>();
-    for (const rider of deltas.riders.values()) {
-      const key = scopeKey(rider);
-      ridersPerScope.set(key, (ridersPerScope.get(key) ?? 0) + 1);
-    }
-    const lagsPerScope = new Map<string, { value: number; count: number }[]>();
-    for (const lag of deltas.lags.values()) {
-      const key = scopeKey(lag);
-      lagsPerScope.set(key, [...(lagsPerScope.get(key) ?? []), { value: lag.lagSeconds, count: lag.count }]);
-    }
+    const rows = scopeRowsOf(deltas);
     const chunk = 1000;
-    const insertAll = async (table: string, rows: Record<string, unknown>[]) => {
-      for (let i = 0; i < rows.length; i += chunk) await trx(table).insert(rows.slice(i, i + chunk));
+    const insertAll = async (table: string, tableRows: Record<string, unknown>[]) => {
+      for (let i = 0; i < tableRows.length; i += chunk) await trx(table).insert(tableRows.slice(i, i + chunk));
     };
-    await insertAll(
-      'meter_statistics',
-      [...deltas.stats.entries()].map(([key, s]) => ({
-        model_id: s.modelId,
-        firmware_id: s.firmwareId,
-        distinct_riders: ridersPerScope.get(key) ?? 0,
-        median_cadence_lag_seconds: medianOfHistogram(lagsPerScope.get(key) ?? []),
-        ...s.sums,
-      })),
-    );
-    await insertAll(
-      'meter_statistics_riders',
-      [...deltas.riders.values()].map(riderRow),
-    );
-    await insertAll(
-      'cadence_lag_counts',
-      [...deltas.lags.values()].map(lagRow),
-    );
-    await insertAll(
-      'dropout_tag_statistics',
-      [...deltas.tags.values()].map(tagRow),
-    );
+    await insertAll('meter_statistics', rows.statistics);
+    await insertAll('meter_statistics_riders', rows.riders);
+    await insertAll('cadence_lag_counts', rows.lags);
+    await insertAll('dropout_tag_statistics', rows.tags);
     await trx('statistics_state').where({ id: 1 }).update({ consensus_stale: true });
     return { submissions: submissions.length, scopes: deltas.stats.size };
   });
