@@ -7,7 +7,7 @@
 // whose firmware changed nothing says "better" or "worse" on any step (goal ≤ 5 %).
 // Run: npm run validate:statistics [-- --crowds N]
 import { contributionsOf, type RecordingRow, type SubmissionRow } from '../server/features/statistics/contributions';
-import { compareFirmware, meterFigures, type StatisticsRow } from '../server/features/statistics/figures';
+import { compareFirmwareSteps, meterFigures, type StatisticsRow } from '../server/features/statistics/figures';
 import { accumulate, emptyDeltas, scopeRowsOf } from '../server/features/statistics/scope-sums';
 import type { FirmwareComparison, MeterFigures } from '../shared/schemas/statistics';
 import { simulateStatisticsCrowd, type SimulatedRide, type StatisticsCrowdOptions } from '../shared/simulator/statistics-crowd';
@@ -75,13 +75,8 @@ function statisticsRowsOf(ridesByFirmware: Map<number, SimulatedRide[]>): Map<nu
   return rows;
 }
 
-/** A step says "changed" when its verdict is better or worse. */
-function saysChanged(comparison: FirmwareComparison): boolean {
-  const verdict = (comparison as { verdict?: string }).verdict;
-  if (verdict !== undefined) return verdict === 'better' || verdict === 'worse';
-  // Before verdicts existed, the page highlighted any p below 5 %.
-  return (comparison.biasDifference?.pValue ?? 1) < 0.05 || (comparison.powerDropoutRatio?.pValue ?? 1) < 0.05;
-}
+/** A step says "changed" when its verdict is better or worse (before verdicts existed, the page highlighted any raw p below 5 %). */
+const saysChanged = (comparison: FirmwareComparison) => comparison.verdict === 'better' || comparison.verdict === 'worse';
 
 class Tally {
   hits = 0;
@@ -118,8 +113,7 @@ for (const scenario of SCENARIOS) {
     const first: MeterFigures = versions[0]!.figures;
     if (first.bias) bias.add(first.bias.lowerPercent <= scenario.biasPercent && scenario.biasPercent <= first.bias.upperPercent);
     if (first.powerDropouts) dropouts.add(first.powerDropouts.lower <= scenario.dropoutsPerHour && scenario.dropoutsPerHour <= first.powerDropouts.upper);
-    const steps = versions.slice(1).map((to, i) => compareFirmware(versions[i]!, to));
-    falseChanged.add(steps.some(saysChanged));
+    falseChanged.add(compareFirmwareSteps(versions).some(saysChanged));
   }
   const met =
     (bias.trials === 0 || bias.rate >= COVERAGE_GOAL) && (dropouts.trials === 0 || dropouts.rate >= COVERAGE_GOAL) && falseChanged.rate <= FALSE_CHANGED_GOAL;

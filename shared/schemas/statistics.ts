@@ -2,6 +2,8 @@ import { z } from 'zod';
 import { boundedWholeNumber } from './fields';
 import { MEASUREMENT_POSITIONS } from '../analysis/types';
 import { MODEL_KINDS } from './catalogue';
+import type { RateMethod } from '../statistics/clustered-rate';
+import type { VerdictKind } from './battery';
 
 // The shoppers' statistics: query parameters (validated at the edge and kept in the
 // scoreboard's URL) and the figures the JSON endpoints return.
@@ -21,7 +23,7 @@ const filters = {
   position: z.enum(MEASUREMENT_POSITIONS).optional(),
   kind: z.enum(MODEL_KINDS).optional(),
   maker: optionalText(80),
-  /** 'enough': only models past the minimum evidence (3 submissions, 2 riders). */
+  /** 'enough': only models past the minimum evidence (3 submissions, 3 riders). */
   evidence: z.enum(['any', 'enough']).default('any'),
   q: optionalText(80),
 };
@@ -49,6 +51,8 @@ export interface RateFigure {
   perHour: number;
   lower: number;
   upper: number;
+  /** Which interval: 'rider_clustered' when riders differ more than chance allows (it is then wider), else 'poisson_exact'. */
+  method: RateMethod;
 }
 
 export interface RateRatioFigure {
@@ -58,6 +62,7 @@ export interface RateRatioFigure {
   /** Null when unbounded. */
   upper: number | null;
   pValue: number;
+  method: RateMethod;
 }
 
 export interface MeterFigures {
@@ -69,7 +74,10 @@ export interface MeterFigures {
     lowerPercent: number;
     upperPercent: number;
     standardErrorPercent: number;
+    /** Riders − 1 at most (Satterthwaite's for unequal rider weights): the interval is between riders. */
     degreesOfFreedom: number;
+    /** Riders whose rides give this bias (mixed comparisons give none). */
+    riders: number;
     medianPercent: number | null;
     /** Between-submission SD: how consistent the meter is from ride to ride. */
     scatterPercent: number;
@@ -107,13 +115,25 @@ export interface ScoreboardPage {
   order: 'asc' | 'desc';
 }
 
+/** A measure's verdict: its p-value Holm-adjusted over every test on the model's firmware page. */
+export interface ComparisonJudgement {
+  adjustedPValue: number | null;
+  verdict: VerdictKind;
+}
+
 export interface FirmwareComparison {
   from: string;
   to: string;
-  /** Power dropouts per hour of `to` against `from`: exact conditional test. */
-  powerDropoutRatio: RateRatioFigure | null;
-  /** Weighted mean bias of `to` minus `from`, Welch's t-test. */
-  biasDifference: { differencePercent: number; lowerPercent: number; upperPercent: number; pValue: number; degreesOfFreedom: number } | null;
+  /** Power dropouts per hour of `to` against `from`: rider-clustered rates, never narrower than the exact conditional test. */
+  powerDropoutRatio: (RateRatioFigure & ComparisonJudgement) | null;
+  /** Rider-level mean bias of `to` minus `from`, Welch's t-test on the two rider-level means. */
+  biasDifference:
+    | ({ differencePercent: number; lowerPercent: number; upperPercent: number; pValue: number; degreesOfFreedom: number } & ComparisonJudgement)
+    | null;
+  /** The step in one word: worse when either measure is worse, better when one is better and none worse. */
+  verdict: VerdictKind;
+  /** The verdict in words for shoppers, e.g. "Fewer power dropouts than 1.2; no clear change in bias." */
+  words: string;
 }
 
 export interface DropoutBreakdownRow {

@@ -71,6 +71,19 @@ export function biasWeight(pedallingHours: number): number {
   return Math.min(pedallingHours, WEIGHT_CAP_HOURS);
 }
 
+/**
+ * A rider's weight in the between-rider pooling: their rides' weights (Σ capped hours),
+ * capped again at RIDER_WEIGHT_CAP_HOURS. Once a rider has a few hours, the
+ * rider-to-rider spread (their unit, installation, partner) dominates the uncertainty of
+ * their mean, so more hours of the same rider say little more: near-equal weights are
+ * near-optimal, and the cap keeps one prolific rider from standing for the model.
+ */
+export const RIDER_WEIGHT_CAP_HOURS = 4;
+
+export function riderBiasWeight(sumOfRideWeights: number): number {
+  return Math.min(sumOfRideWeights, RIDER_WEIGHT_CAP_HOURS);
+}
+
 export function addToBiasSums(sums: BiasSums, record: BiasRecord): BiasSums {
   return shiftSums(sums, record, 1);
 }

@@ -8,7 +8,8 @@ import type { DropoutTagRow, StatisticsRow } from '../statistics/figures';
 // statistics tables (accepted submissions only) or accepted submissions themselves.
 
 const ENOUGH = `(coalesce(st.submission_count, 0) >= ${MINIMUM_SUBMISSIONS} and coalesce(st.distinct_riders, 0) >= ${MINIMUM_RIDERS})`;
-const MEAN_BIAS = 'st.sum_weighted_bias / nullif(st.sum_weight, 0)';
+// The rider-level mean the pages show (rider-sums.ts).
+const MEAN_BIAS = 'st.rider_sum_weighted_bias / nullif(st.rider_sum_weight, 0)';
 // The reliability-weighted between-submission SD, as summariseBiasSums computes it.
 const SCATTER =
   'sqrt(greatest(0, st.sum_weighted_bias_squared - st.sum_weighted_bias * st.sum_weighted_bias / nullif(st.sum_weight, 0)) / nullif(st.sum_weight - st.sum_weight_squared / nullif(st.sum_weight, 0), 0))';
@@ -154,8 +155,17 @@ export async function findAcceptedBiases(db: Knex, modelId: number) {
     .where('r.model_id', modelId)
     .where('s.status', 'accepted')
     .where('s.pedalling_seconds', '>', 0)
-    .select('r.side', 'r.firmware_id', 's.rider_id', 's.bias_percent', 's.sum_a', 's.sum_b', 's.pedalling_seconds') as Promise<
-    { side: 'a' | 'b'; firmware_id: number; rider_id: number | null; bias_percent: number | null; sum_a: number | null; sum_b: number | null; pedalling_seconds: number }[]
+    .select('r.side', 'r.firmware_id', 's.rider_id', 's.bias_percent', 's.sum_a', 's.sum_b', 's.pedalling_seconds', 's.like_for_like_mode') as Promise<
+    {
+      side: 'a' | 'b';
+      firmware_id: number;
+      rider_id: number | null;
+      bias_percent: number | null;
+      sum_a: number | null;
+      sum_b: number | null;
+      pedalling_seconds: number;
+      like_for_like_mode: string | null;
+    }[]
   >;
 }
 

@@ -14,8 +14,8 @@ import type {
 } from '@shared/schemas/statistics';
 import { medianBias } from '@shared/statistics/weighted-bias';
 import { NotFoundError } from '../../lib/errors';
-import { sideBias } from '../statistics/contributions';
-import { compareFirmware, dropoutBreakdown, meterFigures, type DropoutTagRow, type StatisticsRow } from '../statistics/figures';
+import { poolsBias, sideBias } from '../statistics/contributions';
+import { compareFirmwareSteps, dropoutBreakdown, meterFigures, type DropoutTagRow, type StatisticsRow } from '../statistics/figures';
 import * as repository from './scoreboard.repository';
 
 const RECENT_ON_MODEL_PAGE = 10;
@@ -83,28 +83,27 @@ async function loadModel(db: Knex, slug: string) {
       biases
         .filter((b) => firmwareId === null || b.firmware_id === firmwareId)
         .flatMap((b) => {
-          const bias = sideBias(b, b.side === 'a');
+          const bias = poolsBias(b.like_for_like_mode) ? sideBias(b, b.side === 'a') : null;
           return bias === null ? [] : [{ biasPercent: bias, pedallingHours: b.pedalling_seconds / 3600, riderId: b.rider_id ?? 0 }];
         }),
     );
 
-  const summaries: FirmwareSummary[] = [];
-  let predecessor: { version: string; figures: FirmwareSummary['figures']; row?: StatisticsRow } | null = null;
-  for (const version of firmware) {
+  const versions = firmware.map((version) => {
     const row = statisticsOf(version.id);
-    const figures = meterFigures(row, row ? medianOf(version.id) : null);
+    return { version, row, figures: meterFigures(row, row ? medianOf(version.id) : null) };
+  });
+  const steps = compareFirmwareSteps(versions.map(({ version, row, figures }) => ({ version: version.version, row, figures })));
+  const summaries: FirmwareSummary[] = versions.map(({ version, figures }, i) => {
     const offset = consensus.find((c) => c.firmware_id === version.id);
-    const current = { version: version.version, figures, row };
-    summaries.push({
+    return {
       version: version.version,
       releasedOn: version.released_on,
       beta: version.beta,
       figures,
       consensus: offset && figures.enough ? consensusFigure(offset) : null,
-      againstPredecessor: predecessor ? compareFirmware(predecessor, current) : null,
-    });
-    predecessor = current;
-  }
+      againstPredecessor: i > 0 ? steps[i - 1]! : null,
+    };
+  });
   const modelRow = statisticsOf(null);
   return {
     model,

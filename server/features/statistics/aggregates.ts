@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { contributionsOf, STATISTICS_SUM_COLUMNS, type RecordingRow, type SubmissionRow } from './contributions';
 import { medianOfHistogram } from './cadence-median';
+import { addRiderTerms, RIDER_TERM_COLUMNS, RIDER_TOTAL_COLUMNS, riderTerms, type RiderTotals } from './rider-sums';
 import { accumulate, emptyDeltas, lagRow, riderRow, scopeKey, scopeRowsOf, tagRow, type Deltas, type Scope } from './scope-sums';
 
 // Keeps the per-scope sufficient statistics (scope-sums.ts) in step with moderation decisions.
@@ -51,24 +52,26 @@ export async function updateAggregatesForSubmission(trx: Knex.Transaction, submi
 async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' | 'remove'): Promise<void> {
   if (deltas.stats.size === 0) return;
 
-  // Riders first: a scope's distinct-rider count changes when a rider's count leaves or reaches zero.
+  // Riders first: a scope's distinct-rider count changes when a rider's count leaves or
+  // reaches zero, and its rider terms change by terms(after) − terms(before).
   const riderChange = new Map<string, number>();
   const riderRowsLeft: number[] = [];
   if (deltas.riders.size > 0) {
     const riders = [...deltas.riders.values()];
-    const returned: { id: number; model_id: number; firmware_id: number | null; rider_id: number; contribution_count: number }[] = await trx(
-      'meter_statistics_riders',
-    )
+    const returned: ({ id: number; model_id: number; firmware_id: number | null; rider_id: number } & RiderTotals)[] = await trx('meter_statistics_riders')
       .insert(riders.map(riderRow))
       .onConflict(['model_id', 'firmware_id', 'rider_id'])
-      .merge({ contribution_count: trx.raw('meter_statistics_riders.contribution_count + excluded.contribution_count') })
-      .returning(['id', 'model_id', 'firmware_id', 'rider_id', 'contribution_count']);
+      .merge(Object.fromEntries(RIDER_TOTAL_COLUMNS.map((c) => [c, trx.raw(`meter_statistics_riders.${c} + excluded.${c}`)])))
+      .returning(['id', 'model_id', 'firmware_id', 'rider_id', ...RIDER_TOTAL_COLUMNS]);
     for (const row of returned) {
       if (row.contribution_count <= 0) riderRowsLeft.push(row.id);
       const key = scopeKey({ modelId: row.model_id, firmwareId: row.firmware_id });
-      const delta = deltas.riders.get(`${key}:${row.rider_id}`)!.count;
-      const before = row.contribution_count - delta;
-      const change = before <= 0 && row.contribution_count > 0 ? 1 : before > 0 && row.contribution_count <= 0 ? -1 : 0;
+      const delta = deltas.riders.get(`${key}:${row.rider_id}`)!.totals;
+      const before = Object.fromEntries(RIDER_TOTAL_COLUMNS.map((c) => [c, row[c] - delta[c]])) as RiderTotals;
+      const scopeTerms = deltas.stats.get(key)!.riderTerms;
+      addRiderTerms(scopeTerms, riderTerms(row), 1);
+      addRiderTerms(scopeTerms, riderTerms(before), -1);
+      const change = before.contribution_count <= 0 && row.contribution_count > 0 ? 1 : before.contribution_count > 0 && row.contribution_count <= 0 ? -1 : 0;
       riderChange.set(key, (riderChange.get(key) ?? 0) + change);
     }
   }
@@ -96,13 +99,14 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
     firmware_id: s.firmwareId,
     distinct_riders: riderChange.get(key) ?? 0,
     ...s.sums,
+    ...s.riderTerms,
   }));
   await trx('meter_statistics')
     .insert(statsRows)
     .onConflict(['model_id', 'firmware_id'])
     .merge({
       ...Object.fromEntries(
-        ['distinct_riders', ...STATISTICS_SUM_COLUMNS].map((c) => [c, trx.raw(`meter_statistics.${c} + excluded.${c}`)]),
+        ['distinct_riders', ...STATISTICS_SUM_COLUMNS, ...RIDER_TERM_COLUMNS].map((c) => [c, trx.raw(`meter_statistics.${c} + excluded.${c}`)]),
       ),
       updated_at: trx.fn.now(),
     });

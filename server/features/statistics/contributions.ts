@@ -100,7 +100,7 @@ function sideContribution(submission: SubmissionRow, recording: RecordingRow, ho
   sums.pedalling_hours = hours;
   if (submission.like_for_like_mode === 'direct' || submission.like_for_like_mode === 'via_balance') sums.like_for_like_count = 1;
 
-  const bias = sideBias(submission, isA);
+  const bias = poolsBias(submission.like_for_like_mode) ? sideBias(submission, isA) : null;
   if (bias !== null) {
     const w = biasWeight(hours);
     sums.bias_count = 1;
@@ -156,6 +156,15 @@ function sideContribution(submission: SubmissionRow, recording: RecordingRow, ho
       { tag: 'other_meters_on', value: recording.other_meters_on ? 'yes' : 'no' },
     ],
   };
+}
+
+/**
+ * A mixed comparison (one leg against a total meter without balance) measures the
+ * comparison, not the meter: its bias stays out of both models' pooled figures (its
+ * dropouts still count). Its own page still shows its bias.
+ */
+export function poolsBias(likeForLikeMode: string | null): boolean {
+  return likeForLikeMode !== 'mixed';
 }
 
 /** The side's bias against its partner in percent, or null when the submission has none. */

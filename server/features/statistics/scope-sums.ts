@@ -1,5 +1,6 @@
 import { medianOfHistogram } from './cadence-median';
 import { emptySums, STATISTICS_SUM_COLUMNS, type SideContribution, type StatisticsSums } from './contributions';
+import { addRiderTerms, emptyRiderTerms, RIDER_TOTAL_COLUMNS, riderTerms, riderTotalsOf, type RiderTerms, type RiderTotals } from './rider-sums';
 
 // The per-scope sums of the statistics tables (meter_statistics and its companions; see
 // the migration 20261201003000) as deltas of submissions' contributions. Pure: the
@@ -13,8 +14,9 @@ export interface Scope {
 }
 
 export interface Deltas {
-  stats: Map<string, Scope & { sums: StatisticsSums }>;
-  riders: Map<string, Scope & { riderId: number; count: number }>;
+  /** The rides' sums, and the sums over riders of rider-level terms (rider-sums.ts). */
+  stats: Map<string, Scope & { sums: StatisticsSums; riderTerms: RiderTerms }>;
+  riders: Map<string, Scope & { riderId: number; totals: RiderTotals }>;
   lags: Map<string, Scope & { lagSeconds: number; count: number }>;
   tags: Map<string, Scope & { tag: string; value: string; submissionCount: number; pedallingHours: number; powerDropouts: number; cadenceDropouts: number }>;
   likeForLike: boolean;
@@ -34,15 +36,20 @@ export function accumulate(deltas: Deltas, contributions: SideContribution[], si
       { modelId: contribution.modelId, firmwareId: null },
     ]) {
       const key = scopeKey(scope);
-      const stats = deltas.stats.get(key) ?? { ...scope, sums: emptySums() };
+      const stats = deltas.stats.get(key) ?? { ...scope, sums: emptySums(), riderTerms: emptyRiderTerms() };
       for (const column of STATISTICS_SUM_COLUMNS) stats.sums[column] += sign * contribution.sums[column];
       deltas.stats.set(key, stats);
 
+      const totals = riderTotalsOf(contribution.sums);
       if (contribution.riderId !== null) {
+        // The rider's terms follow from their totals once all are known (scopeRowsOf, or the decision's upsert).
         const riderKey = `${key}:${contribution.riderId}`;
-        const rider = deltas.riders.get(riderKey) ?? { ...scope, riderId: contribution.riderId, count: 0 };
-        rider.count += sign;
+        const rider = deltas.riders.get(riderKey) ?? { ...scope, riderId: contribution.riderId, totals: emptyRiderTotals() };
+        for (const column of RIDER_TOTAL_COLUMNS) rider.totals[column] += sign * totals[column];
         deltas.riders.set(riderKey, rider);
+      } else {
+        // A ride whose rider deleted their account stands for a rider of its own.
+        addRiderTerms(stats.riderTerms, riderTerms(totals), sign);
       }
       if (contribution.cadenceLagSeconds !== null) {
         const lagKey = `${key}:${contribution.cadenceLagSeconds}`;
@@ -64,9 +71,11 @@ export function accumulate(deltas: Deltas, contributions: SideContribution[], si
 }
 
 
+const emptyRiderTotals = (): RiderTotals => Object.fromEntries(RIDER_TOTAL_COLUMNS.map((column) => [column, 0])) as RiderTotals;
+
 export type DeltaRow<K extends keyof Deltas> = Deltas[K] extends Map<string, infer V> ? V : never;
 
-export const riderRow = (r: DeltaRow<'riders'>) => ({ model_id: r.modelId, firmware_id: r.firmwareId, rider_id: r.riderId, contribution_count: r.count });
+export const riderRow = (r: DeltaRow<'riders'>) => ({ model_id: r.modelId, firmware_id: r.firmwareId, rider_id: r.riderId, ...r.totals });
 export const lagRow = (l: DeltaRow<'lags'>) => ({ model_id: l.modelId, firmware_id: l.firmwareId, lag_seconds: l.lagSeconds, submission_count: l.count });
 export const tagRow = (t: DeltaRow<'tags'>) => ({
   model_id: t.modelId,
@@ -86,6 +95,7 @@ export function scopeRowsOf(deltas: Deltas) {
   for (const rider of deltas.riders.values()) {
     const key = scopeKey(rider);
     ridersPerScope.set(key, (ridersPerScope.get(key) ?? 0) + 1);
+    addRiderTerms(deltas.stats.get(key)!.riderTerms, riderTerms(rider.totals), 1);
   }
   const lagsPerScope = new Map<string, { value: number; count: number }[]>();
   for (const lag of deltas.lags.values()) {
@@ -99,6 +109,7 @@ export function scopeRowsOf(deltas: Deltas) {
       distinct_riders: ridersPerScope.get(key) ?? 0,
       median_cadence_lag_seconds: medianOfHistogram(lagsPerScope.get(key) ?? []),
       ...s.sums,
+      ...s.riderTerms,
     })),
     riders: [...deltas.riders.values()].map(riderRow),
     lags: [...deltas.lags.values()].map(lagRow),

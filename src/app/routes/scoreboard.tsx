@@ -20,7 +20,7 @@ export function ScoreboardRoute() {
       <h1 className="text-title font-semibold text-ink">Scoreboard</h1>
       <p className="mt-2 max-w-3xl text-lead text-ink-soft">
         How each power meter model reads against the meters riders paired it with, from accepted submissions only. Every figure carries its 95 % interval;
-        below 3 rides or 2 riders we say so rather than guess.
+        below 3 rides or 3 riders we say so rather than guess.
       </p>
       <div className="mt-8">
         <ScoreboardFiltersForm filters={filters} onChange={update} />

@@ -57,7 +57,7 @@ beforeAll(async () => {
 const scoreboard = (query: Record<string, string | number> = {}) => request(app).get('/api/scoreboard').query({ q: catalogue.maker.name, ...query });
 
 describe('GET /api/scoreboard', () => {
-  it('when models have accepted submissions, then their figures are the weighted bias with a t interval and the Poisson dropout rate', async () => {
+  it('when models have accepted submissions, then their figures are the rider-level bias with a t interval and the rider-clustered dropout rate', async () => {
     // Act
     const res = await scoreboard({ sort: 'name', order: 'asc' });
     // Assert
@@ -67,12 +67,19 @@ describe('GET /api/scoreboard', () => {
     const spider = body.rows[0];
     expect(spider.latestFirmware?.version).toBe('2.2.0');
     expect(spider.figures.evidence).toMatchObject({ submissionCount: 6, distinctRiders: 3, pedallingHours: 6, likeForLikeShare: 1 });
-    // Six equal weights: mean 3.5, SD √3.5, df 5, t(0.975, 5) = 2.570582 (any t table).
+    // Three riders, two one-hour rides each (+1/+4, +2/+5, +3/+6 %): rider means 2.5, 3.5 and
+    // 4.5 with equal weights, so mean 3.5, SD 1 between riders, df 2, t(0.975, 2) = 4.302653 (any t table).
+    expect(spider.figures.bias).toMatchObject({ riders: 3, degreesOfFreedom: 2 });
     expect(spider.figures.bias!.meanPercent).toBeCloseTo(3.5, 10);
-    expect(spider.figures.bias!.upperPercent - 3.5).toBeCloseTo((2.570582 * Math.sqrt(3.5)) / Math.sqrt(6), 5);
+    expect(spider.figures.bias!.upperPercent - 3.5).toBeCloseTo(4.302653 / Math.sqrt(3), 5);
+    // Dropouts 3, 4 and 5 in 2 h per rider: rate 2, residuals −1, 0, +1, so the clustered
+    // Var(rate) = 3/2 · 2 / 6² = 1/12 and the log-scale SE √(1/12) / 2 (hand-computed). Its
+    // upper bound 2·exp(4.302653·SE) is above the exact one; the lower bound stays the exact one.
     const rate = poissonRate(12, 6);
-    expect(spider.figures.powerDropouts).toMatchObject({ events: 12, perHour: 2 });
+    expect(spider.figures.powerDropouts).toMatchObject({ events: 12, perHour: 2, method: 'rider_clustered' });
     expect(spider.figures.powerDropouts!.lower).toBeCloseTo(rate.lower, 10);
+    expect(spider.figures.powerDropouts!.upper).toBeCloseTo(2 * Math.exp((4.302653 * Math.sqrt(1 / 12)) / 2), 5);
+    expect(spider.figures.powerDropouts!.upper).toBeGreaterThan(rate.upper);
     expect(body.rows[1].figures).toMatchObject({ enough: false, bias: null, powerDropouts: null });
     // The pedals are judged against the spider: the inverse bias.
     expect(body.rows[2].figures.bias!.meanPercent).toBeLessThan(0);
@@ -116,7 +123,7 @@ describe('GET /api/scoreboard', () => {
 });
 
 describe('GET /api/models/:slug', () => {
-  it('when a model has two firmware versions, then the newer is compared with its predecessor by rate ratio and Welch test', async () => {
+  it('when a model has two firmware versions, then the newer is compared with its predecessor by rider-level tests, Holm-adjusted, with a verdict in words', async () => {
     // Act
     const res = await request(app).get(`/api/models/${catalogue.spider.slug}`);
     // Assert
@@ -130,14 +137,22 @@ describe('GET /api/models/:slug', () => {
     expect(older.figures.bias!.upperPercent).toBeCloseTo(2 + 4.302653 / Math.sqrt(3), 5);
     expect(older.figures.bias!.medianPercent).toBe(2);
     expect(older.againstPredecessor).toBeNull();
-    const expectedRatio = rateRatio(10, 3, 2, 3);
-    expect(newer.againstPredecessor!.powerDropoutRatio!.ratio).toBeCloseTo(5, 10);
-    expect(newer.againstPredecessor!.powerDropoutRatio!.pValue).toBeCloseTo(expectedRatio.pValue, 12);
-    // With equal weights the weighted Welch test is the ordinary one.
+    const comparison = newer.againstPredecessor!;
+    // Never below the exact conditional test's p-value (the riders differ: the clustered one is larger).
+    const exactRatio = rateRatio(10, 3, 2, 3);
+    expect(comparison.powerDropoutRatio!.ratio).toBeCloseTo(5, 10);
+    expect(comparison.powerDropoutRatio!.method).toBe('rider_clustered');
+    expect(comparison.powerDropoutRatio!.pValue).toBeGreaterThan(exactRatio.pValue);
+    // One ride per rider and firmware, equal weights: the weighted Welch test is the ordinary one.
     const welch = welchTestFromSamples([4, 5, 6], [1, 2, 3])!;
-    expect(newer.againstPredecessor!.biasDifference!.differencePercent).toBeCloseTo(3, 10);
-    expect(newer.againstPredecessor!.biasDifference!.pValue).toBeCloseTo(welch.pValue, 8);
-    expect(newer.againstPredecessor!.biasDifference!.degreesOfFreedom).toBeCloseTo(4, 8);
+    expect(comparison.biasDifference!.differencePercent).toBeCloseTo(3, 10);
+    expect(comparison.biasDifference!.pValue).toBeCloseTo(welch.pValue, 8);
+    expect(comparison.biasDifference!.degreesOfFreedom).toBeCloseTo(4, 8);
+    // Holm over the page's two tests: the smaller p-value (the bias's, 0.021) doubled is below 5 %.
+    expect(comparison.biasDifference!.adjustedPValue).toBeCloseTo(2 * welch.pValue, 8);
+    expect(comparison.biasDifference!.verdict).toBe('worse');
+    expect(comparison.powerDropoutRatio!.verdict).toBe('no_clear_difference');
+    expect(comparison).toMatchObject({ verdict: 'worse', words: 'No clear change in power dropouts from 2.1.0; bias further from zero.' });
     expect(page.recentSubmissions).toHaveLength(6);
     expect(page.recentSubmissions[0].partner.modelName).toBe('Treadle');
   });

@@ -91,6 +91,27 @@ describe('aggregates of accepted submissions', () => {
     expectSameFigures(incremental, recomputed);
   });
 
+  it('when a mixed comparison is accepted, then it adds its dropouts and hours but no bias, to the rides and to its rider', async () => {
+    // Arrange
+    const firmware = await db('firmware_versions')
+      .insert({ model_id: catalogue.spider.id, version: '2.3.0', version_order: [2, 3, 0], status: 'approved' })
+      .returning('id');
+    const a = { modelId: catalogue.spider.id, firmwareId: firmware[0].id, recordingDeviceId: catalogue.headUnit.id };
+    const direct = await insertAnalysedSubmission(db, spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 1, pedallingHours: 2, aPowerDropouts: 1 }));
+    const mixed = await insertAnalysedSubmission(db, spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 6, pedallingHours: 1, aPowerDropouts: 2, likeForLike: 'mixed' }));
+    // Act
+    await acceptSubmission(db, direct);
+    await acceptSubmission(db, mixed);
+    // Assert: one rider, mean bias +1 % from the direct ride alone; 3 dropouts in 3 h.
+    const row = await scope(catalogue.spider.id, firmware[0].id);
+    expect(row).toMatchObject({ submission_count: 2, bias_count: 1, power_dropouts: 3, rider_count: 1, rider_bias_count: 1 });
+    expect(row.rider_sum_weighted_bias / row.rider_sum_weight).toBeCloseTo(1, 12);
+    expect(row.rider_sum_hours_squared).toBeCloseTo(9, 9);
+    expect(row.rider_sum_power_dropouts_hours).toBeCloseTo(9, 9);
+    const rider = await db('meter_statistics_riders').where({ firmware_id: firmware[0].id, rider_id: riders[0] }).first();
+    expect(rider).toMatchObject({ contribution_count: 2, bias_count: 1, power_dropouts: 3 });
+  });
+
   it('when the only submission of a scope is removed, then its rows disappear', async () => {
     // Arrange
     const otherFirmware = await db('firmware_versions')

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { medianOfHistogram } from '../../../server/features/statistics/cadence-median';
 import { emptySums } from '../../../server/features/statistics/contributions';
+import { emptyRiderTerms } from '../../../server/features/statistics/rider-sums';
 import { pooledAgreementFromSums, type StatisticsRow } from '../../../server/features/statistics/figures';
 import { pooledAgreement } from '../../../shared/statistics/pooled-agreement';
 
@@ -13,7 +14,7 @@ describe('figures from running sums', () => {
       { meanDifference: 2.9, sd: 1.7, blockCount: 75 },
       { meanDifference: 0.3, sd: null, blockCount: 1 },
     ];
-    const row: StatisticsRow = { ...emptySums(), distinct_riders: 3, median_cadence_lag_seconds: null };
+    const row: StatisticsRow = { ...emptySums(), ...emptyRiderTerms(), distinct_riders: 3, median_cadence_lag_seconds: null };
     for (const s of submissions) {
       row.agreement_submissions += 1;
       row.agreement_blocks += s.blockCount;

@@ -2,6 +2,7 @@ import { useEffect, useRef, useState } from 'react';
 import { MEASUREMENT_POSITIONS } from '@shared/analysis/types';
 import { MODEL_KIND_LABELS, MODEL_KINDS } from '@shared/schemas/catalogue';
 import type { ScoreboardFilters } from '../api/get-scoreboard';
+import { MINIMUM_RIDERS, MINIMUM_SUBMISSIONS } from '@shared/statistics/minimum-evidence';
 import { useMakers } from '../api/get-makers';
 
 const fieldClass = 'mt-1 block w-full rounded-lg border border-paper-line bg-white px-3 py-2 text-body text-ink focus:border-fjord-500';
@@ -71,7 +72,7 @@ export function ScoreboardFiltersForm({ filters, onChange }: { filters: Scoreboa
           onChange={(event) => onChange({ ...filters, evidence: event.target.checked ? 'enough' : undefined, page: 1 })}
           className="h-4 w-4 accent-fjord-700"
         />
-        Only models with enough evidence (at least 3 accepted rides by 2 riders)
+        Only models with enough evidence (at least {MINIMUM_SUBMISSIONS} accepted rides by {MINIMUM_RIDERS} riders)
       </label>
     </form>
     </search>
