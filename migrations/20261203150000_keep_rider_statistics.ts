@@ -19,8 +19,10 @@ const RIDER_TERMS = [
   'rider_sum_hours_squared',
   'rider_sum_power_dropouts_squared',
   'rider_sum_power_dropouts_hours',
+  'rider_sum_power_dropouts_squared_per_hour',
   'rider_sum_cadence_dropouts_squared',
   'rider_sum_cadence_dropouts_hours',
+  'rider_sum_cadence_dropouts_squared_per_hour',
 ];
 const COUNTS = new Set(['bias_count', 'power_dropouts', 'cadence_dropouts', 'rider_count', 'rider_bias_count']);
 

@@ -4,8 +4,8 @@ import { poissonRate, rateRatio } from './poisson';
 
 /**
  * A scope's events and exposure with the sums over riders (clusters) that the
- * rider-clustered variance needs: G riders, Σ Eᵣ², Σ Eᵣ·Tᵣ, Σ Tᵣ² of each rider's
- * events Eᵣ and hours Tᵣ. Kept as running sums in meter_statistics.
+ * rider-clustered variances need: G riders, Σ Eᵣ², Σ Eᵣ·Tᵣ, Σ Tᵣ² and Σ Eᵣ²/Tᵣ of each
+ * rider's events Eᵣ and hours Tᵣ. Kept as running sums in meter_statistics.
  */
 export interface ClusteredRateSums {
   events: number;
@@ -14,6 +14,7 @@ export interface ClusteredRateSums {
   sumEventsSquared: number;
   sumEventsExposure: number;
   sumExposureSquared: number;
+  sumEventsSquaredPerExposure: number;
 }
 
 /** Which interval is shown: the rider-clustered one, or the exact Poisson one where the riders show no overdispersion. */
@@ -38,19 +39,29 @@ interface LogRate {
 }
 
 /**
- * The rate Σ Eᵣ / Σ Tᵣ on the log scale with its rider-clustered (sandwich) variance:
- * Var(λ̂) = G/(G − 1) · Σ (Eᵣ − λ̂Tᵣ)² / (Σ Tᵣ)², the Pearson residuals summed within
- * each rider (quasi-Poisson with the working correlation left free inside a rider;
- * Liang & Zeger, Biometrika 1986;73:13–22, with the G/(G − 1) small-sample factor of
- * Stata's CR1), and Var(log λ̂) = Var(λ̂)/λ̂² by the delta method, on G − 1 degrees of
- * freedom (Bell & McCaffrey's advice for few clusters). Null without events or with
- * fewer than two riders.
+ * The rate λ̂ = Σ Eᵣ / Σ Tᵣ on the log scale, with the larger of two variances that
+ * both take the rider as the unit:
+ * - the rider-clustered (sandwich) variance Var(λ̂) = G/(G − 1) · Σ (Eᵣ − λ̂Tᵣ)² / (Σ Tᵣ)²,
+ *   the residuals summed within each rider (Liang & Zeger, Biometrika 1986;73:13–22,
+ *   with the G/(G − 1) factor of Stata's CR1), which assumes nothing about how riders
+ *   differ but is noisy and too small on average with few riders;
+ * - the quasi-Poisson variance φ̂·λ̂ / Σ Tᵣ with the dispersion from the riders' Pearson
+ *   residuals, φ̂ = Σ (Eᵣ − λ̂Tᵣ)² / (λ̂Tᵣ) / (G − 1) (McCullagh & Nelder, Generalized
+ *   Linear Models, 2nd ed., §6.2), steadier but tied to variance ∝ mean.
+ * The larger one guards against the other's failure; Var(log λ̂) = Var(λ̂)/λ̂² (delta
+ * method) on G − 1 degrees of freedom (few clusters: Bell & McCaffrey, Survey
+ * Methodology 2002;28:169–181). `npm run validate:statistics` checks the coverage. Null
+ * without events or with fewer than two riders.
  */
 function logRateOf(s: ClusteredRateSums): LogRate | null {
   if (!(s.events > 0 && s.exposure > 0 && s.clusters >= 2)) return null;
   const rate = s.events / s.exposure;
   const residualSquares = Math.max(0, s.sumEventsSquared - 2 * rate * s.sumEventsExposure + rate * rate * s.sumExposureSquared);
-  const variance = ((s.clusters / (s.clusters - 1)) * residualSquares) / (s.exposure * s.exposure);
+  const sandwich = ((s.clusters / (s.clusters - 1)) * residualSquares) / (s.exposure * s.exposure);
+  // Σ (Eᵣ − λTᵣ)² / (λTᵣ) = Σ Eᵣ²/Tᵣ / λ − 2 Σ Eᵣ + λ Σ Tᵣ = Σ Eᵣ²/Tᵣ / λ − Σ Eᵣ.
+  const pearson = Math.max(0, s.sumEventsSquaredPerExposure / rate - s.events);
+  const quasiPoisson = ((pearson / (s.clusters - 1)) * rate) / s.exposure;
+  const variance = Math.max(sandwich, quasiPoisson);
   return { logRate: Math.log(rate), variance: variance / (rate * rate), degreesOfFreedom: s.clusters - 1 };
 }
 

@@ -79,6 +79,7 @@ function dropoutSumsOf(row: StatisticsRow, kind: 'power' | 'cadence'): Clustered
     sumEventsSquared: kind === 'power' ? row.rider_sum_power_dropouts_squared : row.rider_sum_cadence_dropouts_squared,
     sumEventsExposure: kind === 'power' ? row.rider_sum_power_dropouts_hours : row.rider_sum_cadence_dropouts_hours,
     sumExposureSquared: row.rider_sum_hours_squared,
+    sumEventsSquaredPerExposure: kind === 'power' ? row.rider_sum_power_dropouts_squared_per_hour : row.rider_sum_cadence_dropouts_squared_per_hour,
   };
 }
 

@@ -25,8 +25,10 @@ export const RIDER_TERM_COLUMNS = [
   'rider_sum_hours_squared',
   'rider_sum_power_dropouts_squared',
   'rider_sum_power_dropouts_hours',
+  'rider_sum_power_dropouts_squared_per_hour',
   'rider_sum_cadence_dropouts_squared',
   'rider_sum_cadence_dropouts_hours',
+  'rider_sum_cadence_dropouts_squared_per_hour',
 ] as const;
 export type RiderTerms = Record<(typeof RIDER_TERM_COLUMNS)[number], number>;
 
@@ -70,6 +72,10 @@ export function riderTerms(totals: RiderTotals): RiderTerms {
   terms.rider_sum_power_dropouts_hours = totals.power_dropouts * t;
   terms.rider_sum_cadence_dropouts_squared = totals.cadence_dropouts ** 2;
   terms.rider_sum_cadence_dropouts_hours = totals.cadence_dropouts * t;
+  if (t > 0) {
+    terms.rider_sum_power_dropouts_squared_per_hour = totals.power_dropouts ** 2 / t;
+    terms.rider_sum_cadence_dropouts_squared_per_hour = totals.cadence_dropouts ** 2 / t;
+  }
   return terms;
 }
 

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { FirmwareSummary } from '@shared/schemas/statistics';
+import type { FirmwareComparison, FirmwareSummary } from '@shared/schemas/statistics';
 import { NotEnoughData } from '@/components/ui/not-enough-data';
 import { percentPlusMinus, plain, pValue, perHour, ratio, signedPercent } from '@/lib/format-figures';
 
@@ -16,6 +16,7 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
             <th scope="col" className="px-4 py-3">Power dropouts</th>
             <th scope="col" className="px-4 py-3">Dropouts vs previous</th>
             <th scope="col" className="px-4 py-3">Bias change vs previous</th>
+            <th scope="col" className="px-4 py-3">Verdict</th>
           </tr>
         </thead>
         <tbody>
@@ -31,18 +32,19 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
                   {f.releasedOn && <div className="text-caption text-ink-faint">released {f.releasedOn}</div>}
                 </th>
                 <td className="px-4 py-3 tabular-nums">{f.figures.evidence.submissionCount}</td>
-                <td className="px-4 py-3 tabular-nums">{f.figures.bias ? percentPlusMinus(f.figures.bias.meanPercent, f.figures.bias.lowerPercent, f.figures.bias.upperPercent) : <NotEnoughData />}</td>
-                <td className="px-4 py-3 tabular-nums">{f.figures.powerDropouts ? perHour(f.figures.powerDropouts.perHour) : <NotEnoughData />}</td>
+                <td className="px-4 py-3 tabular-nums">{f.figures.bias ? percentPlusMinus(f.figures.bias.meanPercent, f.figures.bias.lowerPercent, f.figures.bias.upperPercent) : <NotEnoughData riders />}</td>
+                <td className="px-4 py-3 tabular-nums">{f.figures.powerDropouts ? perHour(f.figures.powerDropouts.perHour) : <NotEnoughData riders />}</td>
                 <td className="px-4 py-3 tabular-nums">
                   {!c ? '—' : c.powerDropoutRatio ? (
                     <>
                       {ratio(c.powerDropoutRatio.ratio, c.powerDropoutRatio.lower, c.powerDropoutRatio.upper)}
                       <div className="text-caption text-ink-faint">
                         vs {c.from}, {pValue(c.powerDropoutRatio.pValue)}
+                        {c.powerDropoutRatio.adjustedPValue !== null && <>, adjusted {pValue(c.powerDropoutRatio.adjustedPValue)}</>}
                       </div>
                     </>
                   ) : (
-                    <NotEnoughData />
+                    <NotEnoughData riders />
                   )}
                 </td>
                 <td className="px-4 py-3 tabular-nums">
@@ -51,12 +53,14 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
                       {signedPercent(c.biasDifference.differencePercent)} ({plain(c.biasDifference.lowerPercent, 1)} to {plain(c.biasDifference.upperPercent, 1)})
                       <div className="text-caption text-ink-faint">
                         vs {c.from}, Welch {pValue(c.biasDifference.pValue)}
+                        {c.biasDifference.adjustedPValue !== null && <>, adjusted {pValue(c.biasDifference.adjustedPValue)}</>}
                       </div>
                     </>
                   ) : (
-                    <NotEnoughData />
+                    <NotEnoughData riders />
                   )}
                 </td>
+                <td className="px-4 py-3">{c ? <VerdictWords verdict={c.verdict} words={c.words} /> : '—'}</td>
               </tr>
             );
           })}
@@ -64,4 +68,16 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
       </table>
     </div>
   );
+}
+
+const VERDICT_TONE: Record<FirmwareComparison['verdict'], string> = {
+  better: 'text-fjord-700 font-medium',
+  worse: 'text-caution-600 font-medium',
+  no_clear_difference: 'text-ink-soft',
+  not_enough: 'text-ink-faint italic',
+};
+
+/** The step's verdict in words, beside the numbers (p-values Holm-adjusted over the page). */
+function VerdictWords({ verdict, words }: Pick<FirmwareComparison, 'verdict' | 'words'>) {
+  return <span className={`text-caption ${VERDICT_TONE[verdict]}`}>{words}</span>;
 }

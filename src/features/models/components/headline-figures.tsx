@@ -33,24 +33,24 @@ export function HeadlineFigures({
       <Figure label="Evidence" note={`${Math.round(evidence.likeForLikeShare * 100)} % like-for-like comparisons`}>
         {evidence.submissionCount} rides · {evidence.distinctRiders} riders · {hours(evidence.pedallingHours)}
       </Figure>
-      <Figure label="Bias against partners" note={bias ? `95 % interval ${percentRange(bias.lowerPercent, bias.upperPercent)}; median ${bias.medianPercent === null ? '—' : signedPercent(bias.medianPercent)}` : undefined}>
+      <Figure label="Bias against partners" note={bias ? `95 % interval over ${bias.riders} riders ${percentRange(bias.lowerPercent, bias.upperPercent)}; median ${bias.medianPercent === null ? '—' : signedPercent(bias.medianPercent)}` : undefined}>
         {bias ? (
           <span className="flex flex-col gap-1.5">
             <span className="whitespace-nowrap">{percentPlusMinus(bias.meanPercent, bias.lowerPercent, bias.upperPercent)}</span>
             <IntervalBar mean={bias.meanPercent} lower={bias.lowerPercent} upper={bias.upperPercent} />
           </span>
         ) : (
-          <NotEnoughData />
+          <NotEnoughData riders />
         )}
       </Figure>
       <Figure label="Ride-to-ride scatter" note={agreement ? `Pooled limits of agreement ${percentRange(agreement.lowerPercent, agreement.upperPercent)} (30 s blocks)` : undefined}>
-        {bias ? `${bias.scatterPercent.toFixed(1)} % SD` : <NotEnoughData />}
+        {bias ? `${bias.scatterPercent.toFixed(1)} % SD` : <NotEnoughData riders />}
       </Figure>
-      <Figure label="Power dropouts" note={powerDropouts ? `${powerDropouts.events} events; 95 % interval ${powerDropouts.lower.toFixed(2)} to ${powerDropouts.upper.toFixed(2)} /h` : undefined}>
-        {powerDropouts ? perHour(powerDropouts.perHour) : <NotEnoughData />}
+      <Figure label="Power dropouts" note={powerDropouts ? `${powerDropouts.events} events; 95 % interval ${powerDropouts.lower.toFixed(2)} to ${powerDropouts.upper.toFixed(2)} /h${rateMethodNote(powerDropouts.method)}` : undefined}>
+        {powerDropouts ? perHour(powerDropouts.perHour) : <NotEnoughData riders />}
       </Figure>
-      <Figure label="Cadence dropouts" note={cadenceDropouts ? `95 % interval ${cadenceDropouts.lower.toFixed(2)} to ${cadenceDropouts.upper.toFixed(2)} /h` : undefined}>
-        {cadenceDropouts ? perHour(cadenceDropouts.perHour) : <NotEnoughData />}
+      <Figure label="Cadence dropouts" note={cadenceDropouts ? `95 % interval ${cadenceDropouts.lower.toFixed(2)} to ${cadenceDropouts.upper.toFixed(2)} /h${rateMethodNote(cadenceDropouts.method)}` : undefined}>
+        {cadenceDropouts ? perHour(cadenceDropouts.perHour) : <NotEnoughData riders />}
       </Figure>
       <Figure label="Cadence lag (median)" note="Positive: this meter's cadence arrives later than its partner's.">
         {figures.enough && figures.medianCadenceLagSeconds !== null ? seconds(figures.medianCadenceLagSeconds) : <NotEnoughData />}
@@ -80,3 +80,6 @@ export function HeadlineFigures({
     </dl>
   );
 }
+
+/** Says which interval a rate shows (see the methodology page). */
+const rateMethodNote = (method: 'rider_clustered' | 'poisson_exact') => (method === 'rider_clustered' ? ', widened because riders differ' : ', exact Poisson');

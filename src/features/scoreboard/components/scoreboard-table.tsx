@@ -46,7 +46,7 @@ const columns = [
     header: 'Bias vs partners (95 %)',
     cell: ({ row }) => {
       const bias = row.original.figures.bias;
-      if (!bias) return <NotEnoughData />;
+      if (!bias) return <NotEnoughData riders />;
       return (
         <div className="flex items-center gap-3 tabular-nums">
           <span className="whitespace-nowrap">{percentPlusMinus(bias.meanPercent, bias.lowerPercent, bias.upperPercent)}</span>
@@ -60,7 +60,7 @@ const columns = [
     header: 'Ride-to-ride scatter',
     cell: ({ getValue }) => {
       const value = getValue();
-      return value === undefined ? <NotEnoughData /> : <span className="tabular-nums">{value.toFixed(1)} % SD</span>;
+      return value === undefined ? <NotEnoughData riders /> : <span className="tabular-nums">{value.toFixed(1)} % SD</span>;
     },
   }),
   column.accessor((row) => row.figures.powerDropouts?.perHour, {
@@ -68,7 +68,7 @@ const columns = [
     header: 'Power dropouts',
     cell: ({ row }) => {
       const rate = row.original.figures.powerDropouts;
-      if (!rate) return <NotEnoughData />;
+      if (!rate) return <NotEnoughData riders />;
       return (
         <div className="tabular-nums">
           {perHour(rate.perHour)}
