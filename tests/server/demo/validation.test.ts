@@ -159,7 +159,8 @@ describe('known-truth validation over the demo world', () => {
 
     expect(ranked.length).toBeGreaterThanOrEqual(40);
     expect(spearman(injected, reported)).toBeGreaterThanOrEqual(0.9);
-    expect(separated).toBeGreaterThan(500);
+    // 497 pairs once the minimum evidence became 3 riders (issue 15): fewer combinations show an offset.
+    expect(separated).toBeGreaterThan(450);
     expect(swapped).toEqual([]);
   });
 
