@@ -1,6 +1,6 @@
 // A private PostgreSQL cluster from Debian's packages, listening on loopback only.
 // `npm start` keeps one in .data/postgres; the test run makes a throwaway one.
-import { execFileSync, type SpawnSyncOptionsWithStringEncoding, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, type SpawnSyncOptionsWithStringEncoding, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
@@ -18,6 +18,11 @@ export interface Cluster {
   port: number;
   urlFor(database: string): string;
   stop(): void;
+  /**
+   * Stops the server (fast), waits `downForMs` and starts it again on the same port,
+   * without blocking this process meanwhile (the soak keeps its load running).
+   */
+  restart(downForMs?: number): Promise<void>;
 }
 
 export class ClusterError extends Error {}
@@ -54,6 +59,17 @@ function run(binDir: string, program: string, args: string[]) {
   // spawnSync honours `detached` (a new session, as spawn does) though its options type omits it.
   const options: SpawnSyncOptionsWithStringEncoding & { detached: boolean } = { encoding: 'utf8', detached: true };
   return spawnSync(file, argv, options);
+}
+
+/** `run` without blocking the event loop; resolves with the exit status. */
+function runAsync(binDir: string, program: string, args: string[]): Promise<number | null> {
+  const bin = path.join(binDir, program);
+  const [file, argv] = isRoot() ? ['runuser', ['-u', 'postgres', '--', bin, ...args]] : [bin, args];
+  return new Promise((resolve, reject) => {
+    const child = spawn(file, argv, { detached: true, stdio: 'ignore' });
+    child.once('error', reject);
+    child.once('exit', (code) => resolve(code));
+  });
 }
 
 function ownForCluster(dir: string) {
@@ -112,6 +128,13 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
       stopped = true;
       stopServer();
       fs.rmSync(ownerFile, { force: true });
+    },
+    async restart(downForMs = 0) {
+      const down = await runAsync(binDir, 'pg_ctl', ['stop', '-w', '-t', '20', '-m', 'fast', '-D', absolute]);
+      if (down !== 0) throw new ClusterError(`pg_ctl stop exited with ${down}`);
+      await new Promise((resolve) => setTimeout(resolve, downForMs));
+      const up = await runAsync(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
+      if (up !== 0) throw new ClusterError(`pg_ctl start exited with ${up}; see ${logFile}`);
     },
   };
 }

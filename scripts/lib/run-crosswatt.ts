@@ -5,7 +5,7 @@ import { ConfigError, loadConfig } from '../../server/config/env';
 import { createDb } from '../../server/db/knex';
 import { runMigrations } from '../../server/db/migrate';
 import { startLocalFakes } from '../../server/fakes/start-fakes';
-import { createShutdown } from '../../server/lib/graceful-shutdown';
+import { createShutdown, type Shutdown } from '../../server/lib/graceful-shutdown';
 import { createLogger } from '../../server/lib/logger';
 import { startServer } from '../../server/start-server';
 import { seedDemoIfEmpty } from './demo-seed';
@@ -26,6 +26,20 @@ export interface RunOptions {
 // Captured at start: a Vite build later sets NODE_ENV=production in this process.
 const env: Record<string, string | undefined> = { NODE_ENV: 'development', ...process.env };
 
+/**
+ * The private PostgreSQL of npm start and npm run start:cluster, with the database
+ * `crosswatt` in it; stopping it is the shutdown's last step.
+ */
+export async function startPrivateDatabase(shutdown: Shutdown, options: { dataDir: string; port: number }): Promise<{ cluster: Cluster; databaseUrl: string }> {
+  const cluster = startCluster(options);
+  // Last step of the shutdown, and a safety net: pg_ctl is synchronous, so it runs even in 'exit'.
+  shutdown.add('PostgreSQL', () => cluster.stop(), 30_000);
+  process.on('exit', () => cluster.stop());
+  await ensureDatabase(cluster.urlFor('postgres'), 'crosswatt');
+  console.log(`PostgreSQL is running on 127.0.0.1:${options.port} (data in ${options.dataDir})`);
+  return { cluster, databaseUrl: cluster.urlFor('crosswatt') };
+}
+
 export function runCrosswatt(options: RunOptions = {}) {
   const port = Number(env.PORT ?? 3000);
   const pgPort = Number(env.CROSSWATT_PG_PORT ?? 54329);
@@ -41,16 +55,7 @@ export function runCrosswatt(options: RunOptions = {}) {
     if (!(await portIsFree(port))) {
       throw new ClusterError(`Port ${port} is busy: is Crosswatt already running? Stop it, or set PORT to another port.`);
     }
-    let databaseUrl = env.DATABASE_URL;
-    if (!databaseUrl) {
-      const cluster: Cluster = startCluster({ dataDir, port: pgPort });
-      // Last step of the shutdown, and a safety net: pg_ctl is synchronous, so it runs even in 'exit'.
-      shutdown.add('PostgreSQL', () => cluster.stop(), 30_000);
-      process.on('exit', () => cluster.stop());
-      await ensureDatabase(cluster.urlFor('postgres'), 'crosswatt');
-      databaseUrl = cluster.urlFor('crosswatt');
-      console.log(`PostgreSQL is running on 127.0.0.1:${pgPort} (data in ${dataDir})`);
-    }
+    const databaseUrl = env.DATABASE_URL ?? (await startPrivateDatabase(shutdown, { dataDir, port: pgPort })).databaseUrl;
     const logger = createLogger({ LOG_LEVEL: (env.LOG_LEVEL as 'info') ?? 'warn' });
     const db = createDb(databaseUrl);
     shutdown.add('the database connections', () => db.destroy());

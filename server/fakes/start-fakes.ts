@@ -3,11 +3,13 @@ import type { Logger } from '../lib/logger';
 import { ensureDemoPeople } from './demo-identities';
 import { startFakeOAuth } from './fake-oauth';
 import { startFakeS3 } from './fake-s3';
-import { startFakeSmtp } from './fake-smtp';
+import { type FakeSmtp, startFakeSmtp } from './fake-smtp';
 
 export interface LocalFakes {
   /** Environment overrides that point the app at the fakes. */
   env: Record<string, string>;
+  /** The mail service alone, to take it down and bring it back on the same port (the soak's outage). */
+  smtp: { stop(): Promise<void>; start(): Promise<void> };
   stop(): Promise<void>;
 }
 
@@ -30,9 +32,18 @@ export async function startLocalFakes(options: {
   Object.assign(env, oauth.env);
 
   // SMTP: every message lands in mail_outbox, read by the admin Outbox page.
-  const smtp = await startFakeSmtp({ db: options.db, host: options.host });
-  stops.push(smtp.stop);
+  let smtp: FakeSmtp | undefined = await startFakeSmtp({ db: options.db, host: options.host });
   Object.assign(env, smtp.env);
+  const smtpControl = {
+    async stop() {
+      await smtp?.stop();
+      smtp = undefined;
+    },
+    async start() {
+      smtp ??= await startFakeSmtp({ db: options.db, host: options.host, port: Number(env.SMTP_PORT) });
+    },
+  };
+  stops.push(smtpControl.stop);
 
   // Object storage: the uploads' originals (location removed), through the S3 API.
   if (options.objectStore !== false) {
@@ -42,6 +53,7 @@ export async function startLocalFakes(options: {
   }
   return {
     env,
+    smtp: smtpControl,
     async stop() {
       for (const stop of stops.reverse()) await stop();
     },

@@ -19,7 +19,7 @@ export interface Shutdown {
   add(name: string, run: () => unknown, timeoutMs?: number): void;
   /** Runs every step once and exits with `code`; later calls return the same promise. */
   stop(code?: number): Promise<void>;
-  /** Installs handlers for SIGINT, SIGTERM and SIGHUP that call stop(0). */
+  /** Installs handlers for SIGINT, SIGTERM and SIGHUP (and the parent's IPC channel closing) that call stop(0). */
   handleSignals(signals?: NodeJS.Signals[]): void;
 }
 
@@ -67,6 +67,15 @@ export function createShutdown({
           received++;
           if (received === 1) log(`Stopping (${signal})…`);
           else if (received === 2) log(`Still stopping (${signal} again): the database stops last.`);
+          void shutdown.stop(0);
+        });
+      }
+      // A child started with an IPC channel (npm run start:cluster's web processes and
+      // workers) stops when the channel closes: its parent is gone, even after a kill -9.
+      if (process.channel) {
+        process.channel.unref();
+        process.once('disconnect', () => {
+          log('The process that started this one is gone: stopping.');
           void shutdown.stop(0);
         });
       }

@@ -28,6 +28,16 @@ export function mailRetryDelaySeconds(attempts: number, config: MailRetryConfig)
   return Math.min(config.MAIL_RETRY_FIRST_DELAY_SECONDS * 2 ** Math.min(attempts - 1, 30), config.MAIL_RETRY_MAX_DELAY_SECONDS);
 }
 
+/**
+ * One Message-ID per stored message, the same on every attempt: a message sent twice
+ * (the mail service took it, then the worker died before recording that) is
+ * recognisable as one message, by mail clients and by the soak's count.
+ */
+export function mailMessageId(config: Pick<Config, 'SMTP_FROM'>, mailId: number): string {
+  const domain = /@([^>\s]+)/.exec(config.SMTP_FROM)?.[1] ?? 'crosswatt.invalid';
+  return `<crosswatt-mail-${mailId}@${domain}>`;
+}
+
 export function createTransport(config: Config): Transporter {
   return nodemailer.createTransport({
     host: config.SMTP_HOST,
@@ -70,6 +80,7 @@ export async function sendQueuedMail(db: Knex, transport: Transporter, config: C
     if (!message) return;
     try {
       await transport.sendMail({
+        messageId: mailMessageId(config, mailId),
         from: config.SMTP_FROM,
         to: message.to,
         subject: message.subject,
