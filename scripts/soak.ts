@@ -90,9 +90,18 @@ async function main(): Promise<boolean> {
   const moderator = await person('soak-moderator', ['moderator']);
   const readers = await Promise.all([1, 2].map((n) => person(`soak-reader-${n}`)));
   const posters = await Promise.all([1, 2].map((n) => person(`soak-poster-${n}`)));
-  const riderIds: number[] = (await db('users').whereIn('handle', riders.map((r) => r.handle)).select('id')).map((r: { id: number }) => r.id);
+  const riderIds: number[] = (
+    await db('users')
+      .whereIn(
+        'handle',
+        riders.map((r) => r.handle),
+      )
+      .select('id')
+  ).map((r: { id: number }) => r.id);
   const since = new Date(Date.now() - 1_000);
-  console.log(`Signed in ${riders.length} riders, a moderator, ${readers.length} readers and ${posters.length} posters; load for ${minutes} min:`);
+  console.log(
+    `Signed in ${riders.length} riders, a moderator, ${readers.length} readers and ${posters.length} posters; load for ${minutes} min:`,
+  );
 
   const startedAt = Date.now();
   const ctx = { webs, catalogue, until: startedAt + durationMs };
@@ -126,16 +135,43 @@ function printFigures(r: {
 }): boolean {
   const { figures: f, tally, ack } = r;
   const rows: [string, string, number | boolean | null][] = [
-    ['requests', `${tally.total} (${[...tally.byStatus].sort(([a], [b]) => a - b).map(([s, n]) => `${s}: ${n}`).join(', ')})`, null],
+    [
+      'requests',
+      `${tally.total} (${[...tally.byStatus]
+        .sort(([a], [b]) => a - b)
+        .map(([s, n]) => `${s}: ${n}`)
+        .join(', ')})`,
+      null,
+    ],
     ['5xx', `${tally.serverErrors.length}, of which ${r.explained5xx} while PostgreSQL was down`, null],
     ['unexplained 5xx', `${tally.serverErrors.length - r.explained5xx}`, tally.serverErrors.length - r.explained5xx],
-    ['no answer', `${tally.unanswered.length}, of which ${r.explainedUnanswered} to a killed web process or while PostgreSQL was down`, null],
+    [
+      'no answer',
+      `${tally.unanswered.length}, of which ${r.explainedUnanswered} to a killed web process or while PostgreSQL was down`,
+      null,
+    ],
     ['unexplained no answer', `${tally.unanswered.length - r.explainedUnanswered}`, tally.unanswered.length - r.explainedUnanswered],
-    ['unexpected answers', ack.unexpected.size === 0 ? '0' : [...ack.unexpected].map(([k, n]) => `${k} ×${n}`).join('; '), ack.unexpected.size],
-    ['submissions', `${f.submissions.uploaded} uploaded (${f.submissions.storedRows} rows), ${f.submissions.analysedOnce} analysed exactly once; ${ack.duplicatesRefused} duplicates and ${ack.badFilesRefused} bad files refused; ${f.submissions.restartedAnalyses} analyses restarted after a kill`, null],
-    ['  lost', `${f.submissions.lost} (+ ${f.submissions.storedUnacknowledged} stored but never acknowledged)`, f.submissions.lost + f.submissions.storedUnacknowledged],
+    [
+      'unexpected answers',
+      ack.unexpected.size === 0 ? '0' : [...ack.unexpected].map(([k, n]) => `${k} ×${n}`).join('; '),
+      ack.unexpected.size,
+    ],
+    [
+      'submissions',
+      `${f.submissions.uploaded} uploaded (${f.submissions.storedRows} rows), ${f.submissions.analysedOnce} analysed exactly once; ${ack.duplicatesRefused} duplicates and ${ack.badFilesRefused} bad files refused; ${f.submissions.restartedAnalyses} analyses restarted after a kill`,
+      null,
+    ],
+    [
+      '  lost',
+      `${f.submissions.lost} (+ ${f.submissions.storedUnacknowledged} stored but never acknowledged)`,
+      f.submissions.lost + f.submissions.storedUnacknowledged,
+    ],
     ['  duplicated', `${f.submissions.duplicated}`, f.submissions.duplicated],
-    ['decisions', `${f.decisions.acknowledged} acknowledged (+ ${f.decisions.unanswered} unanswered), ${f.decisions.decided} decided in the database, ${f.decisions.auditEntries} audit entries`, null],
+    [
+      'decisions',
+      `${f.decisions.acknowledged} acknowledged (+ ${f.decisions.unanswered} unanswered), ${f.decisions.decided} decided in the database, ${f.decisions.auditEntries} audit entries`,
+      null,
+    ],
     ['  lost', `${f.decisions.lost}`, f.decisions.lost],
     ['  duplicated', `${f.decisions.duplicated}`, f.decisions.duplicated],
     ['thread posts, page views', `${ack.posts} posts, ${ack.pageViews} page views`, null],

@@ -18,7 +18,10 @@ process.on('uncaughtException', (err) => {
 });
 
 async function main() {
-  if (env.DATABASE_URL) throw new ClusterError('npm run start:cluster runs its own PostgreSQL: unset DATABASE_URL, or start the web processes and workers yourself (DEVELOPERS.md).');
+  if (env.DATABASE_URL)
+    throw new ClusterError(
+      'npm run start:cluster runs its own PostgreSQL: unset DATABASE_URL, or start the web processes and workers yourself (DEVELOPERS.md).',
+    );
   await buildClientIfStale();
   const cluster = await startCrosswattCluster(shutdown, {
     env,
@@ -31,7 +34,9 @@ async function main() {
     log: console.log,
     childOutput: (name, line) => console.log(`[${name}] ${line}`),
   });
-  console.log(`\nCrosswatt is running at ${cluster.webs.map((w) => w.url).join(' and ')}, with ${cluster.workers.length} workers  (Ctrl-C to stop)`);
+  console.log(
+    `\nCrosswatt is running at ${cluster.webs.map((w) => w.url).join(' and ')}, with ${cluster.workers.length} workers  (Ctrl-C to stop)`,
+  );
 }
 
 main().catch((err) => {

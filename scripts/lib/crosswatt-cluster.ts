@@ -48,7 +48,8 @@ const CHILD_STOP_GRACE_MS = 25_000;
 export async function startCrosswattCluster(shutdown: Shutdown, settings: ClusterSettings): Promise<RunningCluster> {
   const { env, log } = settings;
   for (const port of settings.webPorts) {
-    if (!(await portIsFree(port))) throw new ClusterError(`Port ${port} is busy: is Crosswatt already running? Stop it, or set PORT to another port.`);
+    if (!(await portIsFree(port)))
+      throw new ClusterError(`Port ${port} is busy: is Crosswatt already running? Stop it, or set PORT to another port.`);
   }
   const { cluster: postgres, databaseUrl } = await startPrivateDatabase(shutdown, { dataDir: settings.dataDir, port: settings.pgPort });
   const logger = createLogger({ LOG_LEVEL: (env.LOG_LEVEL as 'info') ?? 'warn' });
@@ -77,7 +78,11 @@ export async function startCrosswattCluster(shutdown: Shutdown, settings: Cluste
   );
   const children: NodeChild[] = [...webs, ...workers];
   // Web processes and workers stop together (each drains its own requests or jobs), before the fakes and PostgreSQL.
-  shutdown.add('the web processes and workers', () => Promise.all(children.map((c) => c.stop(CHILD_STOP_GRACE_MS))), CHILD_STOP_GRACE_MS + 5_000);
+  shutdown.add(
+    'the web processes and workers',
+    () => Promise.all(children.map((c) => c.stop(CHILD_STOP_GRACE_MS))),
+    CHILD_STOP_GRACE_MS + 5_000,
+  );
   await Promise.all(children.map((c) => c.start()));
   return { postgres, databaseUrl, db, fakes, webs, workers };
 }
@@ -86,9 +91,13 @@ export async function startCrosswattCluster(shutdown: Shutdown, settings: Cluste
 export async function waitForHealth(url: string, timeoutMs: number): Promise<void> {
   const until = Date.now() + timeoutMs;
   for (;;) {
-    const status = await fetch(`${url}/api/health`).then((r) => r.status, () => 0);
+    const status = await fetch(`${url}/api/health`).then(
+      (r) => r.status,
+      () => 0,
+    );
     if (status === 200) return;
-    if (Date.now() > until) throw new ClusterError(`${url}/api/health did not answer 200 within ${timeoutMs / 1000} s (last: ${status || 'no answer'})`);
+    if (Date.now() > until)
+      throw new ClusterError(`${url}/api/health did not answer 200 within ${timeoutMs / 1000} s (last: ${status || 'no answer'})`);
     await new Promise((resolve) => setTimeout(resolve, 200));
   }
 }

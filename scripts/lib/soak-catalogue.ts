@@ -6,9 +6,24 @@ import { versionOrder } from '../../shared/schemas/catalogue';
 // against dual pedals (B), both recorded by one head unit.
 export async function createSoakCatalogue(db: Db) {
   const maker = await insertMaker(db, { slug: 'soakworks', name: 'Soakworks', status: 'approved' });
-  const spider = await insertModel(db, { makerId: maker.id, slug: 'soakworks-tidal', name: 'Tidal', position: 'total', kind: 'spider', status: 'approved' });
-  const pedals = await insertModel(db, { makerId: maker.id, slug: 'soakworks-ebb', name: 'Ebb', position: 'dual', kind: 'pedal', status: 'approved' });
-  const firmware = (modelId: number, version: string) => insertFirmware(db, { modelId, version, versionOrder: versionOrder(version), releasedOn: '2026-03-01', status: 'approved' });
+  const spider = await insertModel(db, {
+    makerId: maker.id,
+    slug: 'soakworks-tidal',
+    name: 'Tidal',
+    position: 'total',
+    kind: 'spider',
+    status: 'approved',
+  });
+  const pedals = await insertModel(db, {
+    makerId: maker.id,
+    slug: 'soakworks-ebb',
+    name: 'Ebb',
+    position: 'dual',
+    kind: 'pedal',
+    status: 'approved',
+  });
+  const firmware = (modelId: number, version: string) =>
+    insertFirmware(db, { modelId, version, versionOrder: versionOrder(version), releasedOn: '2026-03-01', status: 'approved' });
   const spiderFirmware = await firmware(spider.id, '1.4.0');
   const pedalsFirmware = await firmware(pedals.id, '2.0.1');
   const headUnit = await insertRecordingDevice(db, { slug: 'soakworks-lantern', name: 'Lantern', kind: 'head_unit', status: 'approved' });

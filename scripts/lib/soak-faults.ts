@@ -25,7 +25,10 @@ const POSTGRES_DOWN_MS = 8_000;
 
 const pause = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
-export async function runFaults(cluster: RunningCluster, options: { startedAt: number; durationMs: number; log: (line: string) => void }): Promise<FaultReport> {
+export async function runFaults(
+  cluster: RunningCluster,
+  options: { startedAt: number; durationMs: number; log: (line: string) => void },
+): Promise<FaultReport> {
   const { startedAt, durationMs, log } = options;
   const report: FaultReport = { databaseDown: [], webDown: [], events: [] };
   const note = (line: string) => {

@@ -21,9 +21,18 @@ export interface DrainScope {
 }
 
 async function waitingWork(db: Db, scope: DrainScope) {
-  const [submissions] = await db('submissions').whereIn('rider_id', scope.riderIds).whereIn('status', WAITING_STATUSES).count<{ count: string }[]>({ count: '*' });
-  const [mail] = await db('mail_messages').where('created_at', '>=', scope.since).where({ status: 'queued' }).count<{ count: string }[]>({ count: '*' });
-  const [jobs] = await db('pgboss.job').whereIn('name', [ANALYSE_SUBMISSION_QUEUE, SEND_MAIL_QUEUE]).whereIn('state', LIVE_JOB_STATES).count<{ count: string }[]>({ count: '*' });
+  const [submissions] = await db('submissions')
+    .whereIn('rider_id', scope.riderIds)
+    .whereIn('status', WAITING_STATUSES)
+    .count<{ count: string }[]>({ count: '*' });
+  const [mail] = await db('mail_messages')
+    .where('created_at', '>=', scope.since)
+    .where({ status: 'queued' })
+    .count<{ count: string }[]>({ count: '*' });
+  const [jobs] = await db('pgboss.job')
+    .whereIn('name', [ANALYSE_SUBMISSION_QUEUE, SEND_MAIL_QUEUE])
+    .whereIn('state', LIVE_JOB_STATES)
+    .count<{ count: string }[]>({ count: '*' });
   return { submissions: Number(submissions!.count), mail: Number(mail!.count), jobs: Number(jobs!.count) };
 }
 
@@ -34,7 +43,9 @@ export async function waitForDrain(db: Db, scope: DrainScope, timeoutMs: number,
   for (;;) {
     const waiting = await waitingWork(db, scope).catch(() => undefined);
     if (waiting && waiting.submissions + waiting.mail + waiting.jobs === 0) return true;
-    const line = waiting ? `waiting for ${waiting.submissions} analyses, ${waiting.mail} mails, ${waiting.jobs} live jobs` : 'the database does not answer';
+    const line = waiting
+      ? `waiting for ${waiting.submissions} analyses, ${waiting.mail} mails, ${waiting.jobs} live jobs`
+      : 'the database does not answer';
     if (line !== last) log(`  ${line}…`);
     last = line;
     if (Date.now() > until) return false;
@@ -43,7 +54,15 @@ export async function waitForDrain(db: Db, scope: DrainScope, timeoutMs: number,
 }
 
 export interface Figures {
-  submissions: { uploaded: number; storedRows: number; analysedOnce: number; lost: number; duplicated: number; storedUnacknowledged: number; restartedAnalyses: number };
+  submissions: {
+    uploaded: number;
+    storedRows: number;
+    analysedOnce: number;
+    lost: number;
+    duplicated: number;
+    storedUnacknowledged: number;
+    restartedAnalyses: number;
+  };
   decisions: { acknowledged: number; unanswered: number; decided: number; auditEntries: number; lost: number; duplicated: number };
   mail: { queued: number; deliveredOnce: number; lost: number; duplicated: number };
   statistics: { equal: boolean; differences: string[] };
@@ -55,7 +74,9 @@ function countBy(rows: { key: string | number; count: string | number }[]): Map<
 
 export async function readFigures(db: Db, scope: DrainScope, ack: Acknowledged): Promise<Figures> {
   // Submissions: every acknowledged one analysed (no longer waiting) by exactly one completed job.
-  const rows: { id: number; status: string; attempts: number }[] = await db('submissions').whereIn('rider_id', scope.riderIds).select('id', 'status', 'attempts');
+  const rows: { id: number; status: string; attempts: number }[] = await db('submissions')
+    .whereIn('rider_id', scope.riderIds)
+    .select('id', 'status', 'attempts');
   const byId = new Map(rows.map((r) => [r.id, r]));
   const completed = countBy(
     (
@@ -85,7 +106,10 @@ export async function readFigures(db: Db, scope: DrainScope, ack: Acknowledged):
     await db('audit_log')
       .where({ subject_type: 'submission' })
       .whereIn('action', ['submission.accepted', 'submission.rejected'])
-      .whereIn('subject_id', rows.map((r) => String(r.id)))
+      .whereIn(
+        'subject_id',
+        rows.map((r) => String(r.id)),
+      )
       .groupBy('subject_id')
       .select({ key: 'subject_id' })
       .count({ count: '*' }),
@@ -101,7 +125,9 @@ export async function readFigures(db: Db, scope: DrainScope, ack: Acknowledged):
   }
 
   // Mail: each stored message sent and received by the mail service exactly once (by its Message-ID).
-  const messages: { id: number; status: string }[] = await db('mail_messages').where('created_at', '>=', scope.since).select('id', 'status');
+  const messages: { id: number; status: string }[] = await db('mail_messages')
+    .where('created_at', '>=', scope.since)
+    .select('id', 'status');
   const received = countBy(
     await db('mail_outbox')
       .where('received_at', '>=', scope.since)
@@ -151,7 +177,10 @@ async function snapshot(trx: Knex.Transaction): Promise<Map<string, Record<strin
   for (const table of STATISTICS_TABLES) {
     const rows: Record<string, unknown>[] = await trx(table).select('*');
     const kept = rows.map((row) => Object.fromEntries(Object.entries(row).filter(([column]) => !IGNORED_COLUMNS.has(column))));
-    tables.set(table, kept.sort((x, y) => rowKey(x).localeCompare(rowKey(y))));
+    tables.set(
+      table,
+      kept.sort((x, y) => rowKey(x).localeCompare(rowKey(y))),
+    );
   }
   return tables;
 }
@@ -162,7 +191,10 @@ function rowKey(row: Record<string, unknown>): string {
 }
 
 function sameValue(x: unknown, y: unknown): boolean {
-  const [a, b] = [typeof x === 'string' && x !== '' && !Number.isNaN(Number(x)) ? Number(x) : x, typeof y === 'string' && y !== '' && !Number.isNaN(Number(y)) ? Number(y) : y];
+  const [a, b] = [
+    typeof x === 'string' && x !== '' && !Number.isNaN(Number(x)) ? Number(x) : x,
+    typeof y === 'string' && y !== '' && !Number.isNaN(Number(y)) ? Number(y) : y,
+  ];
   if (typeof a === 'number' && typeof b === 'number') return Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
   return JSON.stringify(a) === JSON.stringify(b);
 }

@@ -78,7 +78,9 @@ function uploadForm(catalogue: SoakCatalogue, pair: Pair): FormData {
 /** Bad files the server must refuse with a 400: bytes that are no FIT file, or a file cut short. */
 function badPair(n: number): Pair {
   const good = newPair();
-  return n % 2 === 0 ? { a: new TextEncoder().encode('not a FIT file at all'), b: good.b } : { a: good.a.slice(0, Math.floor(good.a.length / 3)), b: good.b };
+  return n % 2 === 0
+    ? { a: new TextEncoder().encode('not a FIT file at all'), b: good.b }
+    : { a: good.a.slice(0, Math.floor(good.a.length / 3)), b: good.b };
 }
 
 /**
@@ -92,7 +94,8 @@ export async function uploadLoop(rider: Session, ctx: LoadContext, ack: Acknowle
   const send = async (pair: Pair) => rider.send(ctx.webs.next(), 'POST', '/api/submissions', uploadForm(ctx.catalogue, pair));
   const retry = async (pair: Pair) => {
     const answer = await send(pair);
-    const id = answer.status === 201 ? (answer.body as { id: number }).id : answer.status === 409 ? conflictSubmissionId(answer.body) : undefined;
+    const id =
+      answer.status === 201 ? (answer.body as { id: number }).id : answer.status === 409 ? conflictSubmissionId(answer.body) : undefined;
     if (id !== undefined) {
       ack.submissions.add(id);
       stored.push(pair);
@@ -137,9 +140,15 @@ function conflictSubmissionId(body: unknown): number | undefined {
 export async function moderationLoop(moderator: Session, ctx: LoadContext, ack: Acknowledged): Promise<void> {
   for (let n = 0; Date.now() < ctx.until; n++) {
     const queue = await moderator.send(ctx.webs.next(), 'GET', '/api/moderation/queue');
-    const next = queue.status === 200 ? (queue.body as { submissions: { id: number; version: number }[] }).submissions.find((s) => !ack.decisionsUnanswered.has(s.id)) : undefined;
+    const next =
+      queue.status === 200
+        ? (queue.body as { submissions: { id: number; version: number }[] }).submissions.find((s) => !ack.decisionsUnanswered.has(s.id))
+        : undefined;
     if (next) {
-      const decision = n % 3 === 2 ? { decision: 'reject', reason: 'not_calibrated', expectedVersion: next.version } : { decision: 'accept', expectedVersion: next.version };
+      const decision =
+        n % 3 === 2
+          ? { decision: 'reject', reason: 'not_calibrated', expectedVersion: next.version }
+          : { decision: 'accept', expectedVersion: next.version };
       const answer = await moderator.send(ctx.webs.next(), 'POST', `/api/moderation/submissions/${next.id}/decision`, decision);
       if (answer.status === 200) ack.decisions.set(next.id, (answer.body as { status: string }).status);
       else if (noAnswer(answer.status)) ack.decisionsUnanswered.add(next.id);
@@ -184,7 +193,9 @@ export async function threadLoop(riders: [Session, Session], ctx: LoadContext, a
       if (created.status === 201) threadId = (created.body as { id: number }).id;
       else if (!noAnswer(created.status)) unexpected(ack, 'new thread', created.status);
     } else {
-      const answer = await poster.send(ctx.webs.next(), 'POST', `/api/threads/${threadId}/posts`, { body: `Reply ${n}: same here after the zero offset.` });
+      const answer = await poster.send(ctx.webs.next(), 'POST', `/api/threads/${threadId}/posts`, {
+        body: `Reply ${n}: same here after the zero offset.`,
+      });
       if (answer.status === 201) ack.posts++;
       else if (!noAnswer(answer.status)) unexpected(ack, 'reply', answer.status);
     }

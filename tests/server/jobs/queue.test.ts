@@ -38,7 +38,12 @@ describe('starting the job queue in several processes at once', { timeout: 120_0
       await Promise.all(started.map((q: Queue) => q.stop({ graceful: false, wait: true })));
 
       expect(starts.filter((s) => s.status === 'rejected').map((s) => String((s as PromiseRejectedResult).reason))).toEqual([]);
-      expect(queues.map((q) => q.name).filter((name) => !name.startsWith('__pgboss')).sort()).toEqual([ANALYSE_SUBMISSION_QUEUE, REFIT_CONSENSUS_QUEUE, SEND_MAIL_QUEUE, SWEEP_ORIGINALS_QUEUE].sort());
+      expect(
+        queues
+          .map((q) => q.name)
+          .filter((name) => !name.startsWith('__pgboss'))
+          .sort(),
+      ).toEqual([ANALYSE_SUBMISSION_QUEUE, REFIT_CONSENSUS_QUEUE, SEND_MAIL_QUEUE, SWEEP_ORIGINALS_QUEUE].sort());
     }
   });
 
@@ -62,12 +67,17 @@ describe('starting the job queue in several processes at once', { timeout: 120_0
       });
       const id = (await queue.send('outage-probe', {}))!;
 
-      await waitFor(() => warnings.some((w) => w.includes('could not record a job of outage-probe as completed')), { what: 'the failed completion logged' });
+      await waitFor(() => warnings.some((w) => w.includes('could not record a job of outage-probe as completed')), {
+        what: 'the failed completion logged',
+      });
       await admin.query(`alter database "${database.name}" allow_connections true`);
-      const job = await waitFor(async () => {
-        const found = await queue.getJobById('outage-probe', id).catch(() => null);
-        return found?.state === 'completed' && found;
-      }, { timeoutMs: 60_000, what: 'the job completed after its retry' });
+      const job = await waitFor(
+        async () => {
+          const found = await queue.getJobById('outage-probe', id).catch(() => null);
+          return found?.state === 'completed' && found;
+        },
+        { timeoutMs: 60_000, what: 'the job completed after its retry' },
+      );
 
       expect(job.retryCount).toBeGreaterThanOrEqual(1);
       expect(runs).toBeGreaterThanOrEqual(2);
