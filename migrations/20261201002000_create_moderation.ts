@@ -21,7 +21,9 @@ export async function up(knex: Knex): Promise<void> {
   for (const table of ['makers', ...CATALOGUE_TABLES]) {
     if (table !== 'makers') {
       await knex.raw(`alter table ${table} drop constraint ${table}_status_check`);
-      await knex.raw(`alter table ${table} add constraint ${table}_status_check check (status in ('approved', 'pending', 'rejected', 'merged'))`);
+      await knex.raw(
+        `alter table ${table} add constraint ${table}_status_check check (status in ('approved', 'pending', 'rejected', 'merged'))`,
+      );
     }
     await knex.schema.alterTable(table, (t) => {
       t.integer('merged_into_id').references(`${table}.id`).onDelete('set null');
@@ -102,9 +104,12 @@ export async function down(knex: Knex): Promise<void> {
   for (const table of ['makers', ...CATALOGUE_TABLES]) {
     await knex.schema.alterTable(table, (t) => t.dropColumn('merged_into_id'));
     // Entries rejected or merged meanwhile go back to pending, which every version allows.
-    await knex(table).whereIn('status', ['rejected', 'merged']).modify((q) => {
-      if (table !== 'makers') q.where('status', 'merged');
-    }).update({ status: 'pending' });
+    await knex(table)
+      .whereIn('status', ['rejected', 'merged'])
+      .modify((q) => {
+        if (table !== 'makers') q.where('status', 'merged');
+      })
+      .update({ status: 'pending' });
     await knex.raw(`alter table ${table} drop constraint ${table}_status_check`);
     const allowed = table === 'makers' ? "'approved', 'pending'" : "'approved', 'pending', 'rejected'";
     await knex.raw(`alter table ${table} add constraint ${table}_status_check check (status in (${allowed}))`);

@@ -55,7 +55,9 @@ export async function up(knex: Knex): Promise<void> {
   // Accepted submissions, newest decision first: the recent rides on the model and
   // firmware pages walk this until they have found the model's latest few (2.6 ms
   // instead of sorting all of a model's sides, at 100,000 submissions).
-  await knex.raw("create index submissions_accepted_decided_idx on submissions (decided_at desc nulls last, id desc) where status = 'accepted'");
+  await knex.raw(
+    "create index submissions_accepted_decided_idx on submissions (decided_at desc nulls last, id desc) where status = 'accepted'",
+  );
 }
 
 export async function down(knex: Knex): Promise<void> {

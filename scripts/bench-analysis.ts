@@ -45,9 +45,19 @@ const result = compareRecordings(a, b, OPTIONS);
 
 const decodeMs = median(decodeTimes);
 const analysisMs = median(analysisTimes);
-console.log(`4-hour pair: ${a.timestamps.length} + ${b.timestamps.length} records, FIT files of ${pair.a.length} and ${pair.b.length} bytes`);
-console.log(`decode one file:  median ${decodeMs.toFixed(1)} ms (min ${Math.min(...decodeTimes).toFixed(1)}, max ${Math.max(...decodeTimes).toFixed(1)}, ${TIMED_RUNS} runs)`);
-console.log(`analyse the pair: median ${analysisMs.toFixed(1)} ms (min ${Math.min(...analysisTimes).toFixed(1)}, max ${Math.max(...analysisTimes).toFixed(1)}, ${TIMED_RUNS} runs)`);
+console.log(
+  `4-hour pair: ${a.timestamps.length} + ${b.timestamps.length} records, FIT files of ${pair.a.length} and ${pair.b.length} bytes`,
+);
+console.log(
+  `decode one file:  median ${decodeMs.toFixed(1)} ms (min ${Math.min(...decodeTimes).toFixed(1)}, max ${Math.max(...decodeTimes).toFixed(1)}, ${TIMED_RUNS} runs)`,
+);
+console.log(
+  `analyse the pair: median ${analysisMs.toFixed(1)} ms (min ${Math.min(...analysisTimes).toFixed(1)}, max ${Math.max(...analysisTimes).toFixed(1)}, ${TIMED_RUNS} runs)`,
+);
 console.log(`ratio analysis / decoding: ${(analysisMs / decodeMs).toFixed(2)} (goal: below 1)`);
-console.log(`peak resident memory: ${peakAfterDecoding.toFixed(0)} MB after the decoding runs, ${peakAfterAnalysis.toFixed(0)} MB after ${WARM_UP_RUNS + TIMED_RUNS} analyses; result JSON ${(JSON.stringify(result).length / 1e3).toFixed(0)} kB`);
-console.log(`sanity: bias ${result.bias.percent?.toFixed(2)} % (simulated ${pair.truth.instrumentBiasPercent.toFixed(2)} %), clock offset ${result.alignment.clockOffsetSeconds} s (simulated ${pair.truth.clockOffsetSeconds} s)`);
+console.log(
+  `peak resident memory: ${peakAfterDecoding.toFixed(0)} MB after the decoding runs, ${peakAfterAnalysis.toFixed(0)} MB after ${WARM_UP_RUNS + TIMED_RUNS} analyses; result JSON ${(JSON.stringify(result).length / 1e3).toFixed(0)} kB`,
+);
+console.log(
+  `sanity: bias ${result.bias.percent?.toFixed(2)} % (simulated ${pair.truth.instrumentBiasPercent.toFixed(2)} %), clock offset ${result.alignment.clockOffsetSeconds} s (simulated ${pair.truth.clockOffsetSeconds} s)`,
+);

@@ -58,5 +58,9 @@ for (const file of program.getSourceFiles()) {
   }
 }
 for (const line of offenders) console.error(line);
-console.log(offenders.length === 0 ? 'Typed returns: no server feature function returns any.' : `Typed returns: ${offenders.length} functions return any (type them, e.g. with the shared response types).`);
+console.log(
+  offenders.length === 0
+    ? 'Typed returns: no server feature function returns any.'
+    : `Typed returns: ${offenders.length} functions return any (type them, e.g. with the shared response types).`,
+);
 process.exitCode = offenders.length === 0 ? 0 : 1;

@@ -7,7 +7,8 @@ import { compareFitFiles } from '@shared/analysis/compare-recordings';
 import { AnalysisError } from '@shared/analysis/errors';
 import { MEASUREMENT_POSITIONS, type ComparisonResult, type MeasurementPosition } from '@shared/analysis/types';
 
-const USAGE = 'usage: npm run compare -- <a.fit> <b.fit> [--a-position left|right|dual|total] [--b-position …] [--a-after-drivetrain] [--b-after-drivetrain] [--json]';
+const USAGE =
+  'usage: npm run compare -- <a.fit> <b.fit> [--a-position left|right|dual|total] [--b-position …] [--a-after-drivetrain] [--b-after-drivetrain] [--json]';
 
 class UsageError extends Error {
   readonly code: string;
@@ -78,7 +79,8 @@ function summary(result: ComparisonResult): string {
     `Bias (A vs B, ${likeForLike.mode.replace('_', ' ')}${likeForLike.leg ? `, ${likeForLike.leg} leg` : ''}): ${signed(bias.percent, 2, ' %')} (${signed(bias.meanDifferenceWatts, 1, ' W')}) over ${bias.matchedSeconds} matched s`,
   ];
   if (likeForLike.mode === 'via_balance') lines.push(`  naive total vs total: ${signed(likeForLike.naivePercent, 2, ' %')}`);
-  if (likeForLike.expectedDrivetrainPercent !== null) lines.push(`  expected from drivetrain loss alone: ${signed(likeForLike.expectedDrivetrainPercent, 1, ' %')}`);
+  if (likeForLike.expectedDrivetrainPercent !== null)
+    lines.push(`  expected from drivetrain loss alone: ${signed(likeForLike.expectedDrivetrainPercent, 1, ' %')}`);
   lines.push(
     `Agreement (${agreement.blockCount} blocks of ${agreement.blockSeconds} s): mean ${signed(agreement.meanDifferenceWatts, 1, ' W')}, limits ${signed(agreement.lowerLimitWatts, 1)} to ${signed(agreement.upperLimitWatts, 1, ' W')} (${signed(agreement.lowerLimitPercent, 1)} to ${signed(agreement.upperLimitPercent, 1, ' %')}); r ${agreement.pearsonR?.toFixed(3) ?? '–'}, CCC ${agreement.concordance?.toFixed(3) ?? '–'}`,
     `Dropouts over ${(dropouts.pedallingSeconds / 3600).toFixed(2)} pedalling h: A power ${dropouts.a.power.count} (${dropouts.a.power.seconds} s), cadence ${dropouts.a.cadence.count}; B power ${dropouts.b.power.count} (${dropouts.b.power.seconds} s), cadence ${dropouts.b.cadence.count}`,

@@ -14,7 +14,8 @@ runCrosswatt({
     // Vite exits the process on SIGTERM (and when stdin closes) by itself; our own
     // shutdown must run instead: it closes Vite and then stops PostgreSQL.
     for (const listener of process.listeners('SIGTERM')) if (!before.sigterm.has(listener)) process.off('SIGTERM', listener);
-    for (const listener of process.stdin.listeners('end')) if (!before.stdinEnd.has(listener)) process.stdin.off('end', listener as () => void);
+    for (const listener of process.stdin.listeners('end'))
+      if (!before.stdinEnd.has(listener)) process.stdin.off('end', listener as () => void);
     await vite.listen();
     return () => vite.close();
   },

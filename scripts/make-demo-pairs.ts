@@ -20,7 +20,12 @@ interface DemoPair {
 const HEAD_UNIT = { productId: 101, serialNumber: 510_001, softwareVersion: 4.1, productName: 'Demo head unit' };
 const SECOND_HEAD_UNIT = { productId: 102, serialNumber: 510_002, softwareVersion: 2.3, productName: 'Demo head unit mini' };
 const PHONE_APP = { productId: 103, serialNumber: 510_003, softwareVersion: 7.0, productName: 'Demo phone app' };
-const meter = (productId: number, productName: string) => ({ productId, serialNumber: 620_000 + productId, softwareVersion: 1.2, productName });
+const meter = (productId: number, productName: string) => ({
+  productId,
+  serialNumber: 620_000 + productId,
+  softwareVersion: 1.2,
+  productName,
+});
 const SPIDER = meter(201, 'Demo spider meter');
 const PEDALS = meter(202, 'Demo dual pedals');
 const LEFT_CRANK = meter(203, 'Demo left crank');
@@ -33,7 +38,8 @@ const PAIRS: DemoPair[] = [
   {
     slug: '01-clean-bias',
     title: 'A clean ride with a small bias',
-    story: 'A spider meter reading 2.5 % high against dual pedals; same head unit settings, no dropouts. The files carry a made-up GPS track in the open sea, which the decoder must drop.',
+    story:
+      'A spider meter reading 2.5 % high against dual pedals; same head unit settings, no dropouts. The files carry a made-up GPS track in the open sea, which the decoder must drop.',
     options: {
       seed: 1001,
       durationSeconds: 30 * 60,
@@ -46,13 +52,22 @@ const PAIRS: DemoPair[] = [
   {
     slug: '02-clock-offset',
     title: 'Clocks apart, started and stopped at different times',
-    story: "The hub's head unit runs 38 s ahead, starts 90 s after the spider's and stops 60 s before it. The hub measures after the chain, so it reads about 2 % low.",
+    story:
+      "The hub's head unit runs 38 s ahead, starts 90 s after the spider's and stops 60 s before it. The hub measures after the chain, so it reads about 2 % low.",
     options: {
       seed: 1002,
       durationSeconds: 30 * 60,
       startTime: START + 86_400,
       profile: 'intervals',
-      a: { position: 'total', drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT, clockOffsetSeconds: 38, startOffsetSeconds: 90, endOffsetSeconds: 60, device: SECOND_HEAD_UNIT, sensor: HUB },
+      a: {
+        position: 'total',
+        drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT,
+        clockOffsetSeconds: 38,
+        startOffsetSeconds: 90,
+        endOffsetSeconds: 60,
+        device: SECOND_HEAD_UNIT,
+        sensor: HUB,
+      },
       b: { position: 'total', device: HEAD_UNIT, sensor: SPIDER },
     },
   },
@@ -73,20 +88,29 @@ const PAIRS: DemoPair[] = [
   {
     slug: '04-change-only',
     title: 'Indoor ride recorded change-only',
-    story: "A smart trainer's app records only when values change (gaps of up to 4 s that are not dropouts) and smooths power over 3 s; the spider is recorded every second.",
+    story:
+      "A smart trainer's app records only when values change (gaps of up to 4 s that are not dropouts) and smooths power over 3 s; the spider is recorded every second.",
     options: {
       seed: 1004,
       durationSeconds: 25 * 60,
       startTime: START + 3 * 86_400,
       profile: 'indoor',
-      a: { position: 'total', drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT, recordingMode: 'change-only', smoothingSeconds: 3, device: PHONE_APP, sensor: TRAINER },
+      a: {
+        position: 'total',
+        drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT,
+        recordingMode: 'change-only',
+        smoothingSeconds: 3,
+        device: PHONE_APP,
+        sensor: TRAINER,
+      },
       b: { position: 'total', device: HEAD_UNIT, sensor: SPIDER },
     },
   },
   {
     slug: '05-left-vs-dual',
     title: 'A left-only meter against dual pedals with balance',
-    story: 'The rider pushes 53 % with the right leg, so the left crank (1 % high on its own leg) doubles a weaker leg: the naive total comparison shows about −5 %, the like-for-like comparison via balance about +1 %.',
+    story:
+      'The rider pushes 53 % with the right leg, so the left crank (1 % high on its own leg) doubles a weaker leg: the naive total comparison shows about −5 %, the like-for-like comparison via balance about +1 %.',
     options: {
       seed: 1005,
       durationSeconds: 30 * 60,
@@ -125,7 +149,10 @@ function truthTable(truth: PairTruth): string {
   ];
   if (truth.apparent.clockOffsetSeconds !== truth.clockOffsetSeconds) {
     // A trailing power average delays the power it records; alignment by power sees the sum.
-    rows.push(['clock offset and cadence lag as alignment by power sees them (smoothing delay included)', `${signed(truth.apparent.clockOffsetSeconds, 1)} s, ${signed(truth.apparent.cadenceLagSeconds, 1)} s`]);
+    rows.push([
+      'clock offset and cadence lag as alignment by power sees them (smoothing delay included)',
+      `${signed(truth.apparent.clockOffsetSeconds, 1)} s, ${signed(truth.apparent.cadenceLagSeconds, 1)} s`,
+    ]);
   }
   return ['| injected | value |', '| --- | --- |', ...rows.map(([name, value]) => `| ${name} | ${value} |`)].join('\n');
 }
@@ -139,7 +166,15 @@ for (const pair of PAIRS) {
   writeFileSync(join(OUTPUT_DIRECTORY, `${pair.slug}-b.fit`), b);
   const positions = `A: ${pair.options.a.sensor?.productName} (${pair.options.a.position}); B: ${pair.options.b.sensor?.productName} (${pair.options.b.position})`;
   sections.push(
-    [`## ${pair.slug}: ${pair.title}`, '', `\`${pair.slug}-a.fit\` and \`${pair.slug}-b.fit\`, ${pair.options.durationSeconds / 60} min, ${pair.options.profile} ride. ${positions}.`, '', pair.story, '', truthTable(truth)].join('\n'),
+    [
+      `## ${pair.slug}: ${pair.title}`,
+      '',
+      `\`${pair.slug}-a.fit\` and \`${pair.slug}-b.fit\`, ${pair.options.durationSeconds / 60} min, ${pair.options.profile} ride. ${positions}.`,
+      '',
+      pair.story,
+      '',
+      truthTable(truth),
+    ].join('\n'),
   );
   console.log(`${pair.slug}: ${a.length + b.length} bytes in ${(performance.now() - started).toFixed(0)} ms`);
 }

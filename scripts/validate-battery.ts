@@ -26,7 +26,13 @@ const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
 const started = performance.now();
 let allMet = true;
 console.log(`Battery-life validation: ${CROWDS} simulated crowds per scenario\n`);
-console.log('scenario'.padEnd(52), 'coverage'.padStart(9), 'no median'.padStart(10), 'false verdict'.padStart(14), 'halving found'.padStart(14));
+console.log(
+  'scenario'.padEnd(52),
+  'coverage'.padStart(9),
+  'no median'.padStart(10),
+  'false verdict'.padStart(14),
+  'halving found'.padStart(14),
+);
 for (const scenario of SCENARIOS) {
   const truth = trueCrowdMedian({ ...scenario, firmwareId: 1 });
   let covered = 0;
@@ -44,7 +50,12 @@ for (const scenario of SCENARIOS) {
     }
     const firmware = [1, 2, 3].map((id) => ({ id, version: `1.${id}` }));
     const same = firmware.flatMap((f) => simulateBatteryCrowd(seed + f.id, { ...scenario, firmwareId: f.id }));
-    if (batteryLifeByFirmware(same, firmware).some((f) => f.againstPredecessor?.verdict === 'better' || f.againstPredecessor?.verdict === 'worse')) falseVerdicts++;
+    if (
+      batteryLifeByFirmware(same, firmware).some(
+        (f) => f.againstPredecessor?.verdict === 'better' || f.againstPredecessor?.verdict === 'worse',
+      )
+    )
+      falseVerdicts++;
     const halved = [
       ...simulateBatteryCrowd(seed + 101, { ...scenario, firmwareId: 1 }),
       ...simulateBatteryCrowd(seed + 102, { ...scenario, firmwareId: 2, medianHours: scenario.medianHours / 2 }),
@@ -55,9 +66,20 @@ for (const scenario of SCENARIOS) {
   const falseRate = falseVerdicts / CROWDS;
   const met = coverage >= COVERAGE_GOAL && falseRate <= FALSE_VERDICT_GOAL;
   allMet &&= met;
-  console.log(scenario.name.padEnd(52), pct(coverage).padStart(9), String(noMedian).padStart(10), pct(falseRate).padStart(14), pct(halvingFound / CROWDS).padStart(14), met ? '' : '  ← goal missed');
+  console.log(
+    scenario.name.padEnd(52),
+    pct(coverage).padStart(9),
+    String(noMedian).padStart(10),
+    pct(falseRate).padStart(14),
+    pct(halvingFound / CROWDS).padStart(14),
+    met ? '' : '  ← goal missed',
+  );
 }
-console.log(`\nGoals: coverage of the median's 95 % interval ≥ ${pct(COVERAGE_GOAL)}; any false verdict over a model's two steps ≤ ${pct(FALSE_VERDICT_GOAL)}.`);
-console.log(`Simulation error at ${CROWDS} crowds: about ±${pct(Math.sqrt((0.95 * 0.05) / CROWDS))} on a coverage of 95 %, ±${pct(Math.sqrt((0.05 * 0.95) / CROWDS))} on a rate of 5 %.`);
+console.log(
+  `\nGoals: coverage of the median's 95 % interval ≥ ${pct(COVERAGE_GOAL)}; any false verdict over a model's two steps ≤ ${pct(FALSE_VERDICT_GOAL)}.`,
+);
+console.log(
+  `Simulation error at ${CROWDS} crowds: about ±${pct(Math.sqrt((0.95 * 0.05) / CROWDS))} on a coverage of 95 %, ±${pct(Math.sqrt((0.05 * 0.95) / CROWDS))} on a rate of 5 %.`,
+);
 console.log(`${allMet ? 'All goals met' : 'Some goals missed'} in ${((performance.now() - started) / 1000).toFixed(1)} s.`);
 process.exitCode = allMet ? 0 : 1;

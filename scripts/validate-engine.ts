@@ -2,7 +2,15 @@
 // seeds), printing each estimate's error distribution and the false-event rates,
 // split by partner smoothing and recording mode, against the goals.
 import { MAX_CLOCK_OFFSET_SECONDS } from '@shared/analysis/method';
-import { distribution, PARTNER_SMOOTHING_SECONDS, RECORDING_MODES, runSweepCase, sweepCase, type Distribution, type SweepOutcome } from './lib/engine-sweep';
+import {
+  distribution,
+  PARTNER_SMOOTHING_SECONDS,
+  RECORDING_MODES,
+  runSweepCase,
+  sweepCase,
+  type Distribution,
+  type SweepOutcome,
+} from './lib/engine-sweep';
 
 const BIAS_GOAL_PP = 0.3;
 const GOAL_SHARE = 0.99;
@@ -31,8 +39,19 @@ const clean = inWindow.filter((o) => Object.values(o.case.dropouts).every((n) =>
 const failed = outcomes.filter((o) => o.result === null);
 const numbers = (values: (number | null | undefined)[]) => values.filter((v): v is number => typeof v === 'number');
 
-console.log(`Engine recovery sweep: ${PAIRS} pairs, seeds ${outcomes[0]?.case.seed}…${outcomes.at(-1)?.case.seed}, ${seconds.toFixed(0)} s`);
-console.log(`refused by the engine: ${failed.length}${failed.length ? ` — ${failed.slice(0, 5).map((o) => `#${o.case.index}: ${o.error}`).join('; ')}` : ''}`);
+console.log(
+  `Engine recovery sweep: ${PAIRS} pairs, seeds ${outcomes[0]?.case.seed}…${outcomes.at(-1)?.case.seed}, ${seconds.toFixed(0)} s`,
+);
+console.log(
+  `refused by the engine: ${failed.length}${
+    failed.length
+      ? ` — ${failed
+          .slice(0, 5)
+          .map((o) => `#${o.case.index}: ${o.error}`)
+          .join('; ')}`
+      : ''
+  }`,
+);
 console.log('');
 console.log('Error distributions (estimate − truth), in-window pairs');
 console.log(line('bias (pp)', distribution(numbers(inWindow.map((o) => o.biasError)))));
@@ -40,7 +59,9 @@ console.log(line('clock offset (s)', distribution(numbers(inWindow.map((o) => o.
 console.log(line('cadence lag (s)', distribution(numbers(inWindow.map((o) => o.cadenceLagError))), 1));
 const withDropouts = inWindow.filter((o) => !clean.includes(o));
 for (const key of ['aPower', 'aCadence', 'bPower', 'bCadence'] as const) {
-  console.log(line(`dropout count ${key} (pairs with injected)`, distribution(numbers(withDropouts.map((o) => o.dropoutErrors?.[key]))), 2));
+  console.log(
+    line(`dropout count ${key} (pairs with injected)`, distribution(numbers(withDropouts.map((o) => o.dropoutErrors?.[key]))), 2),
+  );
 }
 console.log('');
 
@@ -51,12 +72,17 @@ interface Row {
 const rows: Row[] = [];
 for (const smoothing of PARTNER_SMOOTHING_SECONDS) {
   for (const mode of RECORDING_MODES) {
-    rows.push({ label: `B smoothed ${String(smoothing).padStart(2)} s, ${mode.padEnd(12)}`, pairs: inWindow.filter((o) => o.case.partnerSmoothingSeconds === smoothing && o.case.recordingMode === mode) });
+    rows.push({
+      label: `B smoothed ${String(smoothing).padStart(2)} s, ${mode.padEnd(12)}`,
+      pairs: inWindow.filter((o) => o.case.partnerSmoothingSeconds === smoothing && o.case.recordingMode === mode),
+    });
   }
 }
 rows.push({ label: 'all'.padEnd(35), pairs: inWindow });
 console.log('Split by partner smoothing and recording mode (in-window pairs)');
-console.log(`${''.padEnd(35)}  pairs  bias ±${BIAS_GOAL_PP}pp  bias p1/p99 (pp)   offset exact  clean pairs  false power  false cadence  lag exact`);
+console.log(
+  `${''.padEnd(35)}  pairs  bias ±${BIAS_GOAL_PP}pp  bias p1/p99 (pp)   offset exact  clean pairs  false power  false cadence  lag exact`,
+);
 for (const row of rows) {
   const p = row.pairs;
   const b = distribution(numbers(p.map((o) => o.biasError)));
@@ -75,24 +101,44 @@ console.log('');
 const outOfWindow = analysed.filter((o) => o.case.outOfWindow);
 const outFlagged = outOfWindow.filter((o) => o.boundFlagged).length;
 const inFlagged = inWindow.filter((o) => o.boundFlagged).length;
-console.log(`Out-of-window pairs (|offset| > ${MAX_CLOCK_OFFSET_SECONDS} s): ${outOfWindow.length}, flagged on a search bound: ${outFlagged}; in-window pairs flagged: ${inFlagged}`);
+console.log(
+  `Out-of-window pairs (|offset| > ${MAX_CLOCK_OFFSET_SECONDS} s): ${outOfWindow.length}, flagged on a search bound: ${outFlagged}; in-window pairs flagged: ${inFlagged}`,
+);
 console.log('');
 // No sweep pair drifts, so every drift flag is a false one.
 const driftFlagged = inWindow.filter((o) => o.result!.flags.some((flag) => flag.code === 'difference_drift')).length;
 console.log(`In-window pairs flagged for an in-ride drift (none drifts): ${driftFlagged} (${pct(driftFlagged, inWindow.length).trim()})`);
 console.log('');
 
-const cleanFalse = clean.filter((o) => Object.values(o.result!.dropouts).some((side) => typeof side === 'object' && (side.power.count > 0 || side.cadence.count > 0))).length;
+const cleanFalse = clean.filter((o) =>
+  Object.values(o.result!.dropouts).some((side) => typeof side === 'object' && (side.power.count > 0 || side.cadence.count > 0)),
+).length;
 const goals = [
-  { name: `no false power or cadence dropout in ≥ 99 % of pairs without injected dropouts`, met: clean.length > 0 && (clean.length - cleanFalse) / clean.length >= GOAL_SHARE, figure: pct(clean.length - cleanFalse, clean.length) },
+  {
+    name: `no false power or cadence dropout in ≥ 99 % of pairs without injected dropouts`,
+    met: clean.length > 0 && (clean.length - cleanFalse) / clean.length >= GOAL_SHARE,
+    figure: pct(clean.length - cleanFalse, clean.length),
+  },
   ...rows.slice(0, -1).map((row) => {
     const within = row.pairs.filter((o) => o.biasError !== null && Math.abs(o.biasError) <= BIAS_GOAL_PP).length;
-    return { name: `bias within ±${BIAS_GOAL_PP} pp in ≥ 99 %: ${row.label.trim()}`, met: row.pairs.length > 0 && within / row.pairs.length >= GOAL_SHARE, figure: pct(within, row.pairs.length) };
+    return {
+      name: `bias within ±${BIAS_GOAL_PP} pp in ≥ 99 %: ${row.label.trim()}`,
+      met: row.pairs.length > 0 && within / row.pairs.length >= GOAL_SHARE,
+      figure: pct(within, row.pairs.length),
+    };
   }),
-  { name: 'offset exact in ≥ 99 % of in-window pairs', met: inWindow.filter((o) => o.offsetError === 0).length / inWindow.length >= GOAL_SHARE, figure: pct(inWindow.filter((o) => o.offsetError === 0).length, inWindow.length) },
+  {
+    name: 'offset exact in ≥ 99 % of in-window pairs',
+    met: inWindow.filter((o) => o.offsetError === 0).length / inWindow.length >= GOAL_SHARE,
+    figure: pct(inWindow.filter((o) => o.offsetError === 0).length, inWindow.length),
+  },
   { name: 'every out-of-window pair flagged', met: outFlagged === outOfWindow.length, figure: `${outFlagged}/${outOfWindow.length}` },
   { name: 'no pair refused', met: failed.length === 0, figure: String(failed.length) },
-  { name: 'false in-ride drift flags in ≤ 1 % of in-window pairs', met: driftFlagged / inWindow.length <= 0.01, figure: pct(driftFlagged, inWindow.length) },
+  {
+    name: 'false in-ride drift flags in ≤ 1 % of in-window pairs',
+    met: driftFlagged / inWindow.length <= 0.01,
+    figure: pct(driftFlagged, inWindow.length),
+  },
 ];
 console.log('Goals');
 for (const goal of goals) console.log(`  ${goal.met ? 'met    ' : 'NOT MET'}  ${goal.name}: ${goal.figure.trim()}`);

@@ -59,7 +59,14 @@ function submissionOf(ride: SimulatedRide, id: number): SubmissionRow {
 }
 
 const recordingsOf = (firmwareId: number): RecordingRow[] => [
-  { side: 'a', model_id: MODEL_ID, firmware_id: firmwareId, recording_device_id: 1, recording_mode: 'every_second', other_meters_on: false },
+  {
+    side: 'a',
+    model_id: MODEL_ID,
+    firmware_id: firmwareId,
+    recording_device_id: 1,
+    recording_mode: 'every_second',
+    other_meters_on: false,
+  },
   { side: 'b', model_id: PARTNER_ID, firmware_id: 100, recording_device_id: 1, recording_mode: 'every_second', other_meters_on: false },
 ];
 
@@ -71,7 +78,8 @@ function statisticsRowsOf(ridesByFirmware: Map<number, SimulatedRide[]>): Map<nu
     for (const ride of rides) accumulate(deltas, contributionsOf(submissionOf(ride, ++id), recordingsOf(firmwareId)), 1);
   }
   const rows = new Map<number, StatisticsRow>();
-  for (const row of scopeRowsOf(deltas).statistics) if (row.model_id === MODEL_ID && row.firmware_id !== null) rows.set(row.firmware_id, row);
+  for (const row of scopeRowsOf(deltas).statistics)
+    if (row.model_id === MODEL_ID && row.firmware_id !== null) rows.set(row.firmware_id, row);
   return rows;
 }
 
@@ -99,24 +107,40 @@ const pct = (x: number, digits = 1) => `${(100 * x).toFixed(digits)} %`;
 const started = performance.now();
 let allMet = true;
 console.log(`Pooled-statistics validation: ${CROWDS} simulated model pages per scenario (3 firmware versions, nothing changed)\n`);
-console.log('scenario'.padEnd(48), 'bias coverage'.padStart(22), 'dropout coverage'.padStart(22), 'false changed'.padStart(22), 'shown'.padStart(6));
+console.log(
+  'scenario'.padEnd(48),
+  'bias coverage'.padStart(22),
+  'dropout coverage'.padStart(22),
+  'false changed'.padStart(22),
+  'shown'.padStart(6),
+);
 for (const scenario of SCENARIOS) {
   const bias = new Tally();
   const dropouts = new Tally();
   const falseChanged = new Tally();
   for (let c = 0; c < CROWDS; c++) {
     const ridesByFirmware = new Map(
-      FIRMWARE.map((firmwareId) => [firmwareId, simulateStatisticsCrowd(1_000 + c * 31 + firmwareId, { ...scenario, firstRiderId: firmwareId * 100_000 })]),
+      FIRMWARE.map((firmwareId) => [
+        firmwareId,
+        simulateStatisticsCrowd(1_000 + c * 31 + firmwareId, { ...scenario, firstRiderId: firmwareId * 100_000 }),
+      ]),
     );
     const rows = statisticsRowsOf(ridesByFirmware);
-    const versions = FIRMWARE.map((firmwareId) => ({ version: `1.${firmwareId}`, row: rows.get(firmwareId), figures: meterFigures(rows.get(firmwareId)) }));
+    const versions = FIRMWARE.map((firmwareId) => ({
+      version: `1.${firmwareId}`,
+      row: rows.get(firmwareId),
+      figures: meterFigures(rows.get(firmwareId)),
+    }));
     const first: MeterFigures = versions[0]!.figures;
     if (first.bias) bias.add(first.bias.lowerPercent <= scenario.biasPercent && scenario.biasPercent <= first.bias.upperPercent);
-    if (first.powerDropouts) dropouts.add(first.powerDropouts.lower <= scenario.dropoutsPerHour && scenario.dropoutsPerHour <= first.powerDropouts.upper);
+    if (first.powerDropouts)
+      dropouts.add(first.powerDropouts.lower <= scenario.dropoutsPerHour && scenario.dropoutsPerHour <= first.powerDropouts.upper);
     falseChanged.add(compareFirmwareSteps(versions).some(saysChanged));
   }
   const met =
-    (bias.trials === 0 || bias.rate >= COVERAGE_GOAL) && (dropouts.trials === 0 || dropouts.rate >= COVERAGE_GOAL) && falseChanged.rate <= FALSE_CHANGED_GOAL;
+    (bias.trials === 0 || bias.rate >= COVERAGE_GOAL) &&
+    (dropouts.trials === 0 || dropouts.rate >= COVERAGE_GOAL) &&
+    falseChanged.rate <= FALSE_CHANGED_GOAL;
   allMet &&= met;
   console.log(
     scenario.name.padEnd(48),
@@ -128,7 +152,11 @@ for (const scenario of SCENARIOS) {
   );
 }
 console.log(`\nTruth: bias ${crowd.biasPercent} %, ${crowd.dropoutsPerHour} power dropouts per hour (mean over riders' units).`);
-console.log(`Goals: each 95 % interval covers the truth ≥ ${pct(COVERAGE_GOAL)}; any "better"/"worse" on a page of two no-change steps ≤ ${pct(FALSE_CHANGED_GOAL)}.`);
-console.log('In brackets: the 95 % Clopper–Pearson interval of the simulated rate; "shown": share of pages whose first firmware had a bias figure.');
+console.log(
+  `Goals: each 95 % interval covers the truth ≥ ${pct(COVERAGE_GOAL)}; any "better"/"worse" on a page of two no-change steps ≤ ${pct(FALSE_CHANGED_GOAL)}.`,
+);
+console.log(
+  'In brackets: the 95 % Clopper–Pearson interval of the simulated rate; "shown": share of pages whose first firmware had a bias figure.',
+);
 console.log(`${allMet ? 'All goals met' : 'Some goals missed'} in ${((performance.now() - started) / 1000).toFixed(1)} s.`);
 process.exitCode = allMet ? 0 : 1;

@@ -8,9 +8,7 @@ function newestMtime(target: string): number {
   if (!fs.existsSync(target)) return 0;
   const stat = fs.statSync(target);
   if (!stat.isDirectory()) return stat.mtimeMs;
-  return fs
-    .readdirSync(target)
-    .reduce((newest, entry) => Math.max(newest, newestMtime(path.join(target, entry))), stat.mtimeMs);
+  return fs.readdirSync(target).reduce((newest, entry) => Math.max(newest, newestMtime(path.join(target, entry))), stat.mtimeMs);
 }
 
 export function clientBuildIsStale(): boolean {

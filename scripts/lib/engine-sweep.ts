@@ -102,7 +102,17 @@ export function runSweepCase(c: SweepCase): SweepOutcome {
   try {
     result = compareFitFiles(a, b, { aPosition: 'total', bPosition: 'total' });
   } catch (err) {
-    return { case: c, truth, result: null, error: String((err as Error).message), biasError: null, offsetError: null, cadenceLagError: null, dropoutErrors: null, boundFlagged: false };
+    return {
+      case: c,
+      truth,
+      result: null,
+      error: String((err as Error).message),
+      biasError: null,
+      offsetError: null,
+      cadenceLagError: null,
+      dropoutErrors: null,
+      boundFlagged: false,
+    };
   }
   const d = result.dropouts;
   return {

@@ -5,7 +5,19 @@
 import { crc16Arc } from '@shared/analysis/fit-crc';
 
 /** Base type bytes as written in definitions (FIT SDK, fit.js: number | endian flag). */
-export const BASE = { enum: 0x00, sint8: 0x01, uint8: 0x02, sint16: 0x83, uint16: 0x84, sint32: 0x85, uint32: 0x86, string: 0x07, uint8z: 0x0a, uint16z: 0x8b, uint32z: 0x8c } as const;
+export const BASE = {
+  enum: 0x00,
+  sint8: 0x01,
+  uint8: 0x02,
+  sint16: 0x83,
+  uint16: 0x84,
+  sint32: 0x85,
+  uint32: 0x86,
+  string: 0x07,
+  uint8z: 0x0a,
+  uint16z: 0x8b,
+  uint32z: 0x8c,
+} as const;
 const WIDTH: Record<number, number> = { 0x00: 1, 0x01: 1, 0x02: 1, 0x83: 2, 0x84: 2, 0x85: 4, 0x86: 4, 0x07: 1, 0x0a: 1, 0x8b: 2, 0x8c: 4 };
 
 export type FieldSpec = [num: number, baseType: number, size?: number];
@@ -28,7 +40,12 @@ export class FitBytes {
   private readonly bytes: number[] = [];
   private readonly locals = new Map<number, LocalDefinition>();
 
-  define(local: number, globalNumber: number, fields: FieldSpec[], options: { bigEndian?: boolean; developer?: Array<[num: number, size: number, index: number]> } = {}): this {
+  define(
+    local: number,
+    globalNumber: number,
+    fields: FieldSpec[],
+    options: { bigEndian?: boolean; developer?: Array<[num: number, size: number, index: number]> } = {},
+  ): this {
     const bigEndian = options.bigEndian ?? false;
     this.bytes.push(0x40 | (options.developer ? 0x20 : 0) | local, 0, bigEndian ? 1 : 0);
     this.bytes.push(...u16(globalNumber, bigEndian), fields.length);
@@ -95,7 +112,19 @@ function u16(value: number, bigEndian: boolean): number[] {
   return bigEndian ? [(value >> 8) & 0xff, value & 0xff] : [value & 0xff, (value >> 8) & 0xff];
 }
 
-const INVALID: Record<number, number> = { 0x00: 0xff, 0x01: 0x7f, 0x02: 0xff, 0x83: 0x7fff, 0x84: 0xffff, 0x85: 0x7fffffff, 0x86: 0xffffffff, 0x07: 0, 0x0a: 0, 0x8b: 0, 0x8c: 0 };
+const INVALID: Record<number, number> = {
+  0x00: 0xff,
+  0x01: 0x7f,
+  0x02: 0xff,
+  0x83: 0x7fff,
+  0x84: 0xffff,
+  0x85: 0x7fffffff,
+  0x86: 0xffffffff,
+  0x07: 0,
+  0x0a: 0,
+  0x8b: 0,
+  0x8c: 0,
+};
 
 function encodeValue(value: number | null, baseType: number, size: number, bigEndian: boolean): number[] {
   const width = WIDTH[baseType];
@@ -116,13 +145,28 @@ export const FILE_TYPE = { settings: 2, activity: 4, workout: 5, monitoringB: 32
 export const FIT_EPOCH = 631065600;
 
 /** A plain activity: file_id, then one record a second (timestamp, power, cadence). */
-export function simpleActivity(options: { seconds: number; start?: number; fileType?: number; power?: (i: number) => number | null; time?: (i: number) => number } = { seconds: 900 }): Uint8Array {
+export function simpleActivity(
+  options: { seconds: number; start?: number; fileType?: number; power?: (i: number) => number | null; time?: (i: number) => number } = {
+    seconds: 900,
+  },
+): Uint8Array {
   const start = (options.start ?? 1_717_225_200) - FIT_EPOCH;
   const fit = new FitBytes()
-    .define(0, MESG.fileId, [[0, BASE.enum], [1, BASE.uint16], [2, BASE.uint16], [3, BASE.uint32z], [4, BASE.uint32]])
+    .define(0, MESG.fileId, [
+      [0, BASE.enum],
+      [1, BASE.uint16],
+      [2, BASE.uint16],
+      [3, BASE.uint32z],
+      [4, BASE.uint32],
+    ])
     .data(0, [options.fileType ?? FILE_TYPE.activity, 255, 1, 4242, start])
-    .define(1, MESG.record, [[253, BASE.uint32], [7, BASE.uint16], [4, BASE.uint8]]);
-  for (let i = 0; i < options.seconds; i++) fit.data(1, [options.time ? options.time(i) - FIT_EPOCH : start + i, options.power ? options.power(i) : 200 + (i % 40), 90]);
+    .define(1, MESG.record, [
+      [253, BASE.uint32],
+      [7, BASE.uint16],
+      [4, BASE.uint8],
+    ]);
+  for (let i = 0; i < options.seconds; i++)
+    fit.data(1, [options.time ? options.time(i) - FIT_EPOCH : start + i, options.power ? options.power(i) : 200 + (i % 40), 90]);
   return fit.toFile();
 }
 
@@ -134,7 +178,10 @@ export function tinyRecordFile(count: number, start = 1_717_225_200, perSecond =
   const head = new FitBytes()
     .define(0, MESG.fileId, [[0, BASE.enum]])
     .data(0, [FILE_TYPE.activity])
-    .define(1, MESG.record, [[253, BASE.uint32], [7, BASE.uint16]])
+    .define(1, MESG.record, [
+      [253, BASE.uint32],
+      [7, BASE.uint16],
+    ])
     .data(1, [start - FIT_EPOCH, 200])
     .define(2, MESG.record, [[7, BASE.uint16]]);
   const headBytes = head.toFile().subarray(14, -2);

@@ -14,7 +14,9 @@ export interface ReferenceRecords {
   temperature: number[];
 }
 
-export type ReferenceReading = { readable: true; records: ReferenceRecords; messages: Record<string, unknown[]> } | { readable: false; reason: string };
+export type ReferenceReading =
+  | { readable: true; records: ReferenceRecords; messages: Record<string, unknown[]> }
+  | { readable: false; reason: string };
 
 /** Reads the bytes with the SDK; `readable` only when its integrity check passes and it reads without error. */
 export function readWithFitSdk(bytes: Uint8Array): ReferenceReading {

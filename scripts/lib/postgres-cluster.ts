@@ -90,9 +90,7 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
     fs.mkdirSync(path.dirname(absolute), { recursive: true, mode: 0o755 });
     fs.mkdirSync(absolute, { recursive: true, mode: 0o700 });
     ownForCluster(absolute);
-    const init = run(binDir, 'initdb', [
-      '-D', absolute, '-U', CLUSTER_SUPERUSER, '--auth=trust', '--encoding=UTF8', '--no-instructions',
-    ]);
+    const init = run(binDir, 'initdb', ['-D', absolute, '-U', CLUSTER_SUPERUSER, '--auth=trust', '--encoding=UTF8', '--no-instructions']);
     if (init.status !== 0) throw new ClusterError(`initdb failed: ${init.stderr || init.stdout}`);
   }
   const ownerFile = `${absolute}.owner`;
@@ -108,7 +106,9 @@ export function startCluster({ dataDir, port, log = console.log }: ClusterOption
   }
   const logFile = path.join(absolute, 'server.log');
   const options = `-c listen_addresses=127.0.0.1 -p ${port} -k ${absolute} -c fsync=off`;
-  const started = reused ? { status: 0, stderr: '', stdout: '' } : run(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
+  const started = reused
+    ? { status: 0, stderr: '', stdout: '' }
+    : run(binDir, 'pg_ctl', ['start', '-w', '-t', '60', '-D', absolute, '-l', logFile, '-o', options]);
   if (started.status !== 0) {
     const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-6).join('\n') : '';
     const busy = /could not bind|Address already in use/.test(tail);

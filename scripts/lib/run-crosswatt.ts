@@ -30,7 +30,10 @@ const env: Record<string, string | undefined> = { NODE_ENV: 'development', ...pr
  * The private PostgreSQL of npm start and npm run start:cluster, with the database
  * `crosswatt` in it; stopping it is the shutdown's last step.
  */
-export async function startPrivateDatabase(shutdown: Shutdown, options: { dataDir: string; port: number }): Promise<{ cluster: Cluster; databaseUrl: string }> {
+export async function startPrivateDatabase(
+  shutdown: Shutdown,
+  options: { dataDir: string; port: number },
+): Promise<{ cluster: Cluster; databaseUrl: string }> {
   const cluster = startCluster(options);
   // Last step of the shutdown, and a safety net: pg_ctl is synchronous, so it runs even in 'exit'.
   shutdown.add('PostgreSQL', () => cluster.stop(), 30_000);

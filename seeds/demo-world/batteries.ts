@@ -39,7 +39,9 @@ export function planBatteryLogs(seed = 2026): PlannedBatteryLog[] {
       const hoursPerDay = random.uniform(2.4, 3.4);
       const riderFactor = Math.exp(0.08 * random.normal());
       // Owners started logging around the first release they ran, within a month of it.
-      const startDaysAgo = (model.firmware.find((f) => f.releasedDaysAgo < FIRST_LOGGED_DAYS_AGO)?.releasedDaysAgo ?? FIRST_LOGGED_DAYS_AGO) - random.integer(0, 30);
+      const startDaysAgo =
+        (model.firmware.find((f) => f.releasedDaysAgo < FIRST_LOGGED_DAYS_AGO)?.releasedDaysAgo ?? FIRST_LOGGED_DAYS_AGO) -
+        random.integer(0, 30);
       const log: PlannedBatteryLog = { rider: rider.handle, model: model.name, events: [], riding: [] };
       let daysAgo = startDaysAgo;
       let previousEnded: PreviousBatteryEnding = 'first_battery';
@@ -53,7 +55,9 @@ export function planBatteryLogs(seed = 2026): PlannedBatteryLog[] {
         const lastsDays = ((early ? 0.7 : 1) * life) / hoursPerDay;
         let endDaysAgo = Math.round(daysAgo - lastsDays);
         // The story's owners fit a fresh cell when they update the firmware (its release notes ask for one).
-        const update = model.firmware.find((f) => !f.beta && f.releasedDaysAgo < daysAgo && f.releasedDaysAgo > endDaysAgo && f.releasedDaysAgo > 0);
+        const update = model.firmware.find(
+          (f) => !f.beta && f.releasedDaysAgo < daysAgo && f.releasedDaysAgo > endDaysAgo && f.releasedDaysAgo > 0,
+        );
         if (update) {
           endDaysAgo = update.releasedDaysAgo;
           early = true;
@@ -61,7 +65,8 @@ export function planBatteryLogs(seed = 2026): PlannedBatteryLog[] {
         // Riding by the fortnight until the change (or today), dated at each fortnight's end.
         for (let from = daysAgo; from > Math.max(endDaysAgo, 0); from -= FORTNIGHT) {
           const to = Math.max(from - FORTNIGHT, endDaysAgo, 0);
-          if (from - to > 0) log.riding.push({ daysAgo: to + (to === endDaysAgo ? 1 : 0), hours: Math.round((from - to) * hoursPerDay * 10) / 10 });
+          if (from - to > 0)
+            log.riding.push({ daysAgo: to + (to === endDaysAgo ? 1 : 0), hours: Math.round((from - to) * hoursPerDay * 10) / 10 });
         }
         previousEnded = early ? 'replaced_early' : index % 3 === 0 ? 'low_warning' : 'ran_flat';
         daysAgo = endDaysAgo;
@@ -77,22 +82,43 @@ const dayOf = (now: number, daysAgo: number) => new Date((now - daysAgo * DAY_SE
 /** Carries out the battery plan through the battery service; returns the number of batteries logged. */
 export async function seedBatteryLogs(
   db: Knex,
-  options: { now: number; people: Map<string, SessionUser>; modelIds: Map<string, number>; firmwareIds: Map<string, number>; moderator: SessionUser; seed?: number },
+  options: {
+    now: number;
+    people: Map<string, SessionUser>;
+    modelIds: Map<string, number>;
+    firmwareIds: Map<string, number>;
+    moderator: SessionUser;
+    seed?: number;
+  },
 ): Promise<number> {
   let batteries = 0;
   for (const model of MODELS.filter((m) => m.battery)) {
-    await setBatteryClaim(db, options.moderator.id, options.modelIds.get(model.name)!, { hours: model.battery!.claimHours, source: model.battery!.claimSource });
+    await setBatteryClaim(db, options.moderator.id, options.modelIds.get(model.name)!, {
+      hours: model.battery!.claimHours,
+      source: model.battery!.claimSource,
+    });
   }
   for (const log of planBatteryLogs(options.seed)) {
     const model = MODELS.find((m) => m.name === log.model)!;
     const riderId = options.people.get(log.rider)!.id;
-    const meterId = await addMeter(db, riderId, { modelId: options.modelIds.get(model.name)!, position: model.position, nickname: `${model.name} (main bike)`, batteryType: model.battery!.type });
+    const meterId = await addMeter(db, riderId, {
+      modelId: options.modelIds.get(model.name)!,
+      position: model.position,
+      nickname: `${model.name} (main bike)`,
+      batteryType: model.battery!.type,
+    });
     for (const event of log.events) {
-      const input = createBatteryEventInput.parse({ occurredOn: dayOf(options.now, event.daysAgo), kind: 'changed', previousEnded: event.previousEnded, firmwareId: options.firmwareIds.get(`${model.name}@${event.firmware}`) });
+      const input = createBatteryEventInput.parse({
+        occurredOn: dayOf(options.now, event.daysAgo),
+        kind: 'changed',
+        previousEnded: event.previousEnded,
+        firmwareId: options.firmwareIds.get(`${model.name}@${event.firmware}`),
+      });
       await addBatteryEvent(db, riderId, meterId, input);
       batteries += 1;
     }
-    for (const entry of log.riding) await addRiding(db, riderId, meterId, addRidingInput.parse({ riddenOn: dayOf(options.now, entry.daysAgo), hours: entry.hours }));
+    for (const entry of log.riding)
+      await addRiding(db, riderId, meterId, addRidingInput.parse({ riddenOn: dayOf(options.now, entry.daysAgo), hours: entry.hours }));
   }
   return batteries;
 }

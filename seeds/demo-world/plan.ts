@@ -85,10 +85,34 @@ const NORMAL_RIDES = 408;
 const CLEAN_PENDING = 10;
 /** How many of each flaw go to the queue and how many were rejected already. */
 const FLAWS: Array<{ flaw: Flaw; pending: number; rejected: number; reason?: RejectReason; note?: string }> = [
-  { flaw: 'other_ride', pending: 2, rejected: 2, reason: 'not_same_ride', note: 'The traces do not match: these look like two different rides.' },
-  { flaw: 'uncalibrated', pending: 2, rejected: 1, reason: 'not_calibrated', note: 'One meter reads 20 % high; please check its crank length setting and zero it.' },
-  { flaw: 'mixed', pending: 3, rejected: 1, reason: 'mixed_comparison', note: 'A single-leg meter against a trainer mixes leg balance into the difference.' },
-  { flaw: 'wrong_tag', pending: 1, rejected: 1, reason: 'wrong_tag', note: "The file names the model's first firmware, the tags its latest." },
+  {
+    flaw: 'other_ride',
+    pending: 2,
+    rejected: 2,
+    reason: 'not_same_ride',
+    note: 'The traces do not match: these look like two different rides.',
+  },
+  {
+    flaw: 'uncalibrated',
+    pending: 2,
+    rejected: 1,
+    reason: 'not_calibrated',
+    note: 'One meter reads 20 % high; please check its crank length setting and zero it.',
+  },
+  {
+    flaw: 'mixed',
+    pending: 3,
+    rejected: 1,
+    reason: 'mixed_comparison',
+    note: 'A single-leg meter against a trainer mixes leg balance into the difference.',
+  },
+  {
+    flaw: 'wrong_tag',
+    pending: 1,
+    rejected: 1,
+    reason: 'wrong_tag',
+    note: "The file names the model's first firmware, the tags its latest.",
+  },
   { flaw: 'short', pending: 2, rejected: 0 },
   { flaw: 'duplicate', pending: 0, rejected: 1, reason: 'duplicate', note: 'The same ride was uploaded before from the other head unit.' },
 ];
@@ -216,7 +240,10 @@ function sideOf(ctx: RideContext, model: WorldModel, deviceName: string, firmwar
   const afterDrivetrain = AFTER_DRIVETRAIN_KINDS.includes(model.kind);
   const scale = (1 + firmware.biasPercent / 100) * (1 + scatter / 100);
   const powerDropoutsPerHour =
-    firmware.powerDropoutsPerHour * SURFACE_DROPOUT_FACTOR[surface] * (otherMetersOn ? OTHER_METERS_ON_POWER_FACTOR : 1) * device.powerDropoutFactor;
+    firmware.powerDropoutsPerHour *
+    SURFACE_DROPOUT_FACTOR[surface] *
+    (otherMetersOn ? OTHER_METERS_ON_POWER_FACTOR : 1) *
+    device.powerDropoutFactor;
   const cadenceDropoutsPerHour = firmware.cadenceDropoutsPerHour * SURFACE_DROPOUT_FACTOR[surface];
   const modelIndex = MODELS.indexOf(model);
   const spec: MeterSpec = {
@@ -274,18 +301,27 @@ function rideSurface(random: Random, rider: WorldRider, forcedIndoor?: boolean):
 
 function rideProfile(random: Random, indoor: boolean): RideProfile {
   if (indoor) return 'indoor';
-  return weighted<RideProfile>(random, [['endurance', 0.5], ['intervals', 0.25], ['race', 0.25]]);
+  return weighted<RideProfile>(random, [
+    ['endurance', 0.5],
+    ['intervals', 0.25],
+    ['race', 0.25],
+  ]);
 }
 
 type PlannedRide = Omit<PlannedSubmission, 'index' | 'flaw' | 'outcome'>;
 
 /** One like-for-like ride of a rider on a day, or null when they had no usable pair then. */
-function planRide(ctx: Omit<RideContext, 'surface' | 'durationSeconds' | 'temperature'>, now: number, thinCounts: Map<string, number>): PlannedRide | null {
+function planRide(
+  ctx: Omit<RideContext, 'surface' | 'durationSeconds' | 'temperature'>,
+  now: number,
+  thinCounts: Map<string, number>,
+): PlannedRide | null {
   const { random, rider, riderIndex, daysAgo } = ctx;
   const betaTester = riderIndex % 9 === 4;
   const thinFull = (model: WorldModel) => (thinCounts.get(model.name) ?? Infinity) <= 0;
   const pairs = likeForLikePairs(rider).filter(
-    ([x, y]) => !thinFull(x) && !thinFull(y) && releasedBy(x, daysAgo, betaTester).length > 0 && releasedBy(y, daysAgo, betaTester).length > 0,
+    ([x, y]) =>
+      !thinFull(x) && !thinFull(y) && releasedBy(x, daysAgo, betaTester).length > 0 && releasedBy(y, daysAgo, betaTester).length > 0,
   );
   if (pairs.length === 0) return null;
   let [first, second] = pick(random, pairs);
@@ -340,7 +376,8 @@ export function planDemoWorld(options: PlanOptions): PlannedSubmission[] {
 
   const planned: Array<Omit<PlannedSubmission, 'index'>> = [];
   const normalCount = Math.max(1, Math.round(NORMAL_RIDES * scale));
-  for (let i = 0; i < normalCount; i++) planned.push({ ...drawRide([15, HISTORY_DAYS]), outcome: { decision: 'accept', moderator: moderator() } });
+  for (let i = 0; i < normalCount; i++)
+    planned.push({ ...drawRide([15, HISTORY_DAYS]), outcome: { decision: 'accept', moderator: moderator() } });
   // The newcomer's first few rides: accepted, but too few to say much.
   for (const [name, cap] of Object.entries(THIN_EVIDENCE_MODELS)) {
     const owner = RIDERS.findIndex((rider) => rider.meters.includes(name));
@@ -361,28 +398,42 @@ export function planDemoWorld(options: PlanOptions): PlannedSubmission[] {
     for (const [decision, count] of Object.entries(counts) as Array<['pending' | 'rejected', number]>) {
       for (let i = 0; i < count; i++) {
         const ride = drawRide(decision === 'pending' ? [0, 14] : [20, 300]);
-        const outcome: Outcome = decision === 'pending' ? { decision: 'pending' } : { decision: 'reject', moderator: moderator(), reason: reason!, note: note! };
+        const outcome: Outcome =
+          decision === 'pending' ? { decision: 'pending' } : { decision: 'reject', moderator: moderator(), reason: reason!, note: note! };
         planned.push({ ...withFlaw(ride, flaw, random, planned, nextSeed++), flaw, outcome });
       }
     }
   }
-  return planned
-    .sort((x, y) => x.simulation.startTime! - y.simulation.startTime!)
-    .map((submission, index) => ({ index, ...submission }));
+  return planned.sort((x, y) => x.simulation.startTime! - y.simulation.startTime!).map((submission, index) => ({ index, ...submission }));
 }
 
-function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<Omit<PlannedSubmission, 'index'>>, seed: number): PlannedRide {
+function withFlaw(
+  ride: PlannedRide,
+  flaw: Flaw,
+  random: Random,
+  planned: Array<Omit<PlannedSubmission, 'index'>>,
+  seed: number,
+): PlannedRide {
   const sim = ride.simulation;
   switch (flaw) {
     case 'other_ride':
       // A different kind of effort by a different rider, so the traces cannot match.
       return {
         ...ride,
-        otherRide: { ...sim, seed, profile: sim.profile === 'race' ? 'endurance' : 'race', riderFtpWatts: (sim.riderFtpWatts ?? 250) * 0.8 },
+        otherRide: {
+          ...sim,
+          seed,
+          profile: sim.profile === 'race' ? 'endurance' : 'race',
+          riderFtpWatts: (sim.riderFtpWatts ?? 250) * 0.8,
+        },
         notes: 'Second file from the same morning.',
       };
     case 'uncalibrated':
-      return { ...ride, a: { ...ride.a, gain: ride.a.gain * 1.2 }, simulation: { ...sim, a: { ...sim.a, scale: (sim.a.scale ?? 1) * 1.2 } } };
+      return {
+        ...ride,
+        a: { ...ride.a, gain: ride.a.gain * 1.2 },
+        simulation: { ...sim, a: { ...sim.a, scale: (sim.a.scale ?? 1) * 1.2 } },
+      };
     case 'short':
       return { ...ride, simulation: { ...sim, durationSeconds: 60 * random.integer(12, 16) } };
     case 'wrong_tag': {
@@ -390,12 +441,22 @@ function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<
       const model = worldModel(ride.a.model);
       const first = model.firmware[0].version;
       const last = model.firmware.filter((f) => !f.beta).at(-1)!.version;
-      return { ...ride, a: { ...ride.a, firmware: last === first ? model.firmware[1]?.version ?? last : last }, simulation: { ...sim, a: { ...sim.a, sensor: { ...sim.a.sensor!, softwareVersion: Number(first) } } } };
+      return {
+        ...ride,
+        a: { ...ride.a, firmware: last === first ? (model.firmware[1]?.version ?? last) : last },
+        simulation: { ...sim, a: { ...sim.a, sensor: { ...sim.a.sensor!, softwareVersion: Number(first) } } },
+      };
     }
     case 'mixed': {
       // A single-leg meter on the club's trainer: the comparison cannot separate the legs.
-      const trainer = pick(random, MODELS.filter((m) => m.kind === 'trainer'));
-      const single = pick(random, MODELS.filter((m) => m.position === 'left' || m.position === 'right'));
+      const trainer = pick(
+        random,
+        MODELS.filter((m) => m.kind === 'trainer'),
+      );
+      const single = pick(
+        random,
+        MODELS.filter((m) => m.position === 'left' || m.position === 'right'),
+      );
       const firmware = trainer.firmware.filter((f) => f.releasedDaysAgo >= ride.daysAgo).at(-1)!;
       const singleFirmware = single.firmware.filter((f) => f.releasedDaysAgo >= ride.daysAgo).at(-1)!;
       const gain = (f: FirmwareTruth, loss: number) => (1 + f.biasPercent / 100) * (1 - loss / 100);
@@ -405,12 +466,37 @@ function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<
         indoor: true,
         notes: 'Borrowed the club trainer for an evening.',
         a: { ...ride.a, model: single.name, firmware: singleFirmware.version, gain: gain(singleFirmware, 0), coldGain: 1 },
-        b: { ...ride.b, model: trainer.name, firmware: firmware.version, gain: gain(firmware, DRIVETRAIN_LOSS_PERCENT), coldGain: 1, powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0 },
+        b: {
+          ...ride.b,
+          model: trainer.name,
+          firmware: firmware.version,
+          gain: gain(firmware, DRIVETRAIN_LOSS_PERCENT),
+          coldGain: 1,
+          powerDropoutsPerHour: 0,
+          cadenceDropoutsPerHour: 0,
+        },
         simulation: {
           ...sim,
           profile: 'indoor',
-          a: { ...sim.a, coldResponse: undefined, position: single.position, scale: gain(singleFirmware, 0), drivetrainLossPercent: 0, sensor: { ...sim.a.sensor!, productId: 100 + MODELS.indexOf(single), softwareVersion: Number(singleFirmware.version) } },
-          b: { ...sim.b, coldResponse: undefined, position: 'total', scale: gain(firmware, 0), drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT, powerDropoutsPerHour: 0, cadenceDropoutsPerHour: 0, includeLocation: false, sensor: { ...sim.b.sensor!, productId: 100 + MODELS.indexOf(trainer), softwareVersion: Number(firmware.version) } },
+          a: {
+            ...sim.a,
+            coldResponse: undefined,
+            position: single.position,
+            scale: gain(singleFirmware, 0),
+            drivetrainLossPercent: 0,
+            sensor: { ...sim.a.sensor!, productId: 100 + MODELS.indexOf(single), softwareVersion: Number(singleFirmware.version) },
+          },
+          b: {
+            ...sim.b,
+            coldResponse: undefined,
+            position: 'total',
+            scale: gain(firmware, 0),
+            drivetrainLossPercent: DRIVETRAIN_LOSS_PERCENT,
+            powerDropoutsPerHour: 0,
+            cadenceDropoutsPerHour: 0,
+            includeLocation: false,
+            sensor: { ...sim.b.sensor!, productId: 100 + MODELS.indexOf(trainer), softwareVersion: Number(firmware.version) },
+          },
         },
       };
     }
@@ -418,7 +504,10 @@ function withFlaw(ride: PlannedRide, flaw: Flaw, random: Random, planned: Array<
       // The same ride as an earlier accepted one, written by other head units.
       const original = planned.find((p) => p.outcome.decision === 'accept' && p.rider === ride.rider) ?? planned[0];
       const osim = original.simulation;
-      const reserial = (spec: MeterSpec): MeterSpec => ({ ...spec, device: { ...spec.device!, serialNumber: spec.device!.serialNumber + 5 } });
+      const reserial = (spec: MeterSpec): MeterSpec => ({
+        ...spec,
+        device: { ...spec.device!, serialNumber: spec.device!.serialNumber + 5 },
+      });
       return { ...original, notes: 'Uploading my Sunday ride.', simulation: { ...osim, a: reserial(osim.a), b: reserial(osim.b) } };
     }
   }

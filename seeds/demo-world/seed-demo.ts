@@ -49,7 +49,16 @@ export interface SeedDemoReport {
   /** Batteries logged by the riders of models with a battery story. */
   batteries: number;
   /** Seconds spent in each step, to see where the time goes. */
-  phases: { catalogue: number; people: number; simulate: number; upload: number; analyse: number; decide: number; threads: number; batteries: number };
+  phases: {
+    catalogue: number;
+    people: number;
+    simulate: number;
+    upload: number;
+    analyse: number;
+    decide: number;
+    threads: number;
+    batteries: number;
+  };
 }
 
 interface CatalogueIds {
@@ -71,7 +80,19 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
   const now = options.now ?? Math.floor(Date.now() / 1000);
   const plan = planDemoWorld({ now, seed: options.seed, scale: options.scale });
   const phases = { catalogue: 0, people: 0, simulate: 0, upload: 0, analyse: 0, decide: 0, threads: 0, batteries: 0 };
-  const report: SeedDemoReport = { seeded: false, seconds: 0, plan, submissionIds: [], analysed: 0, failed: 0, decided: 0, threads: 0, posts: 0, batteries: 0, phases };
+  const report: SeedDemoReport = {
+    seeded: false,
+    seconds: 0,
+    plan,
+    submissionIds: [],
+    analysed: 0,
+    failed: 0,
+    decided: 0,
+    threads: 0,
+    posts: 0,
+    batteries: 0,
+    phases,
+  };
   const timed = async <T>(phase: keyof typeof phases, step: () => Promise<T>): Promise<T> => {
     const start = performance.now();
     try {
@@ -112,7 +133,14 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
     report.threads = conversations.threads;
     report.posts = conversations.posts;
     report.batteries = await timed('batteries', () =>
-      seedBatteryLogs(trx, { now, people, modelIds: ids.models, firmwareIds: ids.firmware, moderator: people.get('demo-moderator')!, seed: options.seed }),
+      seedBatteryLogs(trx, {
+        now,
+        people,
+        modelIds: ids.models,
+        firmwareIds: ids.firmware,
+        moderator: people.get('demo-moderator')!,
+        seed: options.seed,
+      }),
     );
   });
   report.seeded = true;
@@ -121,7 +149,9 @@ export async function seedDemoWorld(options: SeedDemoOptions): Promise<SeedDemoR
     `Demo world ready in ${report.seconds.toFixed(1)} s: ${report.analysed} submissions analysed` +
       (report.failed ? `, ${report.failed} failed` : '') +
       `, ${report.decided} decided, ${report.threads} threads with ${report.posts} posts, ${report.batteries} batteries logged` +
-      ` (${Object.entries(phases).map(([phase, seconds]) => `${phase} ${seconds.toFixed(1)} s`).join(', ')}).`,
+      ` (${Object.entries(phases)
+        .map(([phase, seconds]) => `${phase} ${seconds.toFixed(1)} s`)
+        .join(', ')}).`,
   );
   return report;
 }
@@ -153,7 +183,10 @@ async function createCatalogue(db: Knex, now: number): Promise<CatalogueIds> {
     }
   }
   for (const device of RECORDING_DEVICES) {
-    ids.devices.set(device.name, (await insertRecordingDevice(db, { slug: slugify(device.name), name: device.name, kind: device.kind, status: 'approved' })).id);
+    ids.devices.set(
+      device.name,
+      (await insertRecordingDevice(db, { slug: slugify(device.name), name: device.name, kind: device.kind, status: 'approved' })).id,
+    );
   }
   return ids;
 }
@@ -162,7 +195,10 @@ async function createCatalogue(db: Knex, now: number): Promise<CatalogueIds> {
 async function createPeople(db: Knex): Promise<Map<string, SessionUser>> {
   const people = new Map<string, SessionUser>();
   for (const person of [...STAFF, ...RIDERS]) {
-    people.set(person.handle, await ensureDemoIdentity(db, { handle: person.handle, name: person.name, roles: person.roles, makerSlug: person.makerSlug }));
+    people.set(
+      person.handle,
+      await ensureDemoIdentity(db, { handle: person.handle, name: person.name, roles: person.roles, makerSlug: person.makerSlug }),
+    );
   }
   return people;
 }

@@ -56,7 +56,7 @@ export const THREAD_SCRIPTS: ThreadScript[] = [
       {
         author: 'demo-staff-quillon-dynamics',
         official: true,
-        body: 'Thank you both, the linked rides made this easy to reproduce. On rough ground the pedal spindle vibration could trip the cadence sensor\'s debounce, and the pedal then held cadence back until the next clean revolution. Firmware **1.4** rewrites the debounce; update through the Quillon app and the gaps should go.',
+        body: "Thank you both, the linked rides made this easy to reproduce. On rough ground the pedal spindle vibration could trip the cadence sensor's debounce, and the pedal then held cadence back until the next clean revolution. Firmware **1.4** rewrites the debounce; update through the Quillon app and the gaps should go.",
       },
       {
         author: 'gideon-flaxman',
@@ -148,7 +148,7 @@ export const THREAD_SCRIPTS: ThreadScript[] = [
       {
         author: 'demo-staff-halvard-cycleworks',
         official: true,
-        body: 'A hub sits after the chain, so it sees what the drivetrain lets through: around two percent less than the cranks or pedals, more with a dirty chain. That is expected, and Crosswatt\'s consensus figures allow for it. A clean, well-lubed chain narrows the gap.',
+        body: "A hub sits after the chain, so it sees what the drivetrain lets through: around two percent less than the cranks or pedals, more with a dirty chain. That is expected, and Crosswatt's consensus figures allow for it. A clean, well-lubed chain narrows the gap.",
       },
     ],
     status: { by: 'demo-staff-halvard-cycleworks', status: 'acknowledged' },
@@ -212,7 +212,10 @@ export async function seedThreadsAndNotes(ctx: ConversationContext): Promise<{ t
     });
     posts += 1;
     for (const reply of replies) {
-      const { id: postId } = await replyToThread(deps, person(reply.author), threadId, { body: reply.body, submissionIds: await evidenceFor(ctx, script.model, reply) });
+      const { id: postId } = await replyToThread(deps, person(reply.author), threadId, {
+        body: reply.body,
+        submissionIds: await evidenceFor(ctx, script.model, reply),
+      });
       if (reply.official) await markOfficialResponse(deps, person(reply.author), threadId, postId);
       posts += 1;
     }
@@ -245,10 +248,21 @@ async function evidenceFor(ctx: ConversationContext, model: string, post: Script
     return [{ id: ctx.submissionIds[planned.index], side }];
   });
   if (candidates.length === 0) return [];
-  const rows: Array<{ id: number; status: string; bias_percent: number | null; a_power_dropouts: number; a_cadence_dropouts: number; b_power_dropouts: number; b_cadence_dropouts: number }> =
-    await ctx.db('submissions')
-      .whereIn('id', candidates.map((c) => c.id))
-      .select('id', 'status', 'bias_percent', 'a_power_dropouts', 'a_cadence_dropouts', 'b_power_dropouts', 'b_cadence_dropouts');
+  const rows: Array<{
+    id: number;
+    status: string;
+    bias_percent: number | null;
+    a_power_dropouts: number;
+    a_cadence_dropouts: number;
+    b_power_dropouts: number;
+    b_cadence_dropouts: number;
+  }> = await ctx
+    .db('submissions')
+    .whereIn(
+      'id',
+      candidates.map((c) => c.id),
+    )
+    .select('id', 'status', 'bias_percent', 'a_power_dropouts', 'a_cadence_dropouts', 'b_power_dropouts', 'b_cadence_dropouts');
   const byId = new Map(rows.map((row) => [row.id, row]));
   const strength = ({ id, side }: { id: number; side: 'a' | 'b' }) => {
     const row = byId.get(id)!;

@@ -35,14 +35,20 @@ const key = (model: string, firmware: string) => `${model}@${firmware}`;
 
 /** Per model + firmware of the world, what its accepted submissions in `plan` should show. */
 export function injectedTruth(plan: PlannedSubmission[]): CombinationTruth[] {
-  const evidence = new Map<string, { hours: number; count: number; power: number; cadence: number; bias: number; biasHours: number; logGain: number }>();
+  const evidence = new Map<
+    string,
+    { hours: number; count: number; power: number; cadence: number; bias: number; biasHours: number; logGain: number }
+  >();
   let logGainSum = 0;
   let logGainHours = 0;
   for (const submission of plan) {
     if (submission.outcome.decision !== 'accept' || submission.flaw) continue;
     const hours = submission.simulation.durationSeconds / 3600;
     const likeForLike = isLikeForLike(worldModel(submission.a.model), worldModel(submission.b.model));
-    const sides: Array<[PlannedSide, PlannedSide]> = [[submission.a, submission.b], [submission.b, submission.a]];
+    const sides: Array<[PlannedSide, PlannedSide]> = [
+      [submission.a, submission.b],
+      [submission.b, submission.a],
+    ];
     for (const [self, partner] of sides) {
       const k = key(self.model, self.firmware);
       const entry = evidence.get(k) ?? { hours: 0, count: 0, power: 0, cadence: 0, bias: 0, biasHours: 0, logGain: 0 };

@@ -50,14 +50,26 @@ export function authRouter({ config, db, passport }: AuthDeps) {
   return router;
 }
 
-function finishSignIn(req: Request, res: Response, next: NextFunction, err: unknown, user: Express.User | false, info?: { message?: string }) {
+function finishSignIn(
+  req: Request,
+  res: Response,
+  next: NextFunction,
+  err: unknown,
+  user: Express.User | false,
+  info?: { message?: string },
+) {
   if (err) {
     // Token exchange refused, provider unreachable or answering nonsense.
     req.log.warn({ err }, 'sign-in failed at the provider');
     res
       .status(502)
       .type('html')
-      .send(signInProblemPage('The sign-in service did not answer properly', 'We could not confirm who you are with the sign-in service, so you are not signed in and nothing was saved. Please try again in a moment.'));
+      .send(
+        signInProblemPage(
+          'The sign-in service did not answer properly',
+          'We could not confirm who you are with the sign-in service, so you are not signed in and nothing was saved. Please try again in a moment.',
+        ),
+      );
     return;
   }
   if (!user) {

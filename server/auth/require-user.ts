@@ -30,7 +30,9 @@ export function isStaffOf(user: Pick<SessionUser, 'makerIds'> | undefined, maker
  * thing being acted on. getMakerId looks that maker up (throw NotFoundError there
  * when the thing does not exist).
  */
-export function requireMakerStaff(getMakerId: (req: Request) => number | null | undefined | Promise<number | null | undefined>): RequestHandler {
+export function requireMakerStaff(
+  getMakerId: (req: Request) => number | null | undefined | Promise<number | null | undefined>,
+): RequestHandler {
   return async (req, _res, next) => {
     if (!req.user) throw new UnauthenticatedError();
     const makerId = await getMakerId(req);
@@ -47,7 +49,7 @@ export function requireMakerStaff(getMakerId: (req: Request) => number | null | 
 export function assertIndependentOf(user: Pick<SessionUser, 'makerIds'>, makerIds: Iterable<number>): void {
   for (const makerId of makerIds) {
     if (isStaffOf(user, makerId)) {
-      throw new ForbiddenError("You are staff of a maker involved here, so someone independent has to decide.");
+      throw new ForbiddenError('You are staff of a maker involved here, so someone independent has to decide.');
     }
   }
 }

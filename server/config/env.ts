@@ -1,9 +1,7 @@
 import { z } from 'zod';
 
 // Configuration is parsed once, here; the process refuses to start on bad values.
-const booleanish = z
-  .enum(['true', 'false', '1', '0'])
-  .transform((v) => v === 'true' || v === '1');
+const booleanish = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
 
 const configSchema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -42,7 +40,10 @@ const configSchema = z.object({
   // any S3-compatible store; npm start and the tests point these at a fake on loopback.
   /** The store's URL; unset means the S3 service of S3_REGION. */
   S3_ENDPOINT: z.url().optional(),
-  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be an S3 bucket name (3–63 of a–z, 0–9, . and -)').default('crosswatt-originals'),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be an S3 bucket name (3–63 of a–z, 0–9, . and -)')
+    .default('crosswatt-originals'),
   S3_REGION: z.string().min(1).default('us-east-1'),
   /** Both or neither: without them the SDK's own credential chain is used (instance roles and the like). */
   S3_ACCESS_KEY_ID: z.string().min(1).optional(),

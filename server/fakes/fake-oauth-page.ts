@@ -71,4 +71,3 @@ ${identities.length ? `<ul>${rows}</ul>` : '<p>None yet: create the first one be
 </form>
 </main></body></html>`;
 }
-

@@ -56,7 +56,8 @@ export async function startFakeOAuth(options: {
     if (request.clientId !== clientId) return 'Unknown client_id.';
     try {
       const target = new URL(request.redirectUri);
-      if (!['http:', 'https:'].includes(target.protocol) || !LOOPBACK_HOSTS.has(target.hostname)) return 'redirect_uri must be on this machine.';
+      if (!['http:', 'https:'].includes(target.protocol) || !LOOPBACK_HOSTS.has(target.hostname))
+        return 'redirect_uri must be on this machine.';
     } catch {
       return 'redirect_uri is missing or not a URL.';
     }
@@ -72,7 +73,12 @@ export async function startFakeOAuth(options: {
 
   function approve(res: Response, request: AuthorizeRequest, identity: FakeIdentity) {
     const code = randomBytes(20).toString('hex');
-    codes.set(code, { identityId: identity.id, clientId: request.clientId, redirectUri: request.redirectUri, expiresAt: Date.now() + CODE_LIFETIME_MS });
+    codes.set(code, {
+      identityId: identity.id,
+      clientId: request.clientId,
+      redirectUri: request.redirectUri,
+      expiresAt: Date.now() + CODE_LIFETIME_MS,
+    });
     sendBack(res, request, { code });
   }
 
@@ -96,7 +102,11 @@ export async function startFakeOAuth(options: {
     const request = readAuthorizeRequest(req.body);
     if (typeof request === 'string') return badRequest(res, request);
     const identity = await findFakeIdentity(db, String(req.body.login ?? ''));
-    if (!identity) return res.status(400).type('html').send(authorizePage(request, await listFakeIdentities(db), 'That identity no longer exists.'));
+    if (!identity)
+      return res
+        .status(400)
+        .type('html')
+        .send(authorizePage(request, await listFakeIdentities(db), 'That identity no longer exists.'));
     approve(res, request, identity);
   });
 
@@ -109,7 +119,11 @@ export async function startFakeOAuth(options: {
       : (await findFakeIdentity(db, parsed.data.login))
         ? `The handle ${parsed.data.login} is taken; pick it from the list or choose another.`
         : undefined;
-    if (problem || !parsed.success) return res.status(400).type('html').send(authorizePage(request, await listFakeIdentities(db), problem));
+    if (problem || !parsed.success)
+      return res
+        .status(400)
+        .type('html')
+        .send(authorizePage(request, await listFakeIdentities(db), problem));
     approve(res, request, await ensureFakeIdentity(db, parsed.data));
   });
 
@@ -124,9 +138,12 @@ export async function startFakeOAuth(options: {
     const grant = codes.get(code);
     codes.delete(code);
     const refuse = (error: string, description: string) => res.status(400).json({ error, error_description: description });
-    if (req.body.client_id !== clientId || req.body.client_secret !== clientSecret) return refuse('incorrect_client_credentials', 'The client_id or client_secret is wrong.');
-    if (!grant || grant.expiresAt < Date.now() || grant.clientId !== req.body.client_id) return refuse('bad_verification_code', 'The code is wrong or expired.');
-    if (req.body.redirect_uri && req.body.redirect_uri !== grant.redirectUri) return refuse('redirect_uri_mismatch', 'The redirect_uri does not match.');
+    if (req.body.client_id !== clientId || req.body.client_secret !== clientSecret)
+      return refuse('incorrect_client_credentials', 'The client_id or client_secret is wrong.');
+    if (!grant || grant.expiresAt < Date.now() || grant.clientId !== req.body.client_id)
+      return refuse('bad_verification_code', 'The code is wrong or expired.');
+    if (req.body.redirect_uri && req.body.redirect_uri !== grant.redirectUri)
+      return refuse('redirect_uri_mismatch', 'The redirect_uri does not match.');
     const token = randomBytes(24).toString('hex');
     tokens.set(token, grant.identityId);
     res.json({ access_token: token, token_type: 'bearer', scope: 'user:email' });
@@ -151,7 +168,10 @@ export async function startFakeOAuth(options: {
   });
 
   app.use((err: unknown, _req: Request, res: Response, _next: express.NextFunction) => {
-    res.status(500).type('text/plain').send(`Local test provider failed: ${String(err)}`);
+    res
+      .status(500)
+      .type('text/plain')
+      .send(`Local test provider failed: ${String(err)}`);
   });
 
   const server = await new Promise<Server>((resolve, reject) => {

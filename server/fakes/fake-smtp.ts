@@ -32,7 +32,10 @@ export async function startFakeSmtp(options: { db: Knex; host?: string; port?: n
             headers: JSON.stringify(parsed.headers),
             raw,
           })
-          .then(() => callback(), (err: Error) => callback(err));
+          .then(
+            () => callback(),
+            (err: Error) => callback(err),
+          );
       });
     },
   });

@@ -20,5 +20,8 @@ export async function defineQueue(queue: PgBoss, name: string, options: Omit<PgB
  * that is still alive.
  */
 export function hasLiveJob(db: Knex, queueName: string, keyColumn: string): Knex.Raw {
-  return db.raw(`exists (select 1 from ${JOB_SCHEMA}.job j where j.name = ? and j.singleton_key = (??)::text and j.state < 'completed')`, [queueName, keyColumn]);
+  return db.raw(`exists (select 1 from ${JOB_SCHEMA}.job j where j.name = ? and j.singleton_key = (??)::text and j.state < 'completed')`, [
+    queueName,
+    keyColumn,
+  ]);
 }

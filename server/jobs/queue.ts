@@ -44,14 +44,24 @@ export async function startQueue(config: QueueConfig, logger: Logger): Promise<Q
  * idempotent, so the retry finds its work done.
  */
 function recordOutcomesWithoutCrashing() {
-  const { prototype } = createRequire(import.meta.url)('pg-boss/src/manager.js') as { prototype: Record<string, unknown> & { emit(event: string, err: Error): void } };
+  const { prototype } = createRequire(import.meta.url)('pg-boss/src/manager.js') as {
+    prototype: Record<string, unknown> & { emit(event: string, err: Error): void };
+  };
   if (prototype.crosswattPatched) return;
   prototype.crosswattPatched = true;
-  for (const [method, outcome] of [['complete', 'completed'], ['fail', 'failed']] as const) {
+  for (const [method, outcome] of [
+    ['complete', 'completed'],
+    ['fail', 'failed'],
+  ] as const) {
     const record = prototype[method] as (this: typeof prototype, ...args: unknown[]) => Promise<unknown>;
     prototype[method] = function (this: typeof prototype, ...args: unknown[]) {
       return record.apply(this, args).catch((err: Error) => {
-        this.emit('error', new Error(`could not record a job of ${String(args[0])} as ${outcome} (it expires and is retried): ${err.message}`, { cause: err }));
+        this.emit(
+          'error',
+          new Error(`could not record a job of ${String(args[0])} as ${outcome} (it expires and is retried): ${err.message}`, {
+            cause: err,
+          }),
+        );
       });
     };
   }

@@ -29,7 +29,10 @@ const DEFAULT_STEP_TIMEOUT_MS = 15_000;
 export function createShutdown({
   log = (line: string) => console.log(line),
   exit = (code: number) => process.exit(code),
-}: { log?: (line: string) => void; exit?: (code: number) => void } = {}): Shutdown {
+}: {
+  log?: (line: string) => void;
+  exit?: (code: number) => void;
+} = {}): Shutdown {
   const steps: ShutdownStep[] = [];
   let stopping: Promise<void> | undefined;
 

@@ -5,7 +5,11 @@ const escapeHtml = (s: string) =>
  * A small page of our own for answers a browser navigates to outside the client
  * (a sign-in gone wrong, an unsubscribe link, a rate limit): what happened, and a way on.
  */
-export function messagePage(title: string, message: string, link: { href: string; label: string } = { href: '/', label: 'Back to Crosswatt' }): string {
+export function messagePage(
+  title: string,
+  message: string,
+  link: { href: string; label: string } = { href: '/', label: 'Back to Crosswatt' },
+): string {
   return `<!doctype html>
 <html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${escapeHtml(title)} · Crosswatt</title><link rel="icon" href="data:,">

@@ -47,7 +47,9 @@ export class ObjectStoreError extends Error {
   }
 }
 
-export function createObjectStore(config: Pick<Config, 'S3_ENDPOINT' | 'S3_BUCKET' | 'S3_REGION' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_FORCE_PATH_STYLE'>): ObjectStore {
+export function createObjectStore(
+  config: Pick<Config, 'S3_ENDPOINT' | 'S3_BUCKET' | 'S3_REGION' | 'S3_ACCESS_KEY_ID' | 'S3_SECRET_ACCESS_KEY' | 'S3_FORCE_PATH_STYLE'>,
+): ObjectStore {
   const bucket = config.S3_BUCKET;
   const client = new S3Client({
     endpoint: config.S3_ENDPOINT,
@@ -94,7 +96,9 @@ export function createObjectStore(config: Pick<Config, 'S3_ENDPOINT' | 'S3_BUCKE
     bucket,
     async put(key, body, contentType = 'application/octet-stream') {
       await attempt('write', key, () =>
-        client.send(new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength })),
+        client.send(
+          new PutObjectCommand({ Bucket: bucket, Key: key, Body: body, ContentType: contentType, ContentLength: body.byteLength }),
+        ),
       );
     },
     async get(key) {

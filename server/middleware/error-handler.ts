@@ -3,7 +3,7 @@ import { AppError, NotFoundError } from '../lib/errors';
 import { isBadInputValue } from '../lib/pg-errors';
 
 export const notFound: RequestHandler = (req) => {
-  throw new NotFoundError(`No such endpoint: ${req.method} ${req.originalUrl.split("?")[0]}`);
+  throw new NotFoundError(`No such endpoint: ${req.method} ${req.originalUrl.split('?')[0]}`);
 };
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {

@@ -19,10 +19,18 @@ export const fitUpload: RequestHandler = (req, res, next) => {
       const field = err.field && FIT_FILE_FIELDS.includes(err.field as never) ? err.field : 'files';
       switch (err.code) {
         case 'LIMIT_FILE_SIZE':
-          return next(new PayloadTooLargeError(`${field === 'fileB' ? 'The second file' : 'The first file'} is larger than ${MAX_MB} MB, which no ride recording should be.`));
+          return next(
+            new PayloadTooLargeError(
+              `${field === 'fileB' ? 'The second file' : 'The first file'} is larger than ${MAX_MB} MB, which no ride recording should be.`,
+            ),
+          );
         case 'LIMIT_FILE_COUNT':
         case 'LIMIT_UNEXPECTED_FILE':
-          return next(new ValidationError('Upload exactly two FIT files: the first (A) and the second (B).', { fields: { files: 'exactly two files' } }));
+          return next(
+            new ValidationError('Upload exactly two FIT files: the first (A) and the second (B).', {
+              fields: { files: 'exactly two files' },
+            }),
+          );
         default:
           return next(new ValidationError(`The upload could not be read: ${err.message}.`));
       }

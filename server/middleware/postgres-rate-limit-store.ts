@@ -23,7 +23,10 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const row = await this.db('rate_limit_counters').where({ key: this.prefix + key }).where('reset_at', '>', this.db.fn.now()).first('hits', 'reset_at');
+    const row = await this.db('rate_limit_counters')
+      .where({ key: this.prefix + key })
+      .where('reset_at', '>', this.db.fn.now())
+      .first('hits', 'reset_at');
     return row && { totalHits: row.hits, resetTime: row.reset_at };
   }
 
@@ -41,11 +44,16 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async decrement(key: string): Promise<void> {
-    await this.db('rate_limit_counters').where({ key: this.prefix + key }).where('hits', '>', 0).decrement('hits', 1);
+    await this.db('rate_limit_counters')
+      .where({ key: this.prefix + key })
+      .where('hits', '>', 0)
+      .decrement('hits', 1);
   }
 
   async resetKey(key: string): Promise<void> {
-    await this.db('rate_limit_counters').where({ key: this.prefix + key }).delete();
+    await this.db('rate_limit_counters')
+      .where({ key: this.prefix + key })
+      .delete();
   }
 
   // Windows that ended long ago are deleted by whichever process gets there, at most

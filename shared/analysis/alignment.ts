@@ -72,7 +72,8 @@ export function findClockOffset(a: SecondGrid, b: SecondGrid): ClockOffset {
   for (const candidate of coarse.slice(0, REFINED_CANDIDATES)) {
     for (const lag of range(candidate.lag - block, candidate.lag + block)) if (inSearch(lag)) lags.add(lag);
   }
-  const nearestFirst = (values: Iterable<number>) => [...values].sort((x, y) => Math.abs(x - startDifference) - Math.abs(y - startDifference));
+  const nearestFirst = (values: Iterable<number>) =>
+    [...values].sort((x, y) => Math.abs(x - startDifference) - Math.abs(y - startDifference));
   const powerOnly = bestLag(aSmooth, bSmooth, nearestFirst(lags), MIN_PAIRED_SECONDS);
   // Overlapping spans but not a minute of shared power at any offset: the overlap check names it.
   if (powerOnly === null) return { clockOffsetSeconds: 0, correlation: 0, smoothingWindowSeconds: { a: 1, b: 1 }, outsideWindow: false };
@@ -81,7 +82,13 @@ export function findClockOffset(a: SecondGrid, b: SecondGrid): ClockOffset {
   let best = { lag: powerOnly.lag, r: -Infinity, a: 1, b: 1 };
   for (let window = 1; window <= MAX_HEAD_UNIT_SMOOTHING_SECONDS; window++) {
     // "B averages over `window` s": average A the same way; and the mirror hypothesis.
-    const hypotheses = window === 1 ? [{ a: 1, b: 1 }] : [{ a: 1, b: window }, { a: window, b: 1 }];
+    const hypotheses =
+      window === 1
+        ? [{ a: 1, b: 1 }]
+        : [
+            { a: 1, b: window },
+            { a: window, b: 1 },
+          ];
     for (const hypothesis of hypotheses) {
       const x = hypothesis.b > 1 ? averagedLikeAHeadUnit(a.power, aPower, hypothesis.b) : aPower;
       const y = hypothesis.a > 1 ? averagedLikeAHeadUnit(b.power, bPower, hypothesis.a) : bPower;

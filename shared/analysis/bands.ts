@@ -12,7 +12,13 @@ export function powerBands(a: Float64Array, b: Float64Array, matched: Uint8Array
 }
 
 /** Bias within each cadence band; cadence is the mean of the devices that report it. */
-export function cadenceBands(a: Float64Array, b: Float64Array, matched: Uint8Array, aCadence: Float64Array, bCadence: Float64Array): BandBias[] {
+export function cadenceBands(
+  a: Float64Array,
+  b: Float64Array,
+  matched: Uint8Array,
+  aCadence: Float64Array,
+  bCadence: Float64Array,
+): BandBias[] {
   const key = new Float64Array(a.length);
   for (let i = 0; i < a.length; i++) {
     const x = aCadence[i];

@@ -16,7 +16,8 @@ export function matchedSeconds(a: Float64Array, b: Float64Array, aDropout: Uint8
  */
 export function energySeconds(a: Float64Array, b: Float64Array, aDropout: Uint8Array, bDropout: Uint8Array): Uint8Array {
   const mask = new Uint8Array(a.length);
-  for (let i = 0; i < a.length; i++) if (a[i] === a[i] && b[i] === b[i] && (a[i] > 0 || b[i] > 0) && aDropout[i] === 0 && bDropout[i] === 0) mask[i] = 1;
+  for (let i = 0; i < a.length; i++)
+    if (a[i] === a[i] && b[i] === b[i] && (a[i] > 0 || b[i] > 0) && aDropout[i] === 0 && bDropout[i] === 0) mask[i] = 1;
   return mask;
 }
 

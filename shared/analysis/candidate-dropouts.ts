@@ -19,7 +19,8 @@ export function maskCandidatePowerDropouts(power: Float64Array, cadence: Float64
     if (power[i] > 0) continue;
     let end = i;
     while (end < power.length && !(power[end] > 0)) end++;
-    if (end - i <= MAX_SHORT_SILENCE_SECONDS && ridingNear(power, i - FLANK_SECONDS, i) && ridingNear(power, end, end + FLANK_SECONDS)) masked.fill(NaN, i, end);
+    if (end - i <= MAX_SHORT_SILENCE_SECONDS && ridingNear(power, i - FLANK_SECONDS, i) && ridingNear(power, end, end + FLANK_SECONDS))
+      masked.fill(NaN, i, end);
     i = end;
   }
   return masked;

@@ -36,7 +36,14 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
       `These recordings overlap for only ${formatDuration(overlapSeconds)}; a comparison needs at least ${formatDuration(MIN_OVERLAP_SECONDS)} of riding recorded by both.`,
     );
   }
-  const alignment = { clockOffsetSeconds, outsideWindow, overlapSeconds, correlation, startTime: timeline.start, endTime: timeline.start + timeline.length };
+  const alignment = {
+    clockOffsetSeconds,
+    outsideWindow,
+    overlapSeconds,
+    correlation,
+    startTime: timeline.start,
+    endTime: timeline.start + timeline.length,
+  };
 
   const cadenceLag = findCadenceLag(timeline);
   // A lag the search could not pin down is not removed: shifting by a bound would invent events.
@@ -47,7 +54,11 @@ export function compareRecordings(a: RideStream, b: RideStream, options: Compare
   const usable = energySeconds(comparable.a, comparable.b, aPowerDropout, bPowerDropout);
   const { sumA, sumB, ...bias } = biasOverMatched(comparable.a, comparable.b, usable);
   const drift = differenceDrift(driftBlocks(comparable.a, comparable.b, usable));
-  const naive = biasOverMatched(timeline.aPower, timeline.bPower, energySeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout));
+  const naive = biasOverMatched(
+    timeline.aPower,
+    timeline.bPower,
+    energySeconds(timeline.aPower, timeline.bPower, aPowerDropout, bPowerDropout),
+  );
   const likeForLike = {
     mode: comparable.mode,
     percent: bias.percent,
@@ -131,12 +142,20 @@ function batteryReadings(stream: RideStream, zero: number): BatteryReading[] {
 }
 
 /** Decodes both files and compares them; errors name the file they concern. */
-export function compareFitFiles(aBytes: Uint8Array | ArrayBuffer, bBytes: Uint8Array | ArrayBuffer, options: CompareOptions): ComparisonResult {
+export function compareFitFiles(
+  aBytes: Uint8Array | ArrayBuffer,
+  bBytes: Uint8Array | ArrayBuffer,
+  options: CompareOptions,
+): ComparisonResult {
   const streams = forEachSide({ a: aBytes, b: bBytes }, (bytes) => decodeFit(bytes));
   const result = compareRecordings(streams.a, streams.b, options);
   if (!sameBytes(aBytes, bBytes)) return result;
   const flags = result.flags.filter((flag) => flag.code !== 'identical_streams');
-  flags.unshift({ code: 'identical_files', severity: 'severe', message: 'Both uploads are the same file: a meter cannot be compared with itself.' });
+  flags.unshift({
+    code: 'identical_files',
+    severity: 'severe',
+    message: 'Both uploads are the same file: a meter cannot be compared with itself.',
+  });
   return { ...result, flags };
 }
 

@@ -1,6 +1,13 @@
 import { AnalysisError, formatDuration } from './errors';
 import { FIT_EPOCH_UNIX_SECONDS, readFieldValue, walkFit, type FitDefinition } from './fit-reader';
-import { fitFileTypeName, type FitMetaMessages, collectMetaMessage, FIT_FILE_ACTIVITY, MESG_RECORD, META_MESSAGES } from './fit-meta-messages';
+import {
+  fitFileTypeName,
+  type FitMetaMessages,
+  collectMetaMessage,
+  FIT_FILE_ACTIVITY,
+  MESG_RECORD,
+  META_MESSAGES,
+} from './fit-meta-messages';
 import { deviceInfoFromMessages } from './fit-devices';
 import { MAX_CARRY_SECONDS, MIN_OVERLAP_SECONDS } from './method';
 import type { RecordingStatistics, RideStream } from './types';
@@ -76,7 +83,12 @@ export function readRideStream(bytes: Uint8Array): RideStream {
   assertActivity(meta, recordCount);
 
   const columns = fillRecords(bytes, recordCount, hasTemperature);
-  sortByTime(columns.timestamps, columns.temperatureCelsius ? [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent, columns.temperatureCelsius] : [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent]);
+  sortByTime(
+    columns.timestamps,
+    columns.temperatureCelsius
+      ? [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent, columns.temperatureCelsius]
+      : [columns.powerWatts, columns.cadenceRpm, columns.rightBalancePercent],
+  );
   assertPlausibleTimes(columns.timestamps, meta);
   const { device, powerMeterReports } = deviceInfoFromMessages(meta);
   return { ...columns, device, powerMeterReports, recording: recordingStatistics(columns.timestamps) };
@@ -147,7 +159,10 @@ function assertActivity(meta: FitMetaMessages, recordCount: number): void {
     );
   }
   if (known.length === 0 && recordCount === 0) {
-    throw new AnalysisError('not_activity', 'This file is a FIT file but holds no ride records, so it is not a recorded activity. Export the ride itself (the activity file) from your head unit or app.');
+    throw new AnalysisError(
+      'not_activity',
+      'This file is a FIT file but holds no ride records, so it is not a recorded activity. Export the ride itself (the activity file) from your head unit or app.',
+    );
   }
 }
 
@@ -199,7 +214,10 @@ export function assertRecordingUsable(stream: RideStream): void {
   }
   const duration = stream.recording.endTime - stream.recording.startTime;
   if (duration > MAX_RECORDING_SPAN_SECONDS) {
-    throw new AnalysisError('implausible_timestamps', `This recording spans ${formatSpan(duration)}; no ride lasts more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h.`);
+    throw new AnalysisError(
+      'implausible_timestamps',
+      `This recording spans ${formatSpan(duration)}; no ride lasts more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h.`,
+    );
   }
   if (duration < MIN_OVERLAP_SECONDS) {
     throw new AnalysisError(

@@ -92,7 +92,12 @@ export interface TemperatureBandBias {
 }
 
 /** The ride's bias in each temperature band the head unit recorded, over the same usable seconds as the ride's bias. */
-export function biasByTemperatureBand(a: Float64Array, b: Float64Array, usable: Uint8Array, temperatureCelsius: Float64Array): TemperatureBandBias[] {
+export function biasByTemperatureBand(
+  a: Float64Array,
+  b: Float64Array,
+  usable: Uint8Array,
+  temperatureCelsius: Float64Array,
+): TemperatureBandBias[] {
   const sums = TEMPERATURE_BANDS.map(() => ({ seconds: 0, sumA: 0, sumB: 0 }));
   for (let i = 0; i < a.length; i++) {
     const celsius = temperatureCelsius[i];
@@ -103,7 +108,9 @@ export function biasByTemperatureBand(a: Float64Array, b: Float64Array, usable: 
     sum.sumA += a[i];
     sum.sumB += b[i];
   }
-  return TEMPERATURE_BANDS.map((band, index) => ({ band: band.label, ...sums[index]!, percent: sums[index]!.sumB > 0 ? 100 * (sums[index]!.sumA / sums[index]!.sumB - 1) : null })).filter(
-    (band) => band.seconds > 0,
-  );
+  return TEMPERATURE_BANDS.map((band, index) => ({
+    band: band.label,
+    ...sums[index]!,
+    percent: sums[index]!.sumB > 0 ? 100 * (sums[index]!.sumA / sums[index]!.sumB - 1) : null,
+  })).filter((band) => band.seconds > 0);
 }

@@ -86,18 +86,28 @@ const DEVICE_FIELDS = {
   sourceType: 25,
 } as const;
 
-export function collectMetaMessage(meta: FitMetaMessages, bytes: Uint8Array, definition: FitDefinition, offset: number, fitTime: number): void {
+export function collectMetaMessage(
+  meta: FitMetaMessages,
+  bytes: Uint8Array,
+  definition: FitDefinition,
+  offset: number,
+  fitTime: number,
+): void {
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
   const field = (num: number): number => {
     let value = NaN;
     // The last field of a number wins when a definition repeats one, as in the FIT SDK.
     for (const layout of definition.fields) {
-      if (layout.num === num) value = readFieldValue(bytes, view, offset + layout.offset, layout.size, layout.baseType, definition.littleEndian);
+      if (layout.num === num)
+        value = readFieldValue(bytes, view, offset + layout.offset, layout.size, layout.baseType, definition.littleEndian);
     }
     return value;
   };
   if (meta.devices.length + meta.sessions.length > MAX_META_MESSAGES) {
-    throw new AnalysisError('too_many_records', `This file holds more than ${MAX_META_MESSAGES.toLocaleString('en-GB')} device or session messages; no ride recording has that many.`);
+    throw new AnalysisError(
+      'too_many_records',
+      `This file holds more than ${MAX_META_MESSAGES.toLocaleString('en-GB')} device or session messages; no ride recording has that many.`,
+    );
   }
   switch (definition.globalNumber) {
     case MESG_FILE_ID:

@@ -81,7 +81,14 @@ export function walkFit(bytes: Uint8Array, visit: FitMessageVisitor, visitDefini
 
 function looksLikeHeader(bytes: Uint8Array, at: number): boolean {
   const size = bytes[at];
-  return (size === 12 || size === 14) && at + 12 <= bytes.length && bytes[at + 8] === 0x2e && bytes[at + 9] === 0x46 && bytes[at + 10] === 0x49 && bytes[at + 11] === 0x54;
+  return (
+    (size === 12 || size === 14) &&
+    at + 12 <= bytes.length &&
+    bytes[at + 8] === 0x2e &&
+    bytes[at + 9] === 0x46 &&
+    bytes[at + 10] === 0x49 &&
+    bytes[at + 11] === 0x54
+  );
 }
 
 function isZeroPadding(bytes: Uint8Array, from: number): boolean {
@@ -92,17 +99,24 @@ function isZeroPadding(bytes: Uint8Array, from: number): boolean {
 /** Checks one part's header and CRCs; returns where its data ends (its CRC follows). */
 function checkPart(bytes: Uint8Array, view: DataView, start: number, index: number): number {
   if (!looksLikeHeader(bytes, start)) {
-    throw new AnalysisError('not_fit', 'This file is not a FIT file. Export the original .fit file of the ride from your head unit or app.');
+    throw new AnalysisError(
+      'not_fit',
+      'This file is not a FIT file. Export the original .fit file of the ride from your head unit or app.',
+    );
   }
   const headerSize = bytes[start];
   const dataSize = view.getUint32(start + 4, true);
   const dataEnd = start + headerSize + dataSize;
   const where = index === 0 ? '' : ` (in its part ${index + 1}: the file holds several FIT files back to back)`;
   if (dataSize === 0 && bytes.length > start + headerSize + 2) throw endedEarly(`its header still says it holds no data${where}`);
-  if (dataEnd + 2 > bytes.length) throw endedEarly(`its header promises ${dataSize} bytes of data but only ${Math.max(0, bytes.length - start - headerSize)} follow, and the final checksum is missing${where}`);
+  if (dataEnd + 2 > bytes.length)
+    throw endedEarly(
+      `its header promises ${dataSize} bytes of data but only ${Math.max(0, bytes.length - start - headerSize)} follow, and the final checksum is missing${where}`,
+    );
   if (headerSize === 14) {
     const headerCrc = view.getUint16(start + 12, true);
-    if (headerCrc !== 0 && headerCrc !== crc16Arc(bytes, start, start + 12)) throw damaged(`its header checksum does not match its header${where}`);
+    if (headerCrc !== 0 && headerCrc !== crc16Arc(bytes, start, start + 12))
+      throw damaged(`its header checksum does not match its header${where}`);
   }
   if (view.getUint16(dataEnd, true) !== crc16Arc(bytes, start, dataEnd)) throw damaged(`its checksum does not match its contents${where}`);
   return dataEnd;
@@ -200,7 +214,14 @@ function readDefinition(
  * type, the value is the type's invalid value, or it is not numeric (string).
  * Arrays give their first element, as the FIT SDK's first array entry.
  */
-export function readFieldValue(bytes: Uint8Array, view: DataView, at: number, size: number, baseType: number, littleEndian: boolean): number {
+export function readFieldValue(
+  bytes: Uint8Array,
+  view: DataView,
+  at: number,
+  size: number,
+  baseType: number,
+  littleEndian: boolean,
+): number {
   const width = BASE_TYPE_WIDTH[baseType];
   if (width === undefined || size === 0 || size % width !== 0) return NaN;
   let value: number;
@@ -250,7 +271,10 @@ export function readFieldValue(bytes: Uint8Array, view: DataView, at: number, si
 }
 
 function damaged(reason: string): AnalysisError {
-  return new AnalysisError('damaged_file', `This file is damaged: ${reason}. Try exporting it again from the device or app that recorded it.`);
+  return new AnalysisError(
+    'damaged_file',
+    `This file is damaged: ${reason}. Try exporting it again from the device or app that recorded it.`,
+  );
 }
 
 function endedEarly(reason: string): AnalysisError {

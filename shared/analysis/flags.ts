@@ -37,7 +37,11 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
   const flags: QualityFlag[] = [];
   const { alignment, bias, likeForLike, smoothing } = inputs;
   if (alignment.overlapSeconds < COMFORTABLE_OVERLAP_SECONDS) {
-    flags.push({ code: 'short_overlap', severity: 'warning', message: `The recordings share only ${formatDuration(alignment.overlapSeconds)}; longer rides give firmer numbers.` });
+    flags.push({
+      code: 'short_overlap',
+      severity: 'warning',
+      message: `The recordings share only ${formatDuration(alignment.overlapSeconds)}; longer rides give firmer numbers.`,
+    });
   }
   if (alignment.outsideWindow) {
     flags.push({
@@ -54,29 +58,58 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
     });
   }
   if (alignment.correlation < LOW_CORRELATION) {
-    flags.push({ code: 'low_correlation', severity: 'severe', message: 'The two power traces barely move together: these may not be recordings of the same ride.' });
+    flags.push({
+      code: 'low_correlation',
+      severity: 'severe',
+      message: 'The two power traces barely move together: these may not be recordings of the same ride.',
+    });
   }
   if (bias.percent !== null && Math.abs(bias.percent) > LARGE_BIAS_PERCENT) {
-    flags.push({ code: 'large_bias', severity: 'severe', message: `The meters differ by ${bias.percent.toFixed(1)} %, far beyond what calibrated meters show; check the positions and the zero offset.` });
+    flags.push({
+      code: 'large_bias',
+      severity: 'severe',
+      message: `The meters differ by ${bias.percent.toFixed(1)} %, far beyond what calibrated meters show; check the positions and the zero offset.`,
+    });
   }
   if (inputs.identicalStreams) {
-    flags.push({ code: 'identical_streams', severity: 'severe', message: 'Both recordings carry exactly the same power values: they look like one recording uploaded twice.' });
+    flags.push({
+      code: 'identical_streams',
+      severity: 'severe',
+      message: 'Both recordings carry exactly the same power values: they look like one recording uploaded twice.',
+    });
   }
   for (const side of ['a', 'b'] as const) {
     const grid = inputs.grids[side];
     if (longestRunAbove(grid.power, IMPLAUSIBLE_POWER_WATTS) > IMPLAUSIBLE_POWER_SECONDS) {
-      flags.push({ code: 'implausible_power', severity: 'warning', message: `${DEVICE_NAMES[side]} reports more than ${IMPLAUSIBLE_POWER_WATTS} W for over ${IMPLAUSIBLE_POWER_SECONDS} s, which no rider sustains.` });
+      flags.push({
+        code: 'implausible_power',
+        severity: 'warning',
+        message: `${DEVICE_NAMES[side]} reports more than ${IMPLAUSIBLE_POWER_WATTS} W for over ${IMPLAUSIBLE_POWER_SECONDS} s, which no rider sustains.`,
+      });
     }
     if (longestRunAbove(grid.cadence, IMPLAUSIBLE_CADENCE_RPM) > 0) {
-      flags.push({ code: 'implausible_cadence', severity: 'warning', message: `${DEVICE_NAMES[side]} reports a cadence above ${IMPLAUSIBLE_CADENCE_RPM} rpm.` });
+      flags.push({
+        code: 'implausible_cadence',
+        severity: 'warning',
+        message: `${DEVICE_NAMES[side]} reports a cadence above ${IMPLAUSIBLE_CADENCE_RPM} rpm.`,
+      });
     }
     const gaps = inputs.gaps[side];
     if (gaps.longGapCount > MANY_GAPS || gaps.longGapSeconds > MANY_GAP_FRACTION * gaps.durationSeconds) {
-      flags.push({ code: 'many_gaps', severity: 'warning', message: `${DEVICE_NAMES[side]}'s recording has ${gaps.longGapCount} gaps longer than 5 s (${formatDuration(gaps.longGapSeconds)} in all).` });
+      flags.push({
+        code: 'many_gaps',
+        severity: 'warning',
+        message: `${DEVICE_NAMES[side]}'s recording has ${gaps.longGapCount} gaps longer than 5 s (${formatDuration(gaps.longGapSeconds)} in all).`,
+      });
     }
   }
   const drift = inputs.drift;
-  if (drift && drift.spanHours >= MIN_DRIFT_SPAN_HOURS && Math.abs(drift.percentPerHour) >= STRONG_DRIFT_PERCENT_PER_HOUR && (drift.lower > 0 || drift.upper < 0)) {
+  if (
+    drift &&
+    drift.spanHours >= MIN_DRIFT_SPAN_HOURS &&
+    Math.abs(drift.percentPerHour) >= STRONG_DRIFT_PERCENT_PER_HOUR &&
+    (drift.lower > 0 || drift.upper < 0)
+  ) {
     const direction = drift.percentPerHour > 0 ? 'grows' : 'shrinks';
     flags.push({
       code: 'difference_drift',
@@ -85,7 +118,12 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
     });
   }
   if (likeForLike.mode === 'mixed') {
-    flags.push({ code: 'mixed_comparison', severity: 'warning', message: 'One meter measures a single leg and the other does not measure that leg on its own, so leg imbalance is mixed into the difference.' });
+    flags.push({
+      code: 'mixed_comparison',
+      severity: 'warning',
+      message:
+        'One meter measures a single leg and the other does not measure that leg on its own, so leg imbalance is mixed into the difference.',
+    });
   }
   const windows = smoothing.windowSeconds;
   if (windows && Math.abs(windows.a - windows.b) >= SMOOTHING_WINDOW_MISMATCH_SECONDS) {
@@ -97,11 +135,19 @@ export function qualityFlags(inputs: FlagInputs): QualityFlag[] {
     });
   } else if (smoothing.ratio !== null && (smoothing.ratio > SMOOTHING_MISMATCH_RATIO || smoothing.ratio < 1 / SMOOTHING_MISMATCH_RATIO)) {
     const smoother = smoothing.ratio < 1 ? DEVICE_NAMES.a : DEVICE_NAMES.b;
-    flags.push({ code: 'smoothing_mismatch', severity: 'warning', message: `${smoother}'s recording looks much smoother than the other's; head units that average power blur short efforts.` });
+    flags.push({
+      code: 'smoothing_mismatch',
+      severity: 'warning',
+      message: `${smoother}'s recording looks much smoother than the other's; head units that average power blur short efforts.`,
+    });
   }
   if (likeForLike.expectedDrivetrainPercent !== null) {
     const after = likeForLike.expectedDrivetrainPercent < 0 ? DEVICE_NAMES.a : DEVICE_NAMES.b;
-    flags.push({ code: 'drivetrain_loss', severity: 'info', message: `${after} measures after the drivetrain, which takes about 2 % (±1.5 %) before the rear wheel; the bias is reported as measured.` });
+    flags.push({
+      code: 'drivetrain_loss',
+      severity: 'info',
+      message: `${after} measures after the drivetrain, which takes about 2 % (±1.5 %) before the rear wheel; the bias is reported as measured.`,
+    });
   }
   return flags;
 }

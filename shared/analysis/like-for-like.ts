@@ -34,10 +34,22 @@ export function comparablePower(timeline: SharedTimeline, options: CompareOption
   const aSingle = aPosition === 'left' || aPosition === 'right';
   const bSingle = bPosition === 'left' || bPosition === 'right';
   if (aSingle && bPosition === 'dual' && hasBalance(timeline.bRightBalance)) {
-    return { mode: 'via_balance', leg: aPosition, a: timeline.aPower, b: doubledLeg(timeline.bPower, timeline.bRightBalance, aPosition), expectedDrivetrainPercent };
+    return {
+      mode: 'via_balance',
+      leg: aPosition,
+      a: timeline.aPower,
+      b: doubledLeg(timeline.bPower, timeline.bRightBalance, aPosition),
+      expectedDrivetrainPercent,
+    };
   }
   if (bSingle && aPosition === 'dual' && hasBalance(timeline.aRightBalance)) {
-    return { mode: 'via_balance', leg: bPosition, a: doubledLeg(timeline.aPower, timeline.aRightBalance, bPosition), b: timeline.bPower, expectedDrivetrainPercent };
+    return {
+      mode: 'via_balance',
+      leg: bPosition,
+      a: doubledLeg(timeline.aPower, timeline.aRightBalance, bPosition),
+      b: timeline.bPower,
+      expectedDrivetrainPercent,
+    };
   }
   return { mode: 'mixed', leg: null, ...direct };
 }

@@ -80,7 +80,8 @@ const SIDE_NAME: Record<Side, string> = { a: 'Device A', b: 'Device B' };
 /** The quality flag a disagreement raises on the server (method version 2): code tag_mismatch, severe for firmware. */
 export function tagMismatchFlags(side: Side, check: TagCheck): QualityFlag[] {
   return check.disagreements.map((d) => {
-    const what = d.field === 'firmware' ? 'power meter firmware' : d.field === 'recording_device' ? 'recording device' : 'recording device firmware';
+    const what =
+      d.field === 'firmware' ? 'power meter firmware' : d.field === 'recording_device' ? 'recording device' : 'recording device firmware';
     return {
       code: d.field === 'firmware' ? 'firmware_tag_mismatch' : 'device_tag_mismatch',
       // A wrong firmware tag moves the ride into another version's figures; a wrong head unit only blurs the smoothing and dropout context.
@@ -120,6 +121,10 @@ export function formatVersion(version: number): string {
 }
 
 function sameName(a: string, b: string): boolean {
-  const norm = (s: string) => s.toLowerCase().replace(/[^a-z0-9]+/g, ' ').trim();
+  const norm = (s: string) =>
+    s
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, ' ')
+      .trim();
   return norm(a) === norm(b);
 }

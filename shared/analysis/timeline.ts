@@ -20,7 +20,10 @@ export function toSecondGrid(stream: RideStream): SecondGrid {
   const length = stream.timestamps.length === 0 ? 0 : Math.floor(stream.recording.endTime) - start + 1;
   // The decoder refuses such recordings; this guards every other way a stream arrives.
   if (!(length <= MAX_RECORDING_SPAN_SECONDS + 1)) {
-    throw new AnalysisError('implausible_timestamps', `This recording spans more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h, which no ride does; some of its records carry a wrong time.`);
+    throw new AnalysisError(
+      'implausible_timestamps',
+      `This recording spans more than ${MAX_RECORDING_SPAN_SECONDS / 3600} h, which no ride does; some of its records carry a wrong time.`,
+    );
   }
   return {
     start,

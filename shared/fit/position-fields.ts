@@ -25,8 +25,20 @@ export function isPositionField(globalMessageNumber: number, fieldNumber: number
 // Words that make a developer field a position ("position_lat", "Latitude",
 // "gpsLong", "location", "gps_position"): the name is split on case changes and non-letters.
 const POSITION_WORDS = new Set([
-  'lat', 'latitude', 'lon', 'lng', 'long', 'longitude',
-  'coord', 'coords', 'coordinate', 'coordinates', 'location', 'geolocation', 'geo', 'geohash',
+  'lat',
+  'latitude',
+  'lon',
+  'lng',
+  'long',
+  'longitude',
+  'coord',
+  'coords',
+  'coordinate',
+  'coordinates',
+  'location',
+  'geolocation',
+  'geo',
+  'geohash',
 ]);
 
 /**

@@ -50,17 +50,22 @@ export type CreateBatteryEventInput = z.infer<typeof createBatteryEventInput>;
 export const MAX_SELF_REPORTED_HOURS = 1000;
 export const addRidingInput = z.object({
   riddenOn: day.refine(notInTheFuture, 'not a day in the future'),
-  hours: z.number({ message: 'hours as a number' }).positive('more than 0 hours').max(MAX_SELF_REPORTED_HOURS, `at most ${MAX_SELF_REPORTED_HOURS} hours at once`),
+  hours: z
+    .number({ message: 'hours as a number' })
+    .positive('more than 0 hours')
+    .max(MAX_SELF_REPORTED_HOURS, `at most ${MAX_SELF_REPORTED_HOURS} hours at once`),
 });
 export type AddRidingInput = z.infer<typeof addRidingInput>;
 
-export const batteryClaimInput = z.object({
-  hours: z.number({ message: 'hours as a number' }).positive('more than 0 hours').max(100_000, 'at most 100,000 hours').nullable(),
-  source: singleLineText().pipe(z.string().trim().max(300, 'at most 300 characters')).nullable(),
-}).refine((claim) => (claim.hours === null) === (claim.source === null || claim.source === ''), {
-  message: 'a claim needs its source (where the maker says it), and a source needs its hours',
-  path: ['source'],
-});
+export const batteryClaimInput = z
+  .object({
+    hours: z.number({ message: 'hours as a number' }).positive('more than 0 hours').max(100_000, 'at most 100,000 hours').nullable(),
+    source: singleLineText().pipe(z.string().trim().max(300, 'at most 300 characters')).nullable(),
+  })
+  .refine((claim) => (claim.hours === null) === (claim.source === null || claim.source === ''), {
+    message: 'a claim needs its source (where the maker says it), and a source needs its hours',
+    path: ['source'],
+  });
 export type BatteryClaimInput = z.infer<typeof batteryClaimInput>;
 
 // ——— responses ———

@@ -18,7 +18,11 @@ export function multiLineText() {
 
 // JSON sends numbers; forms, query strings and multipart fields send digits as text.
 // Anything else (true, [], "") is refused rather than coerced (true would read as 1).
-const digits = z.string().trim().regex(/^-?\d+$/).transform(Number);
+const digits = z
+  .string()
+  .trim()
+  .regex(/^-?\d+$/)
+  .transform(Number);
 
 /** A whole number from JSON or from a query string/form field. */
 export function wholeNumber(message = 'a whole number') {

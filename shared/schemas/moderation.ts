@@ -74,7 +74,11 @@ export const correctTagsInput = z
 export type CorrectTagsInput = z.infer<typeof correctTagsInput>;
 
 export const reviewQueueQuery = z.object({
-  flag: z.string().trim().regex(/^[a-z_]{1,40}$/, 'a flag code like low_correlation').optional(),
+  flag: z
+    .string()
+    .trim()
+    .regex(/^[a-z_]{1,40}$/, 'a flag code like low_correlation')
+    .optional(),
   maker: idNumber().optional(),
   model: idNumber().optional(),
   /** Only submissions waiting at least this many days. */

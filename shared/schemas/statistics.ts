@@ -8,7 +8,18 @@ import type { VerdictKind } from './battery';
 // The shoppers' statistics: query parameters (validated at the edge and kept in the
 // scoreboard's URL) and the figures the JSON endpoints return.
 
-export const SCOREBOARD_SORTS = ['name', 'maker', 'evidence', 'riders', 'hours', 'bias', 'abs_bias', 'scatter', 'dropouts', 'cadence_lag'] as const;
+export const SCOREBOARD_SORTS = [
+  'name',
+  'maker',
+  'evidence',
+  'riders',
+  'hours',
+  'bias',
+  'abs_bias',
+  'scatter',
+  'dropouts',
+  'cadence_lag',
+] as const;
 export type ScoreboardSort = (typeof SCOREBOARD_SORTS)[number];
 
 const optionalText = (max: number) =>
@@ -128,7 +139,13 @@ export interface FirmwareComparison {
   powerDropoutRatio: (RateRatioFigure & ComparisonJudgement) | null;
   /** Rider-level mean bias of `to` minus `from`, Welch's t-test on the two rider-level means. */
   biasDifference:
-    | ({ differencePercent: number; lowerPercent: number; upperPercent: number; pValue: number; degreesOfFreedom: number } & ComparisonJudgement)
+    | ({
+        differencePercent: number;
+        lowerPercent: number;
+        upperPercent: number;
+        pValue: number;
+        degreesOfFreedom: number;
+      } & ComparisonJudgement)
     | null;
   /** The step in one word: worse when either measure is worse, better when one is better and none worse. */
   verdict: VerdictKind;

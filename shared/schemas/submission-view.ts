@@ -91,7 +91,12 @@ export const rideComparisonView = z.object({
   // Absent on rides analysed before they were computed.
   drift: z.object({ percentPerHour: num, lower: num, upper: num, wattsPerHour: num, blocks: num, spanHours: num }).nullable().optional(),
   temperature: z
-    .object({ minCelsius: num, maxCelsius: num, meanCelsius: num, bands: z.array(z.object({ band: z.string(), seconds: num, percent: maybe })) })
+    .object({
+      minCelsius: num,
+      maxCelsius: num,
+      meanCelsius: num,
+      bands: z.array(z.object({ band: z.string(), seconds: num, percent: maybe })),
+    })
     .nullable()
     .optional(),
   battery: z.object({ a: z.array(batteryReading), b: z.array(batteryReading) }).optional(),

@@ -25,10 +25,7 @@ const threadTitle = singleLineText()
   .min(8, 'at least 8 characters: say what you see')
   .max(THREAD_TITLE_MAX, `at most ${THREAD_TITLE_MAX} characters`);
 
-const postBody = multiLineText()
-  .trim()
-  .min(2, 'write at least a few words')
-  .max(POST_BODY_MAX, `at most ${POST_BODY_MAX} characters`);
+const postBody = multiLineText().trim().min(2, 'write at least a few words').max(POST_BODY_MAX, `at most ${POST_BODY_MAX} characters`);
 
 const id = idNumber();
 
@@ -90,10 +87,7 @@ export const threadListQuery = z.object({
 });
 export type ThreadListQuery = z.infer<typeof threadListQuery>;
 
-export const markNotificationsReadInput = z.union([
-  z.object({ all: z.literal(true) }),
-  z.object({ ids: z.array(id).min(1).max(200) }),
-]);
+export const markNotificationsReadInput = z.union([z.object({ all: z.literal(true) }), z.object({ ids: z.array(id).min(1).max(200) })]);
 export type MarkNotificationsReadInput = z.infer<typeof markNotificationsReadInput>;
 
 // ——— answers ———

@@ -41,7 +41,9 @@ export function simulateBatteryCrowd(seed: number, options: BatteryCrowdOptions)
  * uncensored lives: with a rider effect it is not exactly `medianHours`.
  */
 export function trueCrowdMedian(options: BatteryCrowdOptions, draws = 200_000): number {
-  const lives = simulateBatteryCrowd(987_654, { ...options, riders: draws, batteriesPerRider: 1, stillRunningShare: 0 }).map((s) => s.hours);
+  const lives = simulateBatteryCrowd(987_654, { ...options, riders: draws, batteriesPerRider: 1, stillRunningShare: 0 }).map(
+    (s) => s.hours,
+  );
   lives.sort((x, y) => x - y);
   return lives[Math.floor(draws / 2)]!;
 }

@@ -120,7 +120,12 @@ export function activityMessages(recording: MeterRecording, device: DeviceIdenti
         power: recording.power[i],
         cadence: recording.cadence[i],
         leftRightBalance: balance === undefined || balance === INVALID_BALANCE ? undefined : balance,
-        temperature: options.temperature && Math.round(options.temperature.startCelsius + ((options.temperature.changePerHour ?? 0) * (recording.timestamps[i] - recording.timestamps[0])) / 3600),
+        temperature:
+          options.temperature &&
+          Math.round(
+            options.temperature.startCelsius +
+              ((options.temperature.changePerHour ?? 0) * (recording.timestamps[i] - recording.timestamps[0])) / 3600,
+          ),
       },
     ]);
     for (const report of batteryAt(options, i, count)) {

@@ -109,7 +109,8 @@ function planSegments(profile: RideProfile, durationSeconds: number, random: Ran
     while (elapsed < mainEnd) {
       const roll = random.next();
       if (roll < 0.35) add({ kind: 'steady', seconds: random.integer(60, 300), from: 0.7, to: 0.7, cadence: random.uniform(86, 96) });
-      else if (roll < 0.55) add({ kind: 'surge', seconds: random.integer(15, 90), from: random.uniform(1.2, 1.7), to: 1.1, cadence: random.uniform(95, 105) });
+      else if (roll < 0.55)
+        add({ kind: 'surge', seconds: random.integer(15, 90), from: random.uniform(1.2, 1.7), to: 1.1, cadence: random.uniform(95, 105) });
       else if (roll < 0.8) coast(5, 25);
       else if (roll < 0.9) sprint();
       else add({ kind: 'climb', seconds: random.integer(120, 420), from: 0.95, to: 1.05, cadence: random.uniform(72, 82) });

@@ -34,13 +34,25 @@ export interface SimulatedRide {
 }
 
 export function simulateStatisticsCrowd(seed: number, options: StatisticsCrowdOptions): SimulatedRide[] {
-  const { rides, biasPercent, riderSdPercent, rideSdPercent, maxRidesPerRider, dropoutsPerHour, dropoutShape, mixedShare = 0, mixedExtraPercent = 0, firstRiderId = 1 } =
-    options;
+  const {
+    rides,
+    biasPercent,
+    riderSdPercent,
+    rideSdPercent,
+    maxRidesPerRider,
+    dropoutsPerHour,
+    dropoutShape,
+    mixedShare = 0,
+    mixedExtraPercent = 0,
+    firstRiderId = 1,
+  } = options;
   const random = createRandom(seed);
   const out: SimulatedRide[] = [];
   for (let riderId = firstRiderId; out.length < rides; riderId++) {
     const riderBias = biasPercent + riderSdPercent * random.normal();
-    const riderRate = Number.isFinite(dropoutShape) ? gammaDeviate(random, dropoutShape) * (dropoutsPerHour / dropoutShape) : dropoutsPerHour;
+    const riderRate = Number.isFinite(dropoutShape)
+      ? gammaDeviate(random, dropoutShape) * (dropoutsPerHour / dropoutShape)
+      : dropoutsPerHour;
     const count = Math.min(random.integer(1, maxRidesPerRider), rides - out.length);
     for (let i = 0; i < count; i++) {
       const pedallingHours = random.uniform(0.5, 3);

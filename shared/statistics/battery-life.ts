@@ -1,4 +1,10 @@
-import type { BatteryComparison, BatteryLifeFigure, FirmwareBatteryLife, PreviousBatteryEnding, TemperatureBandFigure } from '../schemas/battery';
+import type {
+  BatteryComparison,
+  BatteryLifeFigure,
+  FirmwareBatteryLife,
+  PreviousBatteryEnding,
+  TemperatureBandFigure,
+} from '../schemas/battery';
 import { createRandom } from '../simulator/random';
 import { studentTQuantile } from './distributions';
 import { holmAdjust } from './multiple-comparisons';
@@ -89,7 +95,8 @@ export function batteryLife(spans: BatterySpan[], seed = 1): BatteryLifeFigure {
     if (median === null || median <= 0) unbounded++;
     else logMedians.push(Math.log(median));
   }
-  if (medianHours === null || medianHours <= 0 || logMedians.length < 2) return { ...base, medianHours, lowerHours: null, upperHours: null };
+  if (medianHours === null || medianHours <= 0 || logMedians.length < 2)
+    return { ...base, medianHours, lowerHours: null, upperHours: null };
   const mean = logMedians.reduce((s, v) => s + v, 0) / logMedians.length;
   const sd = Math.sqrt(logMedians.reduce((s, v) => s + (v - mean) ** 2, 0) / (logMedians.length - 1));
   const half = studentTQuantile(0.975, riders - 1) * sd * Math.sqrt(riders / (riders - 1));
@@ -107,7 +114,9 @@ export function batteryLife(spans: BatterySpan[], seed = 1): BatteryLifeFigure {
  * over the model's steps, with its verdict in words.
  */
 export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: number; version: string }[]): FirmwareBatteryLife[] {
-  const lives = firmware.map((f) => ({ f, spans: spans.filter((s) => s.firmwareId === f.id) })).map(({ f, spans: own }) => ({ f, own, life: batteryLife(own, f.id) }));
+  const lives = firmware
+    .map((f) => ({ f, spans: spans.filter((s) => s.firmwareId === f.id) }))
+    .map(({ f, spans: own }) => ({ f, own, life: batteryLife(own, f.id) }));
   const tests = lives.map((current, i) => {
     const previous = lives[i - 1];
     if (!previous?.life.enough || !current.life.enough) return null;
@@ -123,7 +132,11 @@ export function batteryLifeByFirmware(spans: BatterySpan[], firmware: { id: numb
     if (!previous) return { version: current.f.version, life: current.life, againstPredecessor: null };
     const test = tests[i];
     // The newer version's score O − E > 0: its batteries run flat sooner than the older's.
-    const verdict = comparisonVerdict({ enough: test !== null, adjustedPValue: adjusted[i] ?? null, newerIsBetter: (test?.score ?? 0) < 0 });
+    const verdict = comparisonVerdict({
+      enough: test !== null,
+      adjustedPValue: adjusted[i] ?? null,
+      newerIsBetter: (test?.score ?? 0) < 0,
+    });
     const againstPredecessor: BatteryComparison = {
       from: previous.f.version,
       verdict,

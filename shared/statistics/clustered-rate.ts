@@ -95,12 +95,19 @@ export function clusteredRateRatio(a: ClusteredRateSums, b: ClusteredRateSums, c
   if (!logA || !logB) return { ...exact, method: 'poisson_exact' };
   const variance = logA.variance + logB.variance;
   if (!(variance > 0)) return { ...exact, method: 'poisson_exact' };
-  const degreesOfFreedom = (variance * variance) / (logA.variance ** 2 / logA.degreesOfFreedom + logB.variance ** 2 / logB.degreesOfFreedom);
+  const degreesOfFreedom =
+    (variance * variance) / (logA.variance ** 2 / logA.degreesOfFreedom + logB.variance ** 2 / logB.degreesOfFreedom);
   const logRatio = logA.logRate - logB.logRate;
   const halfWidth = studentTQuantile(1 - (1 - confidence) / 2, degreesOfFreedom) * Math.sqrt(variance);
   const lower = Math.exp(logRatio - halfWidth);
   const upper = Math.exp(logRatio + halfWidth);
   const pValue = studentTTwoSidedP(logRatio / Math.sqrt(variance), degreesOfFreedom);
   if (lower >= exact.lower && upper <= exact.upper && pValue <= exact.pValue) return { ...exact, method: 'poisson_exact' };
-  return { ratio: exact.ratio, lower: Math.min(lower, exact.lower), upper: Math.max(upper, exact.upper), pValue: Math.max(pValue, exact.pValue), method: 'rider_clustered' };
+  return {
+    ratio: exact.ratio,
+    lower: Math.min(lower, exact.lower),
+    upper: Math.max(upper, exact.upper),
+    pValue: Math.max(pValue, exact.pValue),
+    method: 'rider_clustered',
+  };
 }

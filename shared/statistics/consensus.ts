@@ -60,10 +60,7 @@ export interface ConsensusFit<Id extends string | number> {
  * (Standard constrained least squares; see e.g. Seber & Lee, Linear Regression
  * Analysis, 2nd ed., 2003, §3.8.) Cost is cubic in a component's size.
  */
-export function fitConsensusOffsets<Id extends string | number>(
-  edges: ConsensusEdge<Id>[],
-  confidence = 0.95,
-): ConsensusFit<Id> {
+export function fitConsensusOffsets<Id extends string | number>(edges: ConsensusEdge<Id>[], confidence = 0.95): ConsensusFit<Id> {
   // A combination compared with itself says nothing about its offset.
   const usable = edges.filter((edge) => edge.a !== edge.b);
   for (const edge of usable) {

@@ -114,8 +114,7 @@ export function gammaQuantile(p: number, a: number): number {
   if (p === 1) return Infinity;
   const logDensity = (x: number) => (a - 1) * Math.log(x) - x - gammaln(a);
   // Solve on whichever tail is the smaller probability: 1 − p loses digits near 1.
-  const excess =
-    p <= 0.5 ? (x: number) => regularizedGammaP(a, x) - p : (x: number) => 1 - p - regularizedGammaQ(a, x);
+  const excess = p <= 0.5 ? (x: number) => regularizedGammaP(a, x) - p : (x: number) => 1 - p - regularizedGammaQ(a, x);
   return solveIncreasing(excess, (x) => Math.exp(logDensity(x)), 0, Infinity, wilsonHilfertyStart(p, a));
 }
 
@@ -206,13 +205,7 @@ function wilsonHilfertyStart(p: number, a: number): number {
  * a shrinking bracket, falling back to bisection (or doubling while the upper end
  * is open) whenever a step would leave it.
  */
-function solveIncreasing(
-  f: (x: number) => number,
-  derivative: (x: number) => number,
-  lower: number,
-  upper: number,
-  start: number,
-): number {
+function solveIncreasing(f: (x: number) => number, derivative: (x: number) => number, lower: number, upper: number, start: number): number {
   let low = lower;
   let high = upper;
   let x = start > low && start < high ? start : Number.isFinite(high) ? (low + high) / 2 : low + 1;

@@ -53,7 +53,15 @@ export function kaplanMeier(observations: SurvivalObservation[], confidence = 0.
     if (events > 0) {
       survival *= 1 - events / atRisk;
       greenwood += atRisk > events ? events / (atRisk * (atRisk - events)) : Number.POSITIVE_INFINITY;
-      steps.push({ time, atRisk, events, censored, survival, standardErrorOfLog: Math.sqrt(greenwood), ...logLogBand(survival, Math.sqrt(greenwood), z) });
+      steps.push({
+        time,
+        atRisk,
+        events,
+        censored,
+        survival,
+        standardErrorOfLog: Math.sqrt(greenwood),
+        ...logLogBand(survival, Math.sqrt(greenwood), z),
+      });
     } else if (steps.length > 0) {
       const last = steps[steps.length - 1]!;
       steps.push({ ...last, time, atRisk, events: 0, censored });
@@ -189,5 +197,12 @@ export function clusteredLogRankTest(first: ClusteredObservation[], second: Clus
   const chiSquare = robustVariance > 0 ? (score * score) / robustVariance : 0;
   const g = byCluster.size;
   const smallSamplePValue = robustVariance > 0 && g > 1 ? studentTTwoSidedP(Math.sqrt(chiSquare * ((g - 1) / g)), g - 1) : 1;
-  return { score, robustVariance, chiSquare, pValue: robustVariance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1, smallSamplePValue, clusters: g };
+  return {
+    score,
+    robustVariance,
+    chiSquare,
+    pValue: robustVariance > 0 ? 1 - chiSquareCdf(chiSquare, 1) : 1,
+    smallSamplePValue,
+    clusters: g,
+  };
 }

@@ -8,7 +8,15 @@ export const VERDICT_SIGNIFICANCE = 0.05;
  * measure: not enough evidence, no clear difference, or better/worse when the adjusted
  * p-value is below 5 %.
  */
-export function comparisonVerdict({ enough, adjustedPValue, newerIsBetter }: { enough: boolean; adjustedPValue: number | null; newerIsBetter: boolean }): VerdictKind {
+export function comparisonVerdict({
+  enough,
+  adjustedPValue,
+  newerIsBetter,
+}: {
+  enough: boolean;
+  adjustedPValue: number | null;
+  newerIsBetter: boolean;
+}): VerdictKind {
   if (!enough || adjustedPValue === null) return 'not_enough';
   if (adjustedPValue >= VERDICT_SIGNIFICANCE) return 'no_clear_difference';
   return newerIsBetter ? 'better' : 'worse';

@@ -36,6 +36,8 @@ describe('the copied section line', () => {
       { a: 'Spindle S2', b: 'Pedal P1' },
     );
 
-    expect(text).toBe('0:00–10:00 (598 s matched): Spindle S2 233 W against Pedal P1 232 W, difference +1.1 W (+0.5 %); peaks 612 W and 605 W.');
+    expect(text).toBe(
+      '0:00–10:00 (598 s matched): Spindle S2 233 W against Pedal P1 232 W, difference +1.1 W (+0.5 %); peaks 612 W and 605 W.',
+    );
   });
 });

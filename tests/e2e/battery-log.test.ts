@@ -59,7 +59,9 @@ describe('a rider logs a meter and its batteries, and a shopper reads the model 
 
     const section = page.getByTestId('battery-and-temperature');
     await section.waitFor();
-    expect(await section.getByTestId('battery-median').textContent()).toMatch(/Not enough batteries yet: a figure needs 5 batteries from 3 riders/);
+    expect(await section.getByTestId('battery-median').textContent()).toMatch(
+      /Not enough batteries yet: a figure needs 5 batteries from 3 riders/,
+    );
     expect(await section.textContent()).toMatch(/1 battery of 1 rider, 1 ran flat/);
     expect(await section.getByTestId('battery-claim').textContent()).toBe('No claim from the maker entered yet.');
     await section.scrollIntoViewIfNeeded();

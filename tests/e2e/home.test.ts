@@ -32,7 +32,7 @@ describe('home page in the browser', () => {
     await expect(page.getByRole('heading', { name: 'This page dropped out' }).isVisible()).resolves.toBe(true);
   });
 
-  it('when a page\'s chunk is gone after a deploy, then our own page offers a reload, and each page has its own title', async () => {
+  it("when a page's chunk is gone after a deploy, then our own page offers a reload, and each page has its own title", async () => {
     const page = await e2e.browser.newPage();
     await page.goto(e2e.baseUrl);
     await page.getByRole('heading', { level: 1 }).waitFor();

@@ -21,14 +21,19 @@ describe("a maker's staff member answers a thread in the browser", () => {
     await ensureDemoIdentity(e2e.db, { handle: staffHandle, name: 'Ilse Staffmember', makerSlug: catalogue.maker.slug });
     const reporter = await ensureDemoIdentity(e2e.db, { handle: 'cold-morning-rider', name: 'Cold Morning Rider' });
     const follower = await ensureDemoIdentity(e2e.db, { handle: 'second-rider', name: 'Second Rider' });
-    threadId = (await createThread(deps, reporter, catalogue.spider.slug, {
-      title: TITLE,
-      firmwareId: catalogue.spiderFirmware.id,
-      body: 'Below 5 °C the **Orbit** reads about 4 % above my trainer until it warms up.\n\n- zero offset done\n- same on two rides',
-    })).id;
+    threadId = (
+      await createThread(deps, reporter, catalogue.spider.slug, {
+        title: TITLE,
+        firmwareId: catalogue.spiderFirmware.id,
+        body: 'Below 5 °C the **Orbit** reads about 4 % above my trainer until it warms up.\n\n- zero offset done\n- same on two rides',
+      })
+    ).id;
     await replyToThread(deps, follower, threadId, { body: 'Same here, and it settles after about 20 minutes.' });
     // A hostile title on the same model: the list must show it as text.
-    await createThread(deps, follower, catalogue.spider.slug, { title: '<img src=x onerror=alert(1)> <b>bold</b> claim', body: 'Testing titles.' });
+    await createThread(deps, follower, catalogue.spider.slug, {
+      title: '<img src=x onerror=alert(1)> <b>bold</b> claim',
+      body: 'Testing titles.',
+    });
   });
 
   it('when staff reply, mark the reply official and set the status, then the thread, the model threads and the follower see it, and the follower is e-mailed', async () => {
@@ -36,7 +41,9 @@ describe("a maker's staff member answers a thread in the browser", () => {
     const errors = watchConsole(page);
     await page.getByRole('heading', { name: TITLE }).waitFor();
 
-    await page.getByLabel(`Reply as ${catalogue.maker.name} staff`).fill('We reproduced this: the temperature compensation starts too late. **Firmware 2.2** will correct it.');
+    await page
+      .getByLabel(`Reply as ${catalogue.maker.name} staff`)
+      .fill('We reproduced this: the temperature compensation starts too late. **Firmware 2.2** will correct it.');
     await page.getByRole('button', { name: 'Post reply' }).click();
     const staffPost = page.getByRole('article', { name: 'Post by Ilse Staffmember' });
     await staffPost.getByTestId('maker-staff-badge').waitFor();
@@ -74,7 +81,11 @@ describe("a maker's staff member answers a thread in the browser", () => {
 
     // The follower: an e-mail in the fake SMTP service's outbox, and the bell in the header.
     const mail = await waitFor(async () =>
-      e2e.db('mail_outbox').whereRaw('? = any(recipients)', ['second-rider@demo.crosswatt.test']).where('subject', `${catalogue.maker.name} answered: ${TITLE}`).first(),
+      e2e
+        .db('mail_outbox')
+        .whereRaw('? = any(recipients)', ['second-rider@demo.crosswatt.test'])
+        .where('subject', `${catalogue.maker.name} answered: ${TITLE}`)
+        .first(),
     );
     expect(mail.text_body).toContain('temperature compensation starts too late');
     expect(mail.text_body).toContain(`/threads/${threadId}#post-`);
@@ -82,7 +93,10 @@ describe("a maker's staff member answers a thread in the browser", () => {
     await followerPage.getByRole('heading', { name: TITLE }).waitFor();
     const bell = followerPage.getByRole('button', { name: /^Notifications, \d+ unread$/ });
     await bell.click();
-    await followerPage.getByRole('region', { name: 'Notifications' }).getByText(/gave the official response/).waitFor();
+    await followerPage
+      .getByRole('region', { name: 'Notifications' })
+      .getByText(/gave the official response/)
+      .waitFor();
     await saveScreenshot(followerPage, 'maker-journey-follower-bell');
   });
 });

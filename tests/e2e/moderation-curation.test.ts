@@ -17,14 +17,25 @@ describe('catalogue curation in the browser', () => {
 
   beforeAll(async () => {
     catalogue = await createCatalogue(e2e.db);
-    newer = await insertFirmware(e2e.db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
+    newer = await insertFirmware(e2e.db, {
+      modelId: catalogue.spider.id,
+      version: '2.2.0',
+      versionOrder: versionOrder('2.2.0'),
+      releasedOn: '2026-05-01',
+      status: 'approved',
+    });
     const riders = [await insertRider(e2e.db), await insertRider(e2e.db)];
     // Two rides on each spider firmware, against the pedals.
     for (const [i, firmwareId] of [catalogue.spiderFirmware.id, catalogue.spiderFirmware.id, newer.id, newer.id].entries()) {
       const id = await insertAnalysedSubmission(e2e.db, {
         riderId: riders[i % 2],
         a: { modelId: catalogue.spider.id, firmwareId, recordingDeviceId: catalogue.headUnit.id },
-        b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+        b: {
+          modelId: catalogue.pedals.id,
+          firmwareId: catalogue.pedalsFirmware.id,
+          recordingDeviceId: catalogue.headUnit.id,
+          position: 'dual',
+        },
         biasPercent: 1 + i / 2,
         pedallingHours: 1.5,
       });
@@ -44,10 +55,15 @@ describe('catalogue curation in the browser', () => {
 
     // Pin a note.
     await openTool(moderator, 'Pinned note');
-    await tools.getByLabel('Note shown to everyone on this model page').fill('The maker replaced the spider arms in spring 2026; rides before then used the first arms.');
+    await tools
+      .getByLabel('Note shown to everyone on this model page')
+      .fill('The maker replaced the spider arms in spring 2026; rides before then used the first arms.');
     await tools.getByRole('button', { name: 'Pin the note' }).click();
     await tools.getByText('The note is pinned.').waitFor();
-    await moderator.getByRole('complementary').getByText(/replaced the spider arms/).waitFor();
+    await moderator
+      .getByRole('complementary')
+      .getByText(/replaced the spider arms/)
+      .waitFor();
 
     // A rename that clashes with a sibling shows the server's conflict message.
     await openTool(moderator, 'Rename');
@@ -57,7 +73,9 @@ describe('catalogue curation in the browser', () => {
 
     // Hide it from the scoreboard.
     await openTool(moderator, 'Scoreboard');
-    await tools.getByLabel('Why it leaves the scoreboard (shown on its page)').fill('Its submissions are being checked for a mixed-up firmware tag.');
+    await tools
+      .getByLabel('Why it leaves the scoreboard (shown on its page)')
+      .fill('Its submissions are being checked for a mixed-up firmware tag.');
     await tools.getByRole('button', { name: 'Hide from the scoreboard' }).click();
     await moderator.getByText('Left off the scoreboard by the moderators: Its submissions are being checked').waitFor();
     await tools.getByRole('button', { name: 'Show it on the scoreboard again' }).waitFor();
@@ -97,9 +115,14 @@ describe('catalogue curation in the browser', () => {
     await openTool(moderator, 'Merge into another version');
     await tools.getByLabel('Search: The Orbit version to keep').fill('2.2');
     await tools.getByRole('radio', { name: /2\.2\.0/ }).check();
-    await tools.getByLabel('Why they are the same (kept in the audit log)').fill('The maker confirmed 2.1.0 was a mislabelled 2.2.0 build.');
+    await tools
+      .getByLabel('Why they are the same (kept in the audit log)')
+      .fill('The maker confirmed 2.1.0 was a mislabelled 2.2.0 build.');
     await tools.getByRole('button', { name: 'Review the merge…' }).click();
-    await tools.getByRole('alertdialog').getByText(/“2\.2\.0” takes over all submissions tagged “2\.1\.0” and their statistics/).waitFor();
+    await tools
+      .getByRole('alertdialog')
+      .getByText(/“2\.2\.0” takes over all submissions tagged “2\.1\.0” and their statistics/)
+      .waitFor();
     await saveScreenshot(moderator, 'curation-4-firmware-merge-confirmation');
     await tools.getByRole('button', { name: 'Merge into “2.2.0”' }).click();
 
@@ -115,13 +138,21 @@ describe('catalogue curation in the browser', () => {
     expect((await alias.json()).id).toBe(newer.id);
     // The model page lists only the kept version.
     await moderator.goto(`${e2e.baseUrl}/models/${catalogue.spider.slug}`);
-    await moderator.getByRole('row', { name: /2\.2\.0/ }).first().waitFor();
+    await moderator
+      .getByRole('row', { name: /2\.2\.0/ })
+      .first()
+      .waitFor();
     await expect(moderator.getByRole('row', { name: /2\.1\.0/ }).count()).resolves.toBe(0);
     expect(errors).toEqual([]);
   });
 
   it('when a moderator renames a recording device on the catalogue page, then the catalogue uses the new name', async () => {
-    const device = await insertRecordingDevice(e2e.db, { slug: `trailmate-${catalogue.maker.id}`, name: `Trailmate ${catalogue.maker.id}`, kind: 'watch', status: 'approved' });
+    const device = await insertRecordingDevice(e2e.db, {
+      slug: `trailmate-${catalogue.maker.id}`,
+      name: `Trailmate ${catalogue.maker.id}`,
+      kind: 'watch',
+      status: 'approved',
+    });
     const moderator = await e2e.signedInPage('curating-moderator', '/moderation/catalogue');
     const errors = watchConsole(moderator);
     const devices = moderator.getByRole('region', { name: 'Recording devices' });

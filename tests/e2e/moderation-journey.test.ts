@@ -14,8 +14,17 @@ describe('a moderator clears a flagged submission in the browser', () => {
     const rider = await e2e.db('users').where({ handle: 'journey-rider-7' }).first('id');
     const catalogue = await createCatalogue(e2e.db);
     const { id } = await submissionAwaitingReview(e2e.db, rider.id, catalogue);
-    const flags = [{ code: 'low_correlation', severity: 'severe', message: 'The two power traces barely move together: these may not be recordings of the same ride.' }];
-    await e2e.db('submissions').where({ id }).update({ flags: JSON.stringify(flags), flag_severity: 3 });
+    const flags = [
+      {
+        code: 'low_correlation',
+        severity: 'severe',
+        message: 'The two power traces barely move together: these may not be recordings of the same ride.',
+      },
+    ];
+    await e2e
+      .db('submissions')
+      .where({ id })
+      .update({ flags: JSON.stringify(flags), flag_severity: 3 });
 
     // The queue, through the header link.
     const moderator = await e2e.signedInPage('demo-moderator', '/');
@@ -62,7 +71,8 @@ describe('a moderator clears a flagged submission in the browser', () => {
   it('when the demo moderator approves a rider’s proposed firmware on the catalogue page, then it leaves the list and is approved', async () => {
     const catalogue = await createCatalogue(e2e.db);
     const proposer = await e2e.db('users').where({ handle: 'journey-rider-7' }).first('id');
-    const [proposed] = await e2e.db('firmware_versions')
+    const [proposed] = await e2e
+      .db('firmware_versions')
       .insert({ model_id: catalogue.spider.id, version: '2.4.0', version_order: [2, 4, 0], status: 'pending', proposed_by: proposer.id })
       .returning('id');
     const moderator = await e2e.signedInPage('demo-moderator', '/moderation/catalogue');

@@ -18,10 +18,15 @@ describe('the kept originals, as admins and moderators see them', () => {
     const rider = await e2e.db('users').where({ handle: 'archive-rider' }).first('id');
     const catalogue = await createCatalogue(e2e.db);
     const pair = cleanPair(2001);
-    const { id } = await createSubmission({ db: e2e.db, store: testObjectStore() }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
-      a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
-      b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
-    });
+    const { id } = await createSubmission(
+      { db: e2e.db, store: testObjectStore() },
+      rider.id,
+      createSubmissionInput.parse(submissionMeta(catalogue)),
+      {
+        a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+        b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+      },
+    );
     await analyseSubmission(e2e.db, id);
     submissionId = id;
   });

@@ -36,10 +36,15 @@ describe('a rider reads how the meters behaved as the morning warmed up', () => 
       },
       b: { position: 'total' },
     });
-    const { id } = await createSubmission({ db: e2e.db, store: testObjectStore() }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
-      a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
-      b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
-    });
+    const { id } = await createSubmission(
+      { db: e2e.db, store: testObjectStore() },
+      rider.id,
+      createSubmissionInput.parse(submissionMeta(catalogue)),
+      {
+        a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+        b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+      },
+    );
     await analyseSubmission(e2e.db, id);
     submissionId = id;
   });
@@ -57,8 +62,12 @@ describe('a rider reads how the meters behaved as the morning warmed up', () => 
 
       await expect.poll(() => page.getByTestId('ride-drift').textContent()).toMatch(/moved by \+[12]\.\d points per hour/);
       expect(await block.getByText('The head unit recorded').textContent()).toMatch(/1 to 13 °C/);
-      expect(await block.getByRole('row').allTextContents()).toEqual(expect.arrayContaining([expect.stringMatching(/^below 5 °C/), expect.stringMatching(/^5 to 15 °C/)]));
-      expect(await block.getByRole('list', { name: 'Battery reports' }).textContent()).toMatch(/battery good \(2\.90 V\).*battery low \(2\.55 V\)/);
+      expect(await block.getByRole('row').allTextContents()).toEqual(
+        expect.arrayContaining([expect.stringMatching(/^below 5 °C/), expect.stringMatching(/^5 to 15 °C/)]),
+      );
+      expect(await block.getByRole('list', { name: 'Battery reports' }).textContent()).toMatch(
+        /battery good \(2\.90 V\).*battery low \(2\.55 V\)/,
+      );
       await page.getByText(/grows by \d\.\d points per hour over the ride/).waitFor();
       const bodyWidth = await page.evaluate(() => document.documentElement.scrollWidth);
       expect(bodyWidth).toBeLessThanOrEqual(viewport.width);

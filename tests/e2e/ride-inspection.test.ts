@@ -37,10 +37,15 @@ describe('a reviewer inspects one ride on its result page', () => {
       },
       b: { position: 'dual', dropouts: [{ kind: 'power', startSecond: 1200, durationSeconds: 8 }] },
     });
-    const { id } = await createSubmission({ db: e2e.db, store: testObjectStore() }, rider.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
-      a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
-      b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
-    });
+    const { id } = await createSubmission(
+      { db: e2e.db, store: testObjectStore() },
+      rider.id,
+      createSubmissionInput.parse(submissionMeta(catalogue)),
+      {
+        a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+        b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+      },
+    );
     await analyseSubmission(e2e.db, id);
     submissionId = id;
   });
@@ -63,7 +68,9 @@ describe('a reviewer inspects one ride on its result page', () => {
     await page.getByLabel('From').fill('5:00');
     await page.getByLabel('To').fill('15:00');
     await page.getByLabel('To').press('Enter');
-    await expect.poll(() => text.textContent()).toMatch(/^5:00–15:00 \(\d+ s matched\): .+ W against .+ W, difference [+−]\d+\.\d W \([+−]?\d+\.\d %\); peaks \d+ W and \d+ W\.$/);
+    await expect
+      .poll(() => text.textContent())
+      .toMatch(/^5:00–15:00 \(\d+ s matched\): .+ W against .+ W, difference [+−]\d+\.\d W \([+−]?\d+\.\d %\); peaks \d+ W and \d+ W\.$/);
 
     // The pointer: a readout under it, and a drag chooses a section.
     const plot = page.locator('.u-over').first();
@@ -83,11 +90,16 @@ describe('a reviewer inspects one ride on its result page', () => {
     expect(await dropouts.textContent()).toContain('yes');
 
     await page.getByRole('region', { name: 'Sprints' }).getByRole('row').nth(1).waitFor();
-    await page.getByRole('region', { name: 'Cadence response' }).getByText(/Median lag on steps up \+2 s/).waitFor();
+    await page
+      .getByRole('region', { name: 'Cadence response' })
+      .getByText(/Median lag on steps up \+2 s/)
+      .waitFor();
     await page.getByTestId('ride-balance').waitFor();
     await page.getByText('Hard-effort weighted average').waitFor();
     await saveScreenshot(page, 'ride-inspection-desktop');
-    await page.getByRole('region', { name: 'Inspect the ride' }).screenshot({ path: 'test-output/screenshots/ride-inspection-desktop-detail.png' });
+    await page
+      .getByRole('region', { name: 'Inspect the ride' })
+      .screenshot({ path: 'test-output/screenshots/ride-inspection-desktop-detail.png' });
     expect(errors).toEqual([]);
   });
 

@@ -13,7 +13,13 @@ describe('scoreboard in the browser', () => {
 
   beforeAll(async () => {
     catalogue = await createCatalogue(e2e.db);
-    const newer = await insertFirmware(e2e.db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
+    const newer = await insertFirmware(e2e.db, {
+      modelId: catalogue.spider.id,
+      version: '2.2.0',
+      versionOrder: versionOrder('2.2.0'),
+      releasedOn: '2026-05-01',
+      status: 'approved',
+    });
     const riders = [await insertRider(e2e.db), await insertRider(e2e.db), await insertRider(e2e.db)];
     const rides: [number, number, number, number][] = [
       // firmware, bias %, hours, dropouts of the spider
@@ -29,7 +35,12 @@ describe('scoreboard in the browser', () => {
       const id = await insertAnalysedSubmission(e2e.db, {
         riderId: riders[i % 3],
         a: { modelId: catalogue.spider.id, firmwareId, recordingDeviceId: catalogue.headUnit.id },
-        b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+        b: {
+          modelId: catalogue.pedals.id,
+          firmwareId: catalogue.pedalsFirmware.id,
+          recordingDeviceId: catalogue.headUnit.id,
+          position: 'dual',
+        },
         biasPercent: bias,
         pedallingHours: hours,
         aPowerDropouts: dropouts,
@@ -70,7 +81,9 @@ describe('scoreboard in the browser', () => {
     await page.getByRole('heading', { level: 1, name: /Orbit/ }).waitFor();
     await page.getByRole('img', { name: /Bias, power and cadence dropouts by firmware version/ }).waitFor();
     expect(await page.getByRole('row', { name: /2\.2\.0/ }).textContent()).toMatch(/× \(/);
-    expect(await page.getByRole('link', { name: /Discussion threads/ }).getAttribute('href')).toBe(`/models/${catalogue.spider.slug}/threads`);
+    expect(await page.getByRole('link', { name: /Discussion threads/ }).getAttribute('href')).toBe(
+      `/models/${catalogue.spider.slug}/threads`,
+    );
     await page.evaluate(() => document.fonts.ready);
     await saveScreenshot(page, 'model-page');
 

@@ -42,8 +42,8 @@ describe('signing in in the browser', () => {
     const moderatorBox = page.getByRole('checkbox', { name: 'moderator — Demo Rider (@demo-rider)' });
     await moderatorBox.click();
     // The box shows the server's answer, so it turns checked once the grant is saved.
-    await page.waitForFunction(() =>
-      (document.querySelector('input[aria-label="moderator — Demo Rider (@demo-rider)"]') as HTMLInputElement | null)?.checked,
+    await page.waitForFunction(
+      () => (document.querySelector('input[aria-label="moderator — Demo Rider (@demo-rider)"]') as HTMLInputElement | null)?.checked,
     );
 
     expect(await moderatorBox.isChecked()).toBe(true);

@@ -7,7 +7,25 @@ import { useBrowserSession } from './support/browser-session';
 
 const demoPair = (side: 'a' | 'b', pair = '01-clean-bias') => path.resolve(`demo/pairs/${pair}-${side}.fit`);
 // The first bytes of a PNG image (PNG specification, section 5.2) and a little more: not a FIT file.
-const PNG_BYTES = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, ...new Array(64).fill(7)]);
+const PNG_BYTES = Buffer.from([
+  0x89,
+  0x50,
+  0x4e,
+  0x47,
+  0x0d,
+  0x0a,
+  0x1a,
+  0x0a,
+  0,
+  0,
+  0,
+  13,
+  0x49,
+  0x48,
+  0x44,
+  0x52,
+  ...new Array(64).fill(7),
+]);
 
 describe('a rider submits a paired recording in the browser', () => {
   const e2e = useBrowserSession();

@@ -17,9 +17,20 @@ describe('the upload form reads the files before the rider answers', () => {
 
   beforeAll(async () => {
     catalogue = await createCatalogue(e2e.db);
-    newer = await insertFirmware(e2e.db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), status: 'approved' });
+    newer = await insertFirmware(e2e.db, {
+      modelId: catalogue.spider.id,
+      version: '2.2.0',
+      versionOrder: versionOrder('2.2.0'),
+      status: 'approved',
+    });
     // A's head unit is the catalogue's recording device (software 12.4) and its power meter runs 2.1 (FIT software_version 2.1).
-    const headUnit = { manufacturerId: 255, productId: 7, serialNumber: 51_001, softwareVersion: 12.4, productName: catalogue.headUnit.name };
+    const headUnit = {
+      manufacturerId: 255,
+      productId: 7,
+      serialNumber: 51_001,
+      softwareVersion: 12.4,
+      productName: catalogue.headUnit.name,
+    };
     const pair = simulatePair({
       seed: 2114,
       durationSeconds: 1500,

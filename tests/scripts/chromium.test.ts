@@ -10,7 +10,12 @@ describe('finding Chromium for the browser tests', () => {
   it('when Chromium exists, then its path is returned and nothing is installed', () => {
     const commands: string[] = [];
 
-    const found = ensureChromium({ executablePath: missingPath, isExecutable: () => true, isRoot: () => true, runShell: (c) => commands.push(c) });
+    const found = ensureChromium({
+      executablePath: missingPath,
+      isExecutable: () => true,
+      isRoot: () => true,
+      runShell: (c) => commands.push(c),
+    });
 
     expect(found).toBe(missingPath);
     expect(commands).toEqual([]);

@@ -3,7 +3,9 @@ import { createObjectStore, type ObjectStore } from '../../server/lib/object-sto
 
 /** The S3_* settings of this test file's bucket in the run's fake S3 service (tests/server/setup-database.ts). */
 export function testObjectStoreEnv(): Record<string, string> {
-  return Object.fromEntries(Object.entries(process.env).filter((entry): entry is [string, string] => entry[0].startsWith('S3_') && entry[1] !== undefined));
+  return Object.fromEntries(
+    Object.entries(process.env).filter((entry): entry is [string, string] => entry[0].startsWith('S3_') && entry[1] !== undefined),
+  );
 }
 
 let store: ObjectStore | undefined;

@@ -40,7 +40,17 @@ function meters(db: Knex) {
   return db('rider_meters as rm')
     .join('models as m', 'm.id', 'rm.model_id')
     .join('makers as mk', 'mk.id', 'm.maker_id')
-    .select<RiderMeterRecord[]>('rm.id', 'rm.rider_id', 'rm.nickname', 'rm.position', 'rm.battery_type', 'm.id as model_id', 'm.slug as model_slug', 'm.name as model_name', 'mk.name as maker_name');
+    .select<RiderMeterRecord[]>(
+      'rm.id',
+      'rm.rider_id',
+      'rm.nickname',
+      'rm.position',
+      'rm.battery_type',
+      'm.id as model_id',
+      'm.slug as model_slug',
+      'm.name as model_name',
+      'mk.name as maker_name',
+    );
 }
 
 export async function listRiderMeters(db: Knex, riderId: number): Promise<RiderMeter[]> {
@@ -52,7 +62,10 @@ export async function findRiderMeter(db: Knex, riderId: number, meterId: number)
   return row ? meterOf(row) : undefined;
 }
 
-export async function insertRiderMeter(db: Knex, row: { riderId: number; modelId: number; position: Position; nickname: string; batteryType: BatteryType }): Promise<number> {
+export async function insertRiderMeter(
+  db: Knex,
+  row: { riderId: number; modelId: number; position: Position; nickname: string; batteryType: BatteryType },
+): Promise<number> {
   const [inserted] = await db('rider_meters')
     .insert({ rider_id: row.riderId, model_id: row.modelId, position: row.position, nickname: row.nickname, battery_type: row.batteryType })
     .returning<{ id: number }[]>('id');
@@ -69,7 +82,11 @@ export async function findApprovedModel(db: Knex, modelId: number): Promise<{ id
 }
 
 /** An approved firmware of the model. */
-export async function findFirmwareOfModel(db: Knex, firmwareId: number, modelId: number): Promise<{ id: number; version: string } | undefined> {
+export async function findFirmwareOfModel(
+  db: Knex,
+  firmwareId: number,
+  modelId: number,
+): Promise<{ id: number; version: string } | undefined> {
   return db('firmware_versions').where({ id: firmwareId, model_id: modelId, status: 'approved' }).first('id', 'version');
 }
 
@@ -107,7 +124,15 @@ function events(db: Knex) {
   return db('battery_events as e')
     .join('firmware_versions as f', 'f.id', 'e.firmware_id')
     .orderBy(['e.rider_meter_id', 'e.occurred_on'])
-    .select<BatteryEventRecord[]>('e.id', 'e.rider_meter_id', db.raw(`to_char(e.occurred_on, 'YYYY-MM-DD') as occurred_on`), 'e.kind', 'e.previous_ended', 'e.firmware_id', 'f.version as firmware_version');
+    .select<BatteryEventRecord[]>(
+      'e.id',
+      'e.rider_meter_id',
+      db.raw(`to_char(e.occurred_on, 'YYYY-MM-DD') as occurred_on`),
+      'e.kind',
+      'e.previous_ended',
+      'e.firmware_id',
+      'f.version as firmware_version',
+    );
 }
 
 export async function listBatteryEvents(db: Knex, meterIds: number[]): Promise<BatteryEvent[]> {
@@ -117,7 +142,13 @@ export async function listBatteryEvents(db: Knex, meterIds: number[]): Promise<B
 
 export async function insertBatteryEvent(db: Knex, row: Omit<BatteryEvent, 'id' | 'firmwareVersion'>): Promise<number> {
   const [inserted] = await db('battery_events')
-    .insert({ rider_meter_id: row.riderMeterId, occurred_on: row.occurredOn, kind: row.kind, previous_ended: row.previousEnded, firmware_id: row.firmwareId })
+    .insert({
+      rider_meter_id: row.riderMeterId,
+      occurred_on: row.occurredOn,
+      kind: row.kind,
+      previous_ended: row.previousEnded,
+      firmware_id: row.firmwareId,
+    })
     .returning<{ id: number }[]>('id');
   return inserted!.id;
 }
@@ -138,12 +169,19 @@ export async function listRiding(db: Knex, meterIds: number[]): Promise<RidingEn
   const rows = await db('self_reported_riding')
     .whereIn('rider_meter_id', meterIds)
     .orderBy(['rider_meter_id', 'ridden_on'])
-    .select<{ id: number; rider_meter_id: number; ridden_on: string; hours: number }[]>('id', 'rider_meter_id', db.raw(`to_char(ridden_on, 'YYYY-MM-DD') as ridden_on`), 'hours');
+    .select<{ id: number; rider_meter_id: number; ridden_on: string; hours: number }[]>(
+      'id',
+      'rider_meter_id',
+      db.raw(`to_char(ridden_on, 'YYYY-MM-DD') as ridden_on`),
+      'hours',
+    );
   return rows.map((r) => ({ id: r.id, riderMeterId: r.rider_meter_id, riddenOn: r.ridden_on, hours: r.hours }));
 }
 
 export async function insertRiding(db: Knex, row: { riderMeterId: number; riddenOn: string; hours: number }): Promise<number> {
-  const [inserted] = await db('self_reported_riding').insert({ rider_meter_id: row.riderMeterId, ridden_on: row.riddenOn, hours: row.hours }).returning<{ id: number }[]>('id');
+  const [inserted] = await db('self_reported_riding')
+    .insert({ rider_meter_id: row.riderMeterId, ridden_on: row.riddenOn, hours: row.hours })
+    .returning<{ id: number }[]>('id');
   return inserted!.id;
 }
 
@@ -198,14 +236,19 @@ export interface ModelForConditions {
 }
 
 export async function findModelForConditions(db: Knex, slug: string): Promise<ModelForConditions | undefined> {
-  const model = await db('models').where({ slug, status: 'approved' }).first<{ id: number; slug: string; battery_claim_hours: number | null; battery_claim_source: string | null } | undefined>(
-    'id',
-    'slug',
-    'battery_claim_hours',
-    'battery_claim_source',
-  );
+  const model = await db('models')
+    .where({ slug, status: 'approved' })
+    .first<{ id: number; slug: string; battery_claim_hours: number | null; battery_claim_source: string | null } | undefined>(
+      'id',
+      'slug',
+      'battery_claim_hours',
+      'battery_claim_source',
+    );
   if (!model) return undefined;
-  const firmware = await db('firmware_versions').where({ model_id: model.id, status: 'approved' }).orderBy('version_order', 'asc').select<{ id: number; version: string }[]>('id', 'version');
+  const firmware = await db('firmware_versions')
+    .where({ model_id: model.id, status: 'approved' })
+    .orderBy('version_order', 'asc')
+    .select<{ id: number; version: string }[]>('id', 'version');
   return { id: model.id, slug: model.slug, claimHours: model.battery_claim_hours, claimSource: model.battery_claim_source, firmware };
 }
 
@@ -213,8 +256,17 @@ export async function updateBatteryClaim(db: Knex, modelId: number, claim: { hou
   return db('models').where({ id: modelId }).update({ battery_claim_hours: claim.hours, battery_claim_source: claim.source });
 }
 
-export async function findModelClaim(db: Knex, modelId: number): Promise<{ id: number; hours: number | null; source: string | null } | undefined> {
-  const row = await db('models').where({ id: modelId }).first<{ id: number; battery_claim_hours: number | null; battery_claim_source: string | null } | undefined>('id', 'battery_claim_hours', 'battery_claim_source');
+export async function findModelClaim(
+  db: Knex,
+  modelId: number,
+): Promise<{ id: number; hours: number | null; source: string | null } | undefined> {
+  const row = await db('models')
+    .where({ id: modelId })
+    .first<{ id: number; battery_claim_hours: number | null; battery_claim_source: string | null } | undefined>(
+      'id',
+      'battery_claim_hours',
+      'battery_claim_source',
+    );
   return row ? { id: row.id, hours: row.battery_claim_hours, source: row.battery_claim_source } : undefined;
 }
 
@@ -226,10 +278,7 @@ export async function listTemperatureBandRides(db: Knex, modelId: number) {
     .where('s.status', 'accepted')
     .whereNotNull('s.rider_id')
     .whereRaw(`jsonb_typeof(s.result -> 'temperature') = 'object'`)
-    .select<{ rider_id: number; side: 'a' | 'b'; firmware_id: number; bands: { band: string; seconds: number; percent: number | null }[] }[]>(
-      's.rider_id',
-      'r.side',
-      'r.firmware_id',
-      db.raw(`s.result -> 'temperature' -> 'bands' as bands`),
-    );
+    .select<
+      { rider_id: number; side: 'a' | 'b'; firmware_id: number; bands: { band: string; seconds: number; percent: number | null }[] }[]
+    >('s.rider_id', 'r.side', 'r.firmware_id', db.raw(`s.result -> 'temperature' -> 'bands' as bands`));
 }

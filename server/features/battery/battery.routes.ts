@@ -58,8 +58,15 @@ export function modelConditionsRouter({ db }: { db: Db }) {
 /** Moderators (not makers' staff: a claim is the maker's word, entered by someone else) set the maker's battery claim. Mounted at /api/moderation/models. */
 export function batteryClaimRouter({ db }: { db: Db }) {
   const router = Router();
-  router.put('/:id/battery-claim', requireRole('moderator'), requireNotMakerStaff, validate(claimParams, 'params'), validate(batteryClaimInput), async (req, res) => {
-    res.json(await service.setBatteryClaim(db, req.user!.id, res.locals.params.id, res.locals.body));
-  });
+  router.put(
+    '/:id/battery-claim',
+    requireRole('moderator'),
+    requireNotMakerStaff,
+    validate(claimParams, 'params'),
+    validate(batteryClaimInput),
+    async (req, res) => {
+      res.json(await service.setBatteryClaim(db, req.user!.id, res.locals.params.id, res.locals.body));
+    },
+  );
   return router;
 }

@@ -33,7 +33,13 @@ const groupKey = (m: { riderId: number; modelId: number; position: string }) => 
  * and position (only when the rider has one such meter, or the rides could be another's),
  * plus riding added by hand, both counted on the days of each battery's period.
  */
-function metersWithBatteries(meters: Meter[], events: repository.BatteryEvent[], riding: repository.RidingEntry[], rides: repository.SubmittedRide[], allMetersOfRiders: Meter[]) {
+function metersWithBatteries(
+  meters: Meter[],
+  events: repository.BatteryEvent[],
+  riding: repository.RidingEntry[],
+  rides: repository.SubmittedRide[],
+  allMetersOfRiders: Meter[],
+) {
   const metersPerGroup = new Map<string, number>();
   for (const m of allMetersOfRiders) {
     const key = groupKey({ riderId: m.riderId, modelId: m.model.id, position: m.position });
@@ -59,25 +65,37 @@ function metersWithBatteries(meters: Meter[], events: repository.BatteryEvent[],
 export async function listMyMeters(db: Knex, riderId: number): Promise<RiderMeterView[]> {
   const meters = await repository.listRiderMeters(db, riderId);
   const ids = meters.map((m) => m.id);
-  const [events, riding, rides] = await Promise.all([repository.listBatteryEvents(db, ids), repository.listRiding(db, ids), repository.listSubmittedRides(db, { riderIds: [riderId] })]);
-  return metersWithBatteries(meters, events, riding, rides, meters).map(({ meter, ridesAttributed, events: own, riding: ownRiding, batteries }) => ({
-    id: meter.id,
-    nickname: meter.nickname,
-    position: meter.position,
-    batteryType: meter.batteryType,
-    model: meter.model,
-    ridesAttributed,
-    events: own.map((e) => ({ id: e.id, occurredOn: e.occurredOn, kind: e.kind, previousEnded: e.previousEnded, firmwareVersion: e.firmwareVersion })),
-    riding: ownRiding.map((r) => ({ id: r.id, riddenOn: r.riddenOn, hours: r.hours })),
-    batteries: batteries.map((b) => ({
-      fromDay: b.period.fromDay,
-      toDay: b.period.toDay,
-      firmwareVersion: b.firmwareVersion,
-      submittedHours: b.submittedHours,
-      selfReportedHours: b.selfReportedHours,
-      ended: b.period.ended,
-    })),
-  }));
+  const [events, riding, rides] = await Promise.all([
+    repository.listBatteryEvents(db, ids),
+    repository.listRiding(db, ids),
+    repository.listSubmittedRides(db, { riderIds: [riderId] }),
+  ]);
+  return metersWithBatteries(meters, events, riding, rides, meters).map(
+    ({ meter, ridesAttributed, events: own, riding: ownRiding, batteries }) => ({
+      id: meter.id,
+      nickname: meter.nickname,
+      position: meter.position,
+      batteryType: meter.batteryType,
+      model: meter.model,
+      ridesAttributed,
+      events: own.map((e) => ({
+        id: e.id,
+        occurredOn: e.occurredOn,
+        kind: e.kind,
+        previousEnded: e.previousEnded,
+        firmwareVersion: e.firmwareVersion,
+      })),
+      riding: ownRiding.map((r) => ({ id: r.id, riddenOn: r.riddenOn, hours: r.hours })),
+      batteries: batteries.map((b) => ({
+        fromDay: b.period.fromDay,
+        toDay: b.period.toDay,
+        firmwareVersion: b.firmwareVersion,
+        submittedHours: b.submittedHours,
+        selfReportedHours: b.selfReportedHours,
+        ended: b.period.ended,
+      })),
+    }),
+  );
 }
 
 async function ownMeter(db: Knex, riderId: number, meterId: number): Promise<Meter> {
@@ -92,7 +110,8 @@ function isUniqueViolation(error: unknown): boolean {
 }
 
 export async function addMeter(db: Knex, riderId: number, input: CreateRiderMeterInput): Promise<number> {
-  if (!(await repository.findApprovedModel(db, input.modelId))) throw new ValidationError('modelId: no such model in the catalogue', { fields: { modelId: 'no such model in the catalogue' } });
+  if (!(await repository.findApprovedModel(db, input.modelId)))
+    throw new ValidationError('modelId: no such model in the catalogue', { fields: { modelId: 'no such model in the catalogue' } });
   try {
     return await repository.insertRiderMeter(db, { riderId, ...input });
   } catch (error) {
@@ -121,7 +140,8 @@ export async function addBatteryEvent(db: Knex, riderId: number, meterId: number
 
 export async function removeBatteryEvent(db: Knex, riderId: number, meterId: number, eventId: number): Promise<void> {
   await ownMeter(db, riderId, meterId);
-  if ((await repository.deleteBatteryEvent(db, meterId, eventId)) === 0) throw new NotFoundError('That battery event is not on this meter.');
+  if ((await repository.deleteBatteryEvent(db, meterId, eventId)) === 0)
+    throw new NotFoundError('That battery event is not on this meter.');
 }
 
 export async function addRiding(db: Knex, riderId: number, meterId: number, input: AddRidingInput): Promise<number> {
@@ -154,14 +174,33 @@ export async function getModelConditions(db: Knex, slug: string): Promise<ModelC
     repository.listTemperatureBandRides(db, model.id),
   ]);
   const spans: BatterySpan[] = metersWithBatteries(meters, events, riding, rides, metersOfRiders).flatMap(({ meter, batteries }) =>
-    batteries.map((b) => ({ riderId: meter.riderId, firmwareId: b.period.firmwareId, hours: b.submittedHours + b.selfReportedHours, ended: b.period.ended })),
+    batteries.map((b) => ({
+      riderId: meter.riderId,
+      firmwareId: b.period.firmwareId,
+      hours: b.submittedHours + b.selfReportedHours,
+      ended: b.period.ended,
+    })),
   );
 
   const bandRides: (TemperatureBandRide & { firmwareId: number })[] = bandRows.flatMap((row) =>
-    (row.bands ?? []).filter((b) => b.percent !== null).map((b) => ({ riderId: row.rider_id, firmwareId: row.firmware_id, band: b.band, seconds: b.seconds, percent: asSideRead(row.side, b.percent!) })),
+    (row.bands ?? [])
+      .filter((b) => b.percent !== null)
+      .map((b) => ({
+        riderId: row.rider_id,
+        firmwareId: row.firmware_id,
+        band: b.band,
+        seconds: b.seconds,
+        percent: asSideRead(row.side, b.percent!),
+      })),
   );
   const bandLabels = TEMPERATURE_BANDS.map((b) => b.label);
-  const firmwareTemperature: FirmwareTemperature[] = model.firmware.map((f) => ({ version: f.version, bands: biasByTemperature(bandRides.filter((r) => r.firmwareId === f.id), bandLabels) }));
+  const firmwareTemperature: FirmwareTemperature[] = model.firmware.map((f) => ({
+    version: f.version,
+    bands: biasByTemperature(
+      bandRides.filter((r) => r.firmwareId === f.id),
+      bandLabels,
+    ),
+  }));
 
   return {
     claim: model.claimHours !== null && model.claimSource ? { hours: model.claimHours, source: model.claimSource } : null,

@@ -1,11 +1,5 @@
 import type { Knex } from 'knex';
-import type {
-  Catalogue,
-  CatalogueFirmware,
-  CatalogueMaker,
-  CatalogueModel,
-  CatalogueRecordingDevice,
-} from '@shared/schemas/catalogue';
+import type { Catalogue, CatalogueFirmware, CatalogueMaker, CatalogueModel, CatalogueRecordingDevice } from '@shared/schemas/catalogue';
 
 // Approved entries for everyone; a rider also sees what they proposed themselves.
 function visibleTo(viewerId: number | undefined) {
@@ -73,10 +67,7 @@ export async function insertMaker(db: Knex, row: { slug: string; name: string; s
   return maker as CatalogueMaker;
 }
 
-export async function insertModel(
-  db: Knex,
-  row: Omit<CatalogueModel, 'id'> & { proposedBy?: number },
-): Promise<CatalogueModel> {
+export async function insertModel(db: Knex, row: Omit<CatalogueModel, 'id'> & { proposedBy?: number }): Promise<CatalogueModel> {
   const [model] = await db('models')
     .insert({
       maker_id: row.makerId,
@@ -93,7 +84,15 @@ export async function insertModel(
 
 export async function insertFirmware(
   db: Knex,
-  row: { modelId: number; version: string; versionOrder: number[]; releasedOn?: string | null; beta?: boolean; status: string; proposedBy?: number },
+  row: {
+    modelId: number;
+    version: string;
+    versionOrder: number[];
+    releasedOn?: string | null;
+    beta?: boolean;
+    status: string;
+    proposedBy?: number;
+  },
 ): Promise<CatalogueFirmware> {
   const [firmware] = await db('firmware_versions')
     .insert({

@@ -13,10 +13,14 @@ export async function proposeEntry(db: Knex, riderId: number, input: ProposeCata
   try {
     switch (input.type) {
       case 'maker':
-        return { type: input.type, entry: await catalogue.insertMaker(db, { slug: slugify(input.name), name: input.name, status: 'pending', proposedBy: riderId }) };
+        return {
+          type: input.type,
+          entry: await catalogue.insertMaker(db, { slug: slugify(input.name), name: input.name, status: 'pending', proposedBy: riderId }),
+        };
       case 'model': {
         const maker = await db('makers').where({ id: input.makerId }).first('slug');
-        if (!maker || !(await catalogue.makerExists(db, input.makerId, riderId))) throw new NotFoundError('That maker is not in the catalogue.');
+        if (!maker || !(await catalogue.makerExists(db, input.makerId, riderId)))
+          throw new NotFoundError('That maker is not in the catalogue.');
         const entry = await catalogue.insertModel(db, {
           makerId: input.makerId,
           slug: slugify(`${maker.slug} ${input.name}`),
@@ -42,7 +46,13 @@ export async function proposeEntry(db: Knex, riderId: number, input: ProposeCata
       case 'recording_device':
         return {
           type: input.type,
-          entry: await catalogue.insertRecordingDevice(db, { slug: slugify(input.name), name: input.name, kind: input.kind, status: 'pending', proposedBy: riderId }),
+          entry: await catalogue.insertRecordingDevice(db, {
+            slug: slugify(input.name),
+            name: input.name,
+            kind: input.kind,
+            status: 'pending',
+            proposedBy: riderId,
+          }),
         };
     }
   } catch (err) {

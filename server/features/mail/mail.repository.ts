@@ -60,11 +60,20 @@ export async function lockDueMessage(trx: Knex.Transaction, id: number): Promise
     .where('next_attempt_at', '<=', trx.fn.now())
     .forUpdate()
     .skipLocked()
-    .first<DueMessage | undefined>('id', 'to_address as to', 'subject', 'text_body as text', 'unsubscribe_url as unsubscribeUrl', 'attempts');
+    .first<DueMessage | undefined>(
+      'id',
+      'to_address as to',
+      'subject',
+      'text_body as text',
+      'unsubscribe_url as unsubscribeUrl',
+      'attempts',
+    );
 }
 
 export async function markSent(db: Db, id: number): Promise<void> {
-  await db('mail_messages').where({ id }).update({ status: 'sent', sent_at: db.fn.now(), attempts: db.raw('attempts + 1'), last_error: null });
+  await db('mail_messages')
+    .where({ id })
+    .update({ status: 'sent', sent_at: db.fn.now(), attempts: db.raw('attempts + 1'), last_error: null });
 }
 
 /** Records a failed attempt and when the next is due; gives up (status failed) when that would be past the give-up time. */
@@ -80,10 +89,10 @@ export async function markAttemptFailed(
       attempts: db.raw('attempts + 1'),
       last_error: failure.error.slice(0, 500),
       next_attempt_at: next,
-      status: db.raw(`case when now() + make_interval(secs => ?) > retrying_since + make_interval(secs => ?) then 'failed' else 'queued' end`, [
-        failure.retryInSeconds,
-        failure.giveUpAfterSeconds,
-      ]),
+      status: db.raw(
+        `case when now() + make_interval(secs => ?) > retrying_since + make_interval(secs => ?) then 'failed' else 'queued' end`,
+        [failure.retryInSeconds, failure.giveUpAfterSeconds],
+      ),
     })
     .returning('status');
   return row.status;
@@ -148,7 +157,10 @@ export async function messageExists(db: Db, id: number): Promise<boolean> {
 }
 
 export async function setPreference(db: Db, userId: number, column: 'email_on_decision' | 'email_on_reply', value: boolean) {
-  return db('users').where({ id: userId }).whereNull('deleted_at').update({ [column]: value, updated_at: db.fn.now() });
+  return db('users')
+    .where({ id: userId })
+    .whereNull('deleted_at')
+    .update({ [column]: value, updated_at: db.fn.now() });
 }
 
 export const OUTBOX_PAGE_SIZE = 50;
@@ -159,6 +171,14 @@ export async function listOutbox(db: Db, page: number): Promise<Omit<Outbox, 'pa
     .orderBy('id', 'desc')
     .limit(OUTBOX_PAGE_SIZE)
     .offset((page - 1) * OUTBOX_PAGE_SIZE)
-    .select<(Omit<OutboxMessage, 'receivedAt'> & { receivedAt: Date })[]>('id', 'mail_from as from', 'recipients', 'subject', 'text_body as text', 'headers', 'received_at as receivedAt');
+    .select<(Omit<OutboxMessage, 'receivedAt'> & { receivedAt: Date })[]>(
+      'id',
+      'mail_from as from',
+      'recipients',
+      'subject',
+      'text_body as text',
+      'headers',
+      'received_at as receivedAt',
+    );
   return { total: Number(count), messages: rows.map((row) => ({ ...row, receivedAt: row.receivedAt.toISOString() })) };
 }

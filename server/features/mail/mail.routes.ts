@@ -20,10 +20,25 @@ export function mailRouter({ db, config, queue }: { db: Db; config: Config; queu
   router.get('/unsubscribe', validate(unsubscribeQuery, 'query'), async (_req, res) => {
     const result = await unsubscribe(db, config, res.locals.query.token);
     if (!result) {
-      res.status(400).type('html').send(messagePage('This link does not work', 'The unsubscribe link is incomplete or was changed. Use the link from the e-mail as it is, or change your e-mail settings on your account page.'));
+      res
+        .status(400)
+        .type('html')
+        .send(
+          messagePage(
+            'This link does not work',
+            'The unsubscribe link is incomplete or was changed. Use the link from the e-mail as it is, or change your e-mail settings on your account page.',
+          ),
+        );
       return;
     }
-    res.type('html').send(messagePage('You are unsubscribed', `Crosswatt will no longer e-mail you about ${topicDescription(result.topic)}. You can switch it back on from your account page.`));
+    res
+      .type('html')
+      .send(
+        messagePage(
+          'You are unsubscribed',
+          `Crosswatt will no longer e-mail you about ${topicDescription(result.topic)}. You can switch it back on from your account page.`,
+        ),
+      );
   });
 
   // What the local fake SMTP service captured: admins only.

@@ -55,7 +55,14 @@ export async function queueMail(
 
   const link = unsubscribeUrl(deps.config, recipient.id, topic);
   const text = `${message.text.trimEnd()}\n\n--\nYou get this e-mail because you asked Crosswatt for ${TOPIC_TEXT[topic]}.\nStop these e-mails with one click: ${link}\n`;
-  const id = await mail.insertMessage(dbOrTrx, { userId: recipient.id, kind: message.kind, to: recipient.email, subject: message.subject, text, unsubscribeUrl: link });
+  const id = await mail.insertMessage(dbOrTrx, {
+    userId: recipient.id,
+    kind: message.kind,
+    to: recipient.email,
+    subject: message.subject,
+    text,
+    unsubscribeUrl: link,
+  });
 
   const queue = deps.queue;
   if (queue) {
@@ -120,7 +127,8 @@ export async function resendFailedMail(db: Knex, deps: MailDeps, { actorId, mail
     return before;
   });
   if (!requeued) {
-    if (await mail.messageExists(db, mailId)) throw new ConflictError('This message is not failed: it was sent, or it is already waiting to be sent.');
+    if (await mail.messageExists(db, mailId))
+      throw new ConflictError('This message is not failed: it was sent, or it is already waiting to be sent.');
     throw new NotFoundError('There is no such message.');
   }
   // Without a queue (or if queueing fails) a worker's sweep sends it.

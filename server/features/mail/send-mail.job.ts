@@ -21,7 +21,10 @@ export async function enqueueMail(queue: Queue, mailId: number) {
   await queue.send(SEND_MAIL_QUEUE, { mailId }, { singletonKey: String(mailId) });
 }
 
-export type MailRetryConfig = Pick<Config, 'MAIL_RETRY_FIRST_DELAY_SECONDS' | 'MAIL_RETRY_MAX_DELAY_SECONDS' | 'MAIL_GIVE_UP_AFTER_SECONDS'>;
+export type MailRetryConfig = Pick<
+  Config,
+  'MAIL_RETRY_FIRST_DELAY_SECONDS' | 'MAIL_RETRY_MAX_DELAY_SECONDS' | 'MAIL_GIVE_UP_AFTER_SECONDS'
+>;
 
 /** Seconds to wait after the `attempts`-th failed attempt: doubling from the first delay, capped. */
 export function mailRetryDelaySeconds(attempts: number, config: MailRetryConfig): number {

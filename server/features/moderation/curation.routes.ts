@@ -13,7 +13,10 @@ const entryParams = z.object({
   type: z.enum(CATALOGUE_ENTRY_TYPES, { message: 'one of maker, model, firmware, recording_device' }),
   id: idNumber('not an entry number'),
 });
-const noteParams = z.object({ subject: z.enum(['model', 'firmware'], { message: 'model or firmware' }), id: z.coerce.number().int().positive() });
+const noteParams = z.object({
+  subject: z.enum(['model', 'firmware'], { message: 'model or firmware' }),
+  id: z.coerce.number().int().positive(),
+});
 const modelParams = z.object({ id: z.coerce.number().int().positive('not a model number') });
 const aliasQuery = z.object({ type: z.enum(CATALOGUE_ENTRY_TYPES), q: z.string().trim().min(1).max(80) });
 
@@ -36,7 +39,9 @@ export function curationRouter({ db }: { db: Db }) {
 
   router.post('/:type/:id/merge', validate(entryParams, 'params'), validate(mergeEntriesInput), async (req, res) => {
     const { type, id } = res.locals.params;
-    res.json(await mergeEntries(db, { type, fromId: id, intoId: res.locals.body.intoId, reason: res.locals.body.reason, actorId: req.user!.id }));
+    res.json(
+      await mergeEntries(db, { type, fromId: id, intoId: res.locals.body.intoId, reason: res.locals.body.reason, actorId: req.user!.id }),
+    );
   });
 
   router.put('/:subject/:id/note', validate(noteParams, 'params'), validate(pinNoteInput), async (req, res) => {

@@ -23,7 +23,10 @@ export async function lockSubmission(trx: Knex.Transaction, id: number): Promise
 
 /** The makers whose models a submission compares (for the independence rule). */
 export async function makerIdsOfSubmission(db: Db, id: number): Promise<number[]> {
-  const rows = await db('submission_recordings as r').join('models as m', 'm.id', 'r.model_id').where('r.submission_id', id).distinct('m.maker_id');
+  const rows = await db('submission_recordings as r')
+    .join('models as m', 'm.id', 'r.model_id')
+    .where('r.submission_id', id)
+    .distinct('m.maker_id');
   return rows.map((r) => r.maker_id);
 }
 
@@ -120,7 +123,9 @@ export async function listReviewQueue(db: Knex, query: ReviewQueueQuery): Promis
     .modify((q) => {
       if (query.flag) q.whereRaw('s.flags @> ?::jsonb', [JSON.stringify([{ code: query.flag }])]);
       if (query.model) {
-        q.whereExists((e) => e.select(db.raw('1')).from('submission_recordings as r').whereRaw('r.submission_id = s.id').andWhere('r.model_id', query.model!));
+        q.whereExists((e) =>
+          e.select(db.raw('1')).from('submission_recordings as r').whereRaw('r.submission_id = s.id').andWhere('r.model_id', query.model!),
+        );
       }
       if (query.maker) {
         q.whereExists((e) =>
@@ -155,7 +160,11 @@ export async function listReviewQueue(db: Knex, query: ReviewQueueQuery): Promis
       'u.handle as riderHandle',
       db.raw(recordingsJson),
     )
-    .orderBy([{ column: 's.flag_severity', order: 'desc' }, { column: 's.created_at', order: 'asc' }, { column: 's.id', order: 'asc' }])
+    .orderBy([
+      { column: 's.flag_severity', order: 'desc' },
+      { column: 's.created_at', order: 'asc' },
+      { column: 's.id', order: 'asc' },
+    ])
     .limit(QUEUE_PAGE_SIZE)
     .offset((query.page - 1) * QUEUE_PAGE_SIZE);
   return { total: Number(count), rows: rows.map((row) => ({ ...row, createdAt: row.createdAt.toISOString() })) };
@@ -174,7 +183,12 @@ export async function queueFlagCounts(db: Knex): Promise<Array<{ code: string; c
 export async function riderHistory(db: Db, riderId: number | null, exceptId: number) {
   const counts: Record<string, number> = {};
   if (riderId !== null) {
-    const rows = await db('submissions').where({ rider_id: riderId }).whereNot({ id: exceptId }).groupBy('status').select('status').count<{ status: string; count: string }[]>({ count: '*' });
+    const rows = await db('submissions')
+      .where({ rider_id: riderId })
+      .whereNot({ id: exceptId })
+      .groupBy('status')
+      .select('status')
+      .count<{ status: string; count: string }[]>({ count: '*' });
     for (const r of rows) counts[r.status] = Number(r.count);
   }
   return {
@@ -239,7 +253,15 @@ export async function decisionHistory(db: Db, id: number): Promise<DecisionHisto
     .leftJoin('users as u', 'u.id', 'a.actor_id')
     .where({ 'a.subject_type': 'submission', 'a.subject_id': String(id) })
     .orderBy('a.id', 'asc')
-    .select<DecisionHistoryEntry[]>('a.id', 'a.action', 'a.reason', 'a.before', 'a.after', 'a.created_at as createdAt', 'u.handle as actorHandle');
+    .select<DecisionHistoryEntry[]>(
+      'a.id',
+      'a.action',
+      'a.reason',
+      'a.before',
+      'a.after',
+      'a.created_at as createdAt',
+      'u.handle as actorHandle',
+    );
 }
 
 export interface DecisionRecord {

@@ -33,7 +33,10 @@ export function moderationRouter(deps: Deps) {
   const moderatorOnly = requireRole('moderator');
 
   router.get('/queue', moderatorOnly, validate(reviewQueueQuery, 'query'), async (_req, res) => {
-    const [{ total, rows }, flagCounts] = await Promise.all([moderation.listReviewQueue(db, res.locals.query), moderation.queueFlagCounts(db)]);
+    const [{ total, rows }, flagCounts] = await Promise.all([
+      moderation.listReviewQueue(db, res.locals.query),
+      moderation.queueFlagCounts(db),
+    ]);
     res.json({ total, pageSize: moderation.QUEUE_PAGE_SIZE, submissions: rows, flagCounts });
   });
 
@@ -41,22 +44,28 @@ export function moderationRouter(deps: Deps) {
     res.json(await getReview(db, res.locals.params.id, req.user!));
   });
 
-  router.post('/submissions/:id/decision', moderatorOnly, validate(idParams, 'params'), validate(decideSubmissionInput), async (req, res) => {
-    const input = res.locals.body;
-    const outcome = await decideSubmission(
-      db,
-      {
-        submissionId: res.locals.params.id,
-        moderatorId: req.user!.id,
-        decision: input.decision,
-        reason: 'reason' in input ? input.reason : null,
-        note: 'note' in input ? input.note || null : null,
-        expectedVersion: input.expectedVersion,
-      },
-      { config: deps.config, queue: deps.queue },
-    );
-    res.json({ id: outcome.id, status: outcome.status, version: outcome.version });
-  });
+  router.post(
+    '/submissions/:id/decision',
+    moderatorOnly,
+    validate(idParams, 'params'),
+    validate(decideSubmissionInput),
+    async (req, res) => {
+      const input = res.locals.body;
+      const outcome = await decideSubmission(
+        db,
+        {
+          submissionId: res.locals.params.id,
+          moderatorId: req.user!.id,
+          decision: input.decision,
+          reason: 'reason' in input ? input.reason : null,
+          note: 'note' in input ? input.note || null : null,
+          expectedVersion: input.expectedVersion,
+        },
+        { config: deps.config, queue: deps.queue },
+      );
+      res.json({ id: outcome.id, status: outcome.status, version: outcome.version });
+    },
+  );
 
   router.post('/submissions/:id/tags', moderatorOnly, validate(idParams, 'params'), validate(correctTagsInput), async (req, res) => {
     const outcome = await correctSubmissionTags(db, { submissionId: res.locals.params.id, moderatorId: req.user!.id, ...res.locals.body });

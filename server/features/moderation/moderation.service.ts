@@ -71,7 +71,12 @@ export async function decideSubmission(db: Knex, command: DecideSubmissionComman
     }
     const reason = command.reason ?? null;
     const note = command.note ?? null;
-    const version = await moderation.updateDecision(trx, current.id, { status: transition.to, reason, note, decidedBy: command.moderatorId });
+    const version = await moderation.updateDecision(trx, current.id, {
+      status: transition.to,
+      reason,
+      note,
+      decidedBy: command.moderatorId,
+    });
     if (transition.to === 'accepted') await updateAggregatesForSubmission(trx, current.id, 'add');
     if (current.status === 'accepted') await updateAggregatesForSubmission(trx, current.id, 'remove');
 
@@ -86,7 +91,8 @@ export async function decideSubmission(db: Knex, command: DecideSubmissionComman
     });
 
     const kind = MAIL_OF[command.decision];
-    const mailId = mail && kind && current.riderId !== null ? await mailRider(trx, mail, current.id, current.riderId, kind, reason, note) : null;
+    const mailId =
+      mail && kind && current.riderId !== null ? await mailRider(trx, mail, current.id, current.riderId, kind, reason, note) : null;
     return { id: current.id, status: transition.to, version, mailId };
   });
 }
@@ -95,7 +101,10 @@ export async function decideSubmission(db: Knex, command: DecideSubmissionComman
 async function lockedForChange(trx: Knex.Transaction, submissionId: number, actorId: number, expectedVersion: number | undefined) {
   const current = await moderation.lockSubmission(trx, submissionId);
   if (!current) throw new NotFoundError('No such submission.');
-  assertIndependentOf({ makerIds: await moderation.staffMakerIdsOf(trx, actorId) }, await moderation.makerIdsOfSubmission(trx, submissionId));
+  assertIndependentOf(
+    { makerIds: await moderation.staffMakerIdsOf(trx, actorId) },
+    await moderation.makerIdsOfSubmission(trx, submissionId),
+  );
   if (expectedVersion !== undefined && expectedVersion !== current.version) {
     throw new ConflictError(
       `Someone changed this submission while you were looking at it: it is now ${STATUS_WORDS[current.status]}. Reload it to see what changed, then decide again.`,
@@ -142,11 +151,16 @@ async function comparisonWords(db: Knex | Knex.Transaction, submissionId: number
 export type TagChangeOutcome = TagChangeResult;
 
 /** A moderator corrects a submission's tags; recorded as a correction, with before and after. */
-export async function correctSubmissionTags(db: Knex, command: { submissionId: number; moderatorId: number } & CorrectTagsInput): Promise<TagChangeOutcome> {
+export async function correctSubmissionTags(
+  db: Knex,
+  command: { submissionId: number; moderatorId: number } & CorrectTagsInput,
+): Promise<TagChangeOutcome> {
   return db.transaction(async (trx) => {
     const current = await lockedForChange(trx, command.submissionId, command.moderatorId, command.expectedVersion);
     if (!['awaiting_review', 'sent_back', 'accepted'].includes(current.status)) {
-      throw new ConflictError(`This submission is ${STATUS_WORDS[current.status]}; only submissions awaiting review, sent back or accepted can have their tags corrected.`);
+      throw new ConflictError(
+        `This submission is ${STATUS_WORDS[current.status]}; only submissions awaiting review, sent back or accepted can have their tags corrected.`,
+      );
     }
     // The statistics lose the submission under its old tags and regain it under the new ones.
     if (current.status === 'accepted') await updateAggregatesForSubmission(trx, current.id, 'remove');
@@ -158,7 +172,10 @@ export async function correctSubmissionTags(db: Knex, command: { submissionId: n
       settledStatus: current.status,
     });
     // Independence covers the makers the submission is moved to, too.
-    assertIndependentOf({ makerIds: await moderation.staffMakerIdsOf(trx, command.moderatorId) }, await moderation.makerIdsOfSubmission(trx, current.id));
+    assertIndependentOf(
+      { makerIds: await moderation.staffMakerIdsOf(trx, command.moderatorId) },
+      await moderation.makerIdsOfSubmission(trx, current.id),
+    );
     if (outcome.status === 'accepted') await updateAggregatesForSubmission(trx, current.id, 'add');
     return outcome;
   });
@@ -167,16 +184,28 @@ export async function correctSubmissionTags(db: Knex, command: { submissionId: n
 /** The rider corrects the tags of a submission that was sent back; it returns to the queue. */
 export async function resubmitTags(
   db: Knex,
-  command: { submissionId: number; riderId: number; a?: Partial<RecordingTagsInput>; b?: Partial<RecordingTagsInput>; note?: string; expectedVersion: number },
+  command: {
+    submissionId: number;
+    riderId: number;
+    a?: Partial<RecordingTagsInput>;
+    b?: Partial<RecordingTagsInput>;
+    note?: string;
+    expectedVersion: number;
+  },
 ): Promise<TagChangeOutcome> {
   return db.transaction(async (trx) => {
     const current = await moderation.lockSubmission(trx, command.submissionId);
     if (!current || current.riderId !== command.riderId) throw new NotFoundError('No such submission among yours.');
     if (current.version !== command.expectedVersion) {
-      throw new ConflictError('This submission changed since you opened it. Reload it to see what changed.', { status: current.status, version: current.version });
+      throw new ConflictError('This submission changed since you opened it. Reload it to see what changed.', {
+        status: current.status,
+        version: current.version,
+      });
     }
     if (current.status !== 'sent_back') {
-      throw new ConflictError(`This submission is ${STATUS_WORDS[current.status]}; you can change its tags only when a moderator sends it back.`);
+      throw new ConflictError(
+        `This submission is ${STATUS_WORDS[current.status]}; you can change its tags only when a moderator sends it back.`,
+      );
     }
     return changeTagsAndRecord(trx, current, {
       actorId: command.riderId,
@@ -212,12 +241,7 @@ async function changeTagsAndRecord(
 type TagChanges = { a?: Partial<RecordingTagsInput>; b?: Partial<RecordingTagsInput> };
 
 /** Writes the changed tags after checking them against the catalogue (the rider's own proposals count). */
-async function changeTags(
-  trx: Knex.Transaction,
-  submissionId: number,
-  riderId: number | null,
-  changes: TagChanges,
-) {
+async function changeTags(trx: Knex.Transaction, submissionId: number, riderId: number | null, changes: TagChanges) {
   const before = await moderation.tagsOf(trx, submissionId);
   const after: moderation.StoredTags[] = [];
   const fields: Record<string, string> = {};
@@ -243,7 +267,12 @@ async function changeTags(
     after.push(next);
   }
   if (Object.keys(fields).length > 0) {
-    throw new ValidationError(Object.entries(fields).map(([f, m]) => `${f}: ${m}`).join('; '), { fields });
+    throw new ValidationError(
+      Object.entries(fields)
+        .map(([f, m]) => `${f}: ${m}`)
+        .join('; '),
+      { fields },
+    );
   }
   for (const tags of after) await moderation.updateTags(trx, submissionId, tags.side, tags);
   return { before, after, reanalyse };

@@ -53,11 +53,15 @@ export async function getReview(db: Knex, submissionId: number, viewer: Viewer):
 }
 
 /** The last decision, with its day only: riders and the public read it too. */
-export function decisionOf(row: { decisionReason?: string | null; decisionNote?: string | null; decidedAt?: Date | string | null }): DecisionView | null {
+export function decisionOf(row: {
+  decisionReason?: string | null;
+  decisionNote?: string | null;
+  decidedAt?: Date | string | null;
+}): DecisionView | null {
   if (!row.decidedAt) return null;
   return {
     reason: row.decisionReason ?? null,
-    reasonLabel: row.decisionReason ? (REJECT_REASON_LABELS as Record<string, string>)[row.decisionReason] ?? row.decisionReason : null,
+    reasonLabel: row.decisionReason ? ((REJECT_REASON_LABELS as Record<string, string>)[row.decisionReason] ?? row.decisionReason) : null,
     note: row.decisionNote ?? null,
     decidedOn: dayOf(row.decidedAt),
   };

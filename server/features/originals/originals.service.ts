@@ -21,7 +21,9 @@ export function originalKey(sha256: string): string {
 }
 
 export class StoreUnavailableError extends AppError {
-  constructor(message = 'The file store is not answering, so your files could not be kept and nothing was saved. Please try again in a few minutes.') {
+  constructor(
+    message = 'The file store is not answering, so your files could not be kept and nothing was saved. Please try again in a few minutes.',
+  ) {
     super(503, 'store_unavailable', message);
   }
 }
@@ -63,7 +65,10 @@ export async function fetchOriginal(store: ObjectStore, key: string): Promise<Ui
 }
 
 /** Removes those of `keys` that no recording refers to any more; a store that fails leaves them to the sweep. */
-export async function removeUnreferencedOriginals(deps: { db: Knex; store: ObjectStore; logger?: Logger }, keys: string[]): Promise<number> {
+export async function removeUnreferencedOriginals(
+  deps: { db: Knex; store: ObjectStore; logger?: Logger },
+  keys: string[],
+): Promise<number> {
   const stillReferenced = await referencedKeys(deps.db, keys);
   let removed = 0;
   for (const key of new Set(keys)) {
@@ -95,7 +100,13 @@ export interface SweepReport {
 }
 
 /** Removes objects under `originals/` that no recording refers to and that are older than the grace period. */
-export async function sweepUnreferencedOriginals(deps: { db: Knex; store: ObjectStore; graceHours: number; now?: Date; logger?: Logger }): Promise<SweepReport> {
+export async function sweepUnreferencedOriginals(deps: {
+  db: Knex;
+  store: ObjectStore;
+  graceHours: number;
+  now?: Date;
+  logger?: Logger;
+}): Promise<SweepReport> {
   const cutoff = (deps.now ?? new Date()).getTime() - deps.graceHours * 3600_000;
   const report: SweepReport = { seen: 0, removed: 0 };
   let batch: string[] = [];
@@ -127,7 +138,8 @@ export async function originalsStoreSize(store: ObjectStore): Promise<ObjectStor
   try {
     return await store.size(ORIGINALS_PREFIX);
   } catch (err) {
-    if (err instanceof ObjectStoreError) throw new StoreUnavailableError('The file store is not answering, so its size cannot be read now.');
+    if (err instanceof ObjectStoreError)
+      throw new StoreUnavailableError('The file store is not answering, so its size cannot be read now.');
     throw err;
   }
 }

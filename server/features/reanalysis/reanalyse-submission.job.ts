@@ -36,7 +36,9 @@ export async function createReanalysisQueue(queue: Queue) {
 export async function enqueueReanalysis(queue: Queue, items: ReanalyseJob[]): Promise<void> {
   for (let i = 0; i < items.length; i += 500) {
     await queue.insert(
-      items.slice(i, i + 500).map((item) => ({ name: REANALYSE_SUBMISSION_QUEUE, data: item, singletonKey: `${item.runId}:${item.submissionId}` })),
+      items
+        .slice(i, i + 500)
+        .map((item) => ({ name: REANALYSE_SUBMISSION_QUEUE, data: item, singletonKey: `${item.runId}:${item.submissionId}` })),
     );
   }
 }
@@ -72,7 +74,13 @@ function newSevereFlags(before: QualityFlag[], after: QualityFlag[]): QualityFla
  * the reason in the audit log. Unexpected errors are retried; the job that
  * completes the run recomputes the statistics.
  */
-export async function reanalyseSubmission(db: Knex, runId: number, submissionId: number, logger?: Logger, store?: ObjectStore): Promise<void> {
+export async function reanalyseSubmission(
+  db: Knex,
+  runId: number,
+  submissionId: number,
+  logger?: Logger,
+  store?: ObjectStore,
+): Promise<void> {
   const run = await reanalysis.findRun(db, runId);
   if (run?.status !== 'running') return;
   const attempts = await reanalysis.startItemAttempt(db, runId, submissionId);
@@ -90,7 +98,12 @@ export async function reanalyseSubmission(db: Knex, runId: number, submissionId:
 }
 
 /** Current already: the method, and (for a run from the originals) every recording's decoder where an original is kept. */
-async function upToDate(db: Knex, run: reanalysis.ReanalysisRunRecord, submissionId: number, methodVersion: number | null): Promise<boolean> {
+async function upToDate(
+  db: Knex,
+  run: reanalysis.ReanalysisRunRecord,
+  submissionId: number,
+  methodVersion: number | null,
+): Promise<boolean> {
   if (methodVersion !== METHOD_VERSION) return false;
   if (run.source !== 'originals') return true;
   return !(await findStoredRecordings(db, submissionId)).some(decodesAgain);
@@ -111,7 +124,9 @@ async function reanalyseItem(db: Knex, run: reanalysis.ReanalysisRunRecord, subm
   } catch (err) {
     if (!(err instanceof AnalysisError)) throw err;
     // The current method cannot compare these streams: the stored result and decision stay, and admins see why.
-    await db.transaction((trx) => reanalysis.recordItemOutcome(trx, run.id, submissionId, 'failed', `Submission ${submissionId}: ${err.message}`));
+    await db.transaction((trx) =>
+      reanalysis.recordItemOutcome(trx, run.id, submissionId, 'failed', `Submission ${submissionId}: ${err.message}`),
+    );
     return;
   }
   await db.transaction(async (trx) => {
@@ -122,7 +137,9 @@ async function reanalyseItem(db: Knex, run: reanalysis.ReanalysisRunRecord, subm
     }
     // Streams decoded again from the originals replace the stored ones, with the decoder that built them.
     for (const r of recordings.filter((r) => r.redecoded)) {
-      await trx('submission_recordings').where({ submission_id: submissionId, side: r.side }).update({ stream: r.stream, decoder_version: r.decoderVersion });
+      await trx('submission_recordings')
+        .where({ submission_id: submissionId, side: r.side })
+        .update({ stream: r.stream, decoder_version: r.decoderVersion });
     }
     const severe = newSevereFlags(current.flags, result.flags);
     const backToReview = severe.length > 0 && (current.status === 'accepted' || current.status === 'awaiting_review');
@@ -163,7 +180,12 @@ export async function finishRunIfComplete(db: Knex, runId: number, logger?: Logg
   } catch (err) {
     // The recompute rolled back: the statistics stay as they were and the run ends as failed, so an admin can start another.
     logger?.error({ err, runId }, 'closing the re-analysis run failed');
-    await reanalysis.closeRun(db, runId, 'failed', `The statistics could not be recomputed (${err instanceof Error ? err.message : String(err)}).`);
+    await reanalysis.closeRun(
+      db,
+      runId,
+      'failed',
+      `The statistics could not be recomputed (${err instanceof Error ? err.message : String(err)}).`,
+    );
     return false;
   }
   if (finished) {

@@ -132,7 +132,13 @@ export async function startItemAttempt(db: Db, runId: number, submissionId: numb
  * Records an item's outcome and counts it in its run, once: an item that already
  * has an outcome changes nothing (false).
  */
-export async function recordItemOutcome(trx: Knex.Transaction, runId: number, submissionId: number, outcome: ReanalysisOutcome, errorMessage: string | null = null): Promise<boolean> {
+export async function recordItemOutcome(
+  trx: Knex.Transaction,
+  runId: number,
+  submissionId: number,
+  outcome: ReanalysisOutcome,
+  errorMessage: string | null = null,
+): Promise<boolean> {
   const updated = await trx('reanalysis_run_items')
     .where({ run_id: runId, submission_id: submissionId })
     .whereNull('outcome')

@@ -29,7 +29,10 @@ export function presentRun(run: reanalysis.ReanalysisRunRecord): ReanalysisRunVi
 }
 
 export async function getReanalysisOverview(db: Knex): Promise<ReanalysisOverview> {
-  const [runs, outdatedSubmissions] = await Promise.all([reanalysis.listRuns(db, LISTED_RUNS), reanalysis.countOutdatedSubmissions(db, METHOD_VERSION)]);
+  const [runs, outdatedSubmissions] = await Promise.all([
+    reanalysis.listRuns(db, LISTED_RUNS),
+    reanalysis.countOutdatedSubmissions(db, METHOD_VERSION),
+  ]);
   return { currentMethodVersion: METHOD_VERSION, outdatedSubmissions, runs: runs.map(presentRun) };
 }
 
@@ -60,7 +63,11 @@ export async function startReanalysis(
     });
     return run;
   });
-  if (queue) await enqueueReanalysis(queue, started.submissionIds.map((submissionId) => ({ runId: started.id, submissionId })));
+  if (queue)
+    await enqueueReanalysis(
+      queue,
+      started.submissionIds.map((submissionId) => ({ runId: started.id, submissionId })),
+    );
   if (started.submissionIds.length === 0) await finishRunIfComplete(db, started.id, deps.logger);
   return presentRun((await reanalysis.findRun(db, started.id))!);
 }

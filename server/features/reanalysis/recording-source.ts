@@ -23,7 +23,12 @@ export function decodesAgain(recording: Pick<StoredRecording, 'originalKey' | 'd
  * worker pool, and the others keep their streams (older uploads have no original).
  * The one place a re-analysis loads rides.
  */
-export async function loadRecordingsForReanalysis(db: Knex, submissionId: number, source: ReanalysisSource, store?: ObjectStore): Promise<ReanalysisRecording[]> {
+export async function loadRecordingsForReanalysis(
+  db: Knex,
+  submissionId: number,
+  source: ReanalysisSource,
+  store?: ObjectStore,
+): Promise<ReanalysisRecording[]> {
   const recordings = await findStoredRecordings(db, submissionId);
   if (source === 'streams' || !store) return recordings.map((r) => ({ ...r, redecoded: false }));
   return Promise.all(

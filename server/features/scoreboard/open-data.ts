@@ -82,7 +82,17 @@ export async function scoreboardCsv(db: Knex, filters: ScoreboardCsvQuery): Prom
   );
 }
 
-const SIDE_COLUMNS = ['maker', 'model_slug', 'firmware', 'position', 'recording_device', 'recording_mode', 'other_meters_on', 'power_dropouts', 'cadence_dropouts'];
+const SIDE_COLUMNS = [
+  'maker',
+  'model_slug',
+  'firmware',
+  'position',
+  'recording_device',
+  'recording_mode',
+  'other_meters_on',
+  'power_dropouts',
+  'cadence_dropouts',
+];
 export const SUBMISSION_CSV_COLUMNS = [
   'submission_id',
   'ride_month',

@@ -38,7 +38,8 @@ export interface ModelRow {
   hidden_reason: string | null;
 }
 
-export type ScoreboardDbRow = ModelRow & Partial<StatisticsRow> & { latest_version: string | null; latest_released_on: string | null; total: string };
+export type ScoreboardDbRow = ModelRow &
+  Partial<StatisticsRow> & { latest_version: string | null; latest_released_on: string | null; total: string };
 
 const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -62,7 +63,14 @@ function scoreboardBase(db: Knex, filters: ScoreboardCsvQuery) {
       q
         .whereILike('m.name', pattern)
         .orWhereILike('mk.name', pattern)
-        .orWhereExists((sub) => sub.select(db.raw('1')).from('catalogue_aliases as al').where('al.entry_type', 'model').whereRaw('al.entry_id = m.id').whereILike('al.name', pattern)),
+        .orWhereExists((sub) =>
+          sub
+            .select(db.raw('1'))
+            .from('catalogue_aliases as al')
+            .where('al.entry_type', 'model')
+            .whereRaw('al.entry_id = m.id')
+            .whereILike('al.name', pattern),
+        ),
     );
   }
   return query.select(
@@ -87,7 +95,8 @@ export async function findScoreboardPage(db: Knex, query: ScoreboardQuery): Prom
     .orderByRaw(`${SORT_EXPRESSIONS[query.sort]} ${query.order} nulls last, m.name asc, m.id asc`)
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize);
-  const total = rows.length > 0 ? Number(rows[0].total) : Number((await scoreboardBase(db, query).clearSelect().count({ n: '*' }).first())?.n ?? 0);
+  const total =
+    rows.length > 0 ? Number(rows[0].total) : Number((await scoreboardBase(db, query).clearSelect().count({ n: '*' }).first())?.n ?? 0);
   return { rows, total };
 }
 
@@ -131,7 +140,9 @@ export async function findConsensusOfModel(db: Knex, modelId: number) {
 
 /** The stored consensus fit: the day it was made (null before the first) and whether a decision since has made it stale. */
 export async function findConsensusFit(db: Knex): Promise<{ fittedOn: string | null; refitPending: boolean }> {
-  const row: { consensus_computed_at: Date | null; consensus_stale: boolean } = await db('statistics_state').where({ id: 1 }).first('consensus_computed_at', 'consensus_stale');
+  const row: { consensus_computed_at: Date | null; consensus_stale: boolean } = await db('statistics_state')
+    .where({ id: 1 })
+    .first('consensus_computed_at', 'consensus_stale');
   return { fittedOn: row.consensus_computed_at && dayOf(row.consensus_computed_at), refitPending: row.consensus_stale };
 }
 
@@ -155,7 +166,16 @@ export async function findAcceptedBiases(db: Knex, modelId: number) {
     .where('r.model_id', modelId)
     .where('s.status', 'accepted')
     .where('s.pedalling_seconds', '>', 0)
-    .select('r.side', 'r.firmware_id', 's.rider_id', 's.bias_percent', 's.sum_a', 's.sum_b', 's.pedalling_seconds', 's.like_for_like_mode') as Promise<
+    .select(
+      'r.side',
+      'r.firmware_id',
+      's.rider_id',
+      's.bias_percent',
+      's.sum_a',
+      's.sum_b',
+      's.pedalling_seconds',
+      's.like_for_like_mode',
+    ) as Promise<
     {
       side: 'a' | 'b';
       firmware_id: number;
@@ -187,7 +207,11 @@ export interface RecentSubmissionRow {
 }
 
 /** A model's (or one firmware's) latest accepted sides, newest decision first, each with its partner meter. */
-export async function findRecentAccepted(db: Knex, where: { modelId: number; firmwareId?: number }, limit: number): Promise<RecentSubmissionRow[]> {
+export async function findRecentAccepted(
+  db: Knex,
+  where: { modelId: number; firmwareId?: number },
+  limit: number,
+): Promise<RecentSubmissionRow[]> {
   // The latest few first (index on the model's sides, then each submission by key),
   // and only then their partners: joining the partners of every side of the model
   // before the limit cost ten times more.
@@ -273,7 +297,11 @@ export async function findMergedModelTarget(db: Knex, slug: string): Promise<str
 }
 
 /** Where a merged firmware version's old address leads: its model's slug and the kept version. */
-export async function findMergedFirmwareTarget(db: Knex, modelSlug: string, version: string): Promise<{ slug: string; version: string } | undefined> {
+export async function findMergedFirmwareTarget(
+  db: Knex,
+  modelSlug: string,
+  version: string,
+): Promise<{ slug: string; version: string } | undefined> {
   return db('firmware_versions as old')
     .join('models as m', 'm.id', 'old.model_id')
     .join('firmware_versions as kept', 'kept.id', 'old.merged_into_id')

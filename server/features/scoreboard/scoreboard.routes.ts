@@ -31,23 +31,34 @@ export function scoreboardRouter({ db, queue }: { db: Db; queue?: Queue }) {
   router.get('/scoreboard.csv', validate(scoreboardCsvQuery, 'query'), async (_req, res) => {
     const query = res.locals.query;
     const csv = await pages.get(`scoreboard.csv ${JSON.stringify(query)}`, () => scoreboardCsv(db, query));
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="crosswatt-scoreboard.csv"', Link: licenceHeader, ETag: csv.etag });
+    res.set({
+      'Content-Type': 'text/csv; charset=utf-8',
+      'Content-Disposition': 'attachment; filename="crosswatt-scoreboard.csv"',
+      Link: licenceHeader,
+      ETag: csv.etag,
+    });
     res.send(csv.body);
   });
 
   router.get('/submissions.csv', async (_req, res) => {
-    res.set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': 'attachment; filename="crosswatt-submissions.csv"', Link: licenceHeader });
+    res.set({
+      'Content-Type': 'text/csv; charset=utf-8',
+      'Content-Disposition': 'attachment; filename="crosswatt-submissions.csv"',
+      Link: licenceHeader,
+    });
     await writeSubmissionsCsv(db, (chunk) => res.write(chunk));
     res.end();
   });
 
   router.get('/models/:slug', validate(modelParams, 'params'), async (_req, res) => {
     const { slug } = res.locals.params;
-    const page = await pages.get(`model ${slug}`, async () => JSON.stringify(await getModelPage(db, slug))).catch(async (error) => {
-      const kept = error instanceof NotFoundError ? await findMergedModelTarget(db, slug) : undefined;
-      if (!kept) throw error;
-      return kept;
-    });
+    const page = await pages
+      .get(`model ${slug}`, async () => JSON.stringify(await getModelPage(db, slug)))
+      .catch(async (error) => {
+        const kept = error instanceof NotFoundError ? await findMergedModelTarget(db, slug) : undefined;
+        if (!kept) throw error;
+        return kept;
+      });
     // A merged model's old address leads to the model it became.
     if (typeof page === 'string') return res.redirect(308, `/api/models/${encodeURIComponent(page)}`);
     sendJson(res, page);
@@ -55,12 +66,15 @@ export function scoreboardRouter({ db, queue }: { db: Db; queue?: Queue }) {
 
   router.get('/models/:slug/firmware/:version', validate(firmwareParams, 'params'), async (_req, res) => {
     const { slug, version } = res.locals.params;
-    const page = await pages.get(`firmware ${slug} ${version}`, async () => JSON.stringify(await getFirmwarePage(db, slug, version))).catch(async (error) => {
-      const kept = error instanceof NotFoundError ? await findMergedFirmwareTarget(db, slug, version) : undefined;
-      if (!kept) throw error;
-      return kept;
-    });
-    if ('slug' in page) return res.redirect(308, `/api/models/${encodeURIComponent(page.slug)}/firmware/${encodeURIComponent(page.version)}`);
+    const page = await pages
+      .get(`firmware ${slug} ${version}`, async () => JSON.stringify(await getFirmwarePage(db, slug, version)))
+      .catch(async (error) => {
+        const kept = error instanceof NotFoundError ? await findMergedFirmwareTarget(db, slug, version) : undefined;
+        if (!kept) throw error;
+        return kept;
+      });
+    if ('slug' in page)
+      return res.redirect(308, `/api/models/${encodeURIComponent(page.slug)}/firmware/${encodeURIComponent(page.version)}`);
     sendJson(res, page);
   });
 

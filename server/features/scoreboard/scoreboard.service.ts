@@ -42,7 +42,13 @@ const VALUE_LABELS: Record<string, string> = {
 };
 
 function identityOf(model: repository.ModelRow) {
-  return { slug: model.slug, name: model.name, maker: { slug: model.maker_slug, name: model.maker_name }, position: model.position, kind: model.kind };
+  return {
+    slug: model.slug,
+    name: model.name,
+    maker: { slug: model.maker_slug, name: model.maker_name },
+    position: model.position,
+    kind: model.kind,
+  };
 }
 
 export function scoreboardRowOf(row: repository.ScoreboardDbRow): ScoreboardRow {
@@ -116,11 +122,26 @@ async function loadModel(db: Knex, slug: string) {
   };
 }
 
-function consensusFigure(row: { offset_percent: number; lower_percent: number | null; upper_percent: number | null; connected_to: number }): ConsensusFigure {
-  return { offsetPercent: row.offset_percent, lowerPercent: row.lower_percent, upperPercent: row.upper_percent, connectedTo: row.connected_to };
+function consensusFigure(row: {
+  offset_percent: number;
+  lower_percent: number | null;
+  upper_percent: number | null;
+  connected_to: number;
+}): ConsensusFigure {
+  return {
+    offsetPercent: row.offset_percent,
+    lowerPercent: row.lower_percent,
+    upperPercent: row.upper_percent,
+    connectedTo: row.connected_to,
+  };
 }
 
-async function breakdown(db: Knex, modelId: number, firmwareId: number | null, scope: StatisticsRow | undefined): Promise<DropoutBreakdownRow[]> {
+async function breakdown(
+  db: Knex,
+  modelId: number,
+  firmwareId: number | null,
+  scope: StatisticsRow | undefined,
+): Promise<DropoutBreakdownRow[]> {
   const rows = await repository.findDropoutTags(db, modelId, firmwareId);
   const devices = await repository.findRecordingDeviceNames(
     db,
@@ -137,7 +158,12 @@ function recentOf(rows: repository.RecentSubmissionRow[]): RecentSubmission[] {
     rideMonth: row.ride_month,
     firmware: row.firmware,
     side: row.side,
-    partner: { modelSlug: row.partner_model_slug, modelName: row.partner_model_name, makerName: row.partner_maker_name, firmware: row.partner_firmware },
+    partner: {
+      modelSlug: row.partner_model_slug,
+      modelName: row.partner_model_name,
+      makerName: row.partner_maker_name,
+      firmware: row.partner_firmware,
+    },
     biasPercent: sideBias(row, row.side === 'a'),
     pedallingHours: row.pedalling_seconds / 3600,
     powerDropouts: (row.side === 'a' ? row.a_power_dropouts : row.b_power_dropouts) ?? 0,

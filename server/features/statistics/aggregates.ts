@@ -58,7 +58,9 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
   const riderRowsLeft: number[] = [];
   if (deltas.riders.size > 0) {
     const riders = [...deltas.riders.values()];
-    const returned: ({ id: number; model_id: number; firmware_id: number | null; rider_id: number } & RiderTotals)[] = await trx('meter_statistics_riders')
+    const returned: ({ id: number; model_id: number; firmware_id: number | null; rider_id: number } & RiderTotals)[] = await trx(
+      'meter_statistics_riders',
+    )
       .insert(riders.map(riderRow))
       .onConflict(['model_id', 'firmware_id', 'rider_id'])
       .merge(Object.fromEntries(RIDER_TOTAL_COLUMNS.map((c) => [c, trx.raw(`meter_statistics_riders.${c} + excluded.${c}`)])))
@@ -71,7 +73,12 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
       const scopeTerms = deltas.stats.get(key)!.riderTerms;
       addRiderTerms(scopeTerms, riderTerms(row), 1);
       addRiderTerms(scopeTerms, riderTerms(before), -1);
-      const change = before.contribution_count <= 0 && row.contribution_count > 0 ? 1 : before.contribution_count > 0 && row.contribution_count <= 0 ? -1 : 0;
+      const change =
+        before.contribution_count <= 0 && row.contribution_count > 0
+          ? 1
+          : before.contribution_count > 0 && row.contribution_count <= 0
+            ? -1
+            : 0;
       riderChange.set(key, (riderChange.get(key) ?? 0) + change);
     }
   }
@@ -84,13 +91,14 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
   }
 
   await trx('dropout_tag_statistics')
-    .insert(
-      [...deltas.tags.values()].map(tagRow),
-    )
+    .insert([...deltas.tags.values()].map(tagRow))
     .onConflict(['model_id', 'firmware_id', 'tag', 'value'])
     .merge(
       Object.fromEntries(
-        ['submission_count', 'pedalling_hours', 'power_dropouts', 'cadence_dropouts'].map((c) => [c, trx.raw(`dropout_tag_statistics.${c} + excluded.${c}`)]),
+        ['submission_count', 'pedalling_hours', 'power_dropouts', 'cadence_dropouts'].map((c) => [
+          c,
+          trx.raw(`dropout_tag_statistics.${c} + excluded.${c}`),
+        ]),
       ),
     );
 
@@ -106,7 +114,10 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
     .onConflict(['model_id', 'firmware_id'])
     .merge({
       ...Object.fromEntries(
-        ['distinct_riders', ...STATISTICS_SUM_COLUMNS, ...RIDER_TERM_COLUMNS].map((c) => [c, trx.raw(`meter_statistics.${c} + excluded.${c}`)]),
+        ['distinct_riders', ...STATISTICS_SUM_COLUMNS, ...RIDER_TERM_COLUMNS].map((c) => [
+          c,
+          trx.raw(`meter_statistics.${c} + excluded.${c}`),
+        ]),
       ),
       updated_at: trx.fn.now(),
     });
@@ -128,7 +139,9 @@ async function applyDeltas(trx: Knex.Transaction, deltas: Deltas, change: 'add' 
 
 async function refreshCadenceMedians(trx: Knex.Transaction, scopes: Scope[]): Promise<void> {
   const modelIds = [...new Set(scopes.map((s) => s.modelId))];
-  const counts: { model_id: number; firmware_id: number | null; lag_seconds: number; submission_count: number }[] = await trx('cadence_lag_counts')
+  const counts: { model_id: number; firmware_id: number | null; lag_seconds: number; submission_count: number }[] = await trx(
+    'cadence_lag_counts',
+  )
     .whereIn('model_id', modelIds)
     .select('model_id', 'firmware_id', 'lag_seconds', 'submission_count');
   const medians = scopes.map((scope) => {

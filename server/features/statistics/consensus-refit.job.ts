@@ -14,7 +14,13 @@ export const REFIT_CONSENSUS_QUEUE = 'refit-consensus';
 export const CONSENSUS_REFIT_DEBOUNCE_SECONDS = 5;
 
 export async function createConsensusQueue(queue: Queue) {
-  await defineQueue(queue, REFIT_CONSENSUS_QUEUE, { policy: 'stately', retryLimit: 3, retryDelay: 10, retryBackoff: true, expireInSeconds: 600 });
+  await defineQueue(queue, REFIT_CONSENSUS_QUEUE, {
+    policy: 'stately',
+    retryLimit: 3,
+    retryDelay: 10,
+    retryBackoff: true,
+    expireInSeconds: 600,
+  });
 }
 
 export async function requestConsensusRefit(queue: Queue): Promise<void> {
@@ -26,5 +32,6 @@ export async function workConsensusQueue(queue: Queue, db: Knex, logger: Logger)
     await ensureConsensusFresh(db);
   });
   // A stale fit left by processes that stopped before its refit ran.
-  if ((await readStatisticsState(db)).consensusStale) await requestConsensusRefit(queue).catch((err) => logger.warn({ err }, 'could not ask for a consensus refit'));
+  if ((await readStatisticsState(db)).consensusStale)
+    await requestConsensusRefit(queue).catch((err) => logger.warn({ err }, 'could not ask for a consensus refit'));
 }

@@ -8,7 +8,9 @@ import { biasWeight } from '@shared/statistics/weighted-bias';
 // (or `npm run stats:recompute`) refits and stores them.
 
 export async function refitConsensusOffsets(db: Knex): Promise<{ combinations: number; edges: number }> {
-  const rows: { firmware_a: number; firmware_b: number; sum_a: number; sum_b: number; pedalling_seconds: number }[] = await db('submissions as s')
+  const rows: { firmware_a: number; firmware_b: number; sum_a: number; sum_b: number; pedalling_seconds: number }[] = await db(
+    'submissions as s',
+  )
     .join('submission_recordings as ra', (j) => j.on('ra.submission_id', 's.id').andOnVal('ra.side', 'a'))
     .join('submission_recordings as rb', (j) => j.on('rb.submission_id', 's.id').andOnVal('rb.side', 'b'))
     .where('s.status', 'accepted')
@@ -26,7 +28,14 @@ export async function refitConsensusOffsets(db: Knex): Promise<{ combinations: n
   }));
   const fit = fitConsensusOffsets(edges);
   const modelOf = new Map<number, number>(
-    (await db('firmware_versions').whereIn('id', fit.offsets.map((o) => o.comboId)).select('id', 'model_id')).map((r: { id: number; model_id: number }) => [r.id, r.model_id]),
+    (
+      await db('firmware_versions')
+        .whereIn(
+          'id',
+          fit.offsets.map((o) => o.comboId),
+        )
+        .select('id', 'model_id')
+    ).map((r: { id: number; model_id: number }) => [r.id, r.model_id]),
   );
   await db.transaction(async (trx) => {
     await trx('consensus_offsets').delete();

@@ -16,7 +16,9 @@ import type { RiderTerms } from './rider-sums';
 
 export type StatisticsRow = StatisticsSums & RiderTerms & { distinct_riders: number; median_cadence_lag_seconds: number | null };
 
-const summariseBiasSumsOnce = memoize((sums: BiasSums, evidence: { distinctRiders: number; medianBiasPercent: number | null }) => summariseBiasSums(sums, evidence));
+const summariseBiasSumsOnce = memoize((sums: BiasSums, evidence: { distinctRiders: number; medianBiasPercent: number | null }) =>
+  summariseBiasSums(sums, evidence),
+);
 const welchTestOnce = memoize(welchTest);
 
 /** The rides' sums: for the ride-to-ride scatter. */
@@ -65,7 +67,12 @@ export const rateFigure = memoize(function rateFigure(events: number, hours: num
 });
 
 /** Exact conditional rate ratio with JSON-safe bounds: Infinity becomes null. */
-export const rateRatioFigure = memoize(function rateRatioFigure(events1: number, hours1: number, events2: number, hours2: number): RateRatioFigure | null {
+export const rateRatioFigure = memoize(function rateRatioFigure(
+  events1: number,
+  hours1: number,
+  events2: number,
+  hours2: number,
+): RateRatioFigure | null {
   if (!(hours1 > 0 && hours2 > 0)) return null;
   const ratio = rateRatio(events1, hours1, events2, hours2);
   return { ratio: finite(ratio.ratio), lower: ratio.lower, upper: finite(ratio.upper), pValue: ratio.pValue, method: 'poisson_exact' };
@@ -79,7 +86,8 @@ function dropoutSumsOf(row: StatisticsRow, kind: 'power' | 'cadence'): Clustered
     sumEventsSquared: kind === 'power' ? row.rider_sum_power_dropouts_squared : row.rider_sum_cadence_dropouts_squared,
     sumEventsExposure: kind === 'power' ? row.rider_sum_power_dropouts_hours : row.rider_sum_cadence_dropouts_hours,
     sumExposureSquared: row.rider_sum_hours_squared,
-    sumEventsSquaredPerExposure: kind === 'power' ? row.rider_sum_power_dropouts_squared_per_hour : row.rider_sum_cadence_dropouts_squared_per_hour,
+    sumEventsSquaredPerExposure:
+      kind === 'power' ? row.rider_sum_power_dropouts_squared_per_hour : row.rider_sum_cadence_dropouts_squared_per_hour,
   };
 }
 
@@ -220,7 +228,13 @@ function rawComparison(from: FirmwareOnPage, to: FirmwareOnPage) {
   if (!from.figures.enough || !to.figures.enough || !from.row || !to.row) return comparison;
   if (to.row.pedalling_hours > 0 && from.row.pedalling_hours > 0) {
     const ratio = clusteredRateRatio(dropoutSumsOf(to.row, 'power'), dropoutSumsOf(from.row, 'power'));
-    comparison.dropouts = { ratio: finite(ratio.ratio), lower: ratio.lower, upper: finite(ratio.upper), pValue: ratio.pValue, method: ratio.method };
+    comparison.dropouts = {
+      ratio: finite(ratio.ratio),
+      lower: ratio.lower,
+      upper: finite(ratio.upper),
+      pValue: ratio.pValue,
+      method: ratio.method,
+    };
   }
   const a = to.figures.bias;
   const b = from.figures.bias;
@@ -280,7 +294,11 @@ export interface DropoutTagRow {
 }
 
 /** Each tag value's power dropout rate, and its rate ratio against the rest of the scope. */
-export function dropoutBreakdown(scope: StatisticsRow | undefined, rows: DropoutTagRow[], labelOf: (row: DropoutTagRow) => string): DropoutBreakdownRow[] {
+export function dropoutBreakdown(
+  scope: StatisticsRow | undefined,
+  rows: DropoutTagRow[],
+  labelOf: (row: DropoutTagRow) => string,
+): DropoutBreakdownRow[] {
   if (!scope) return [];
   const scopeEnough = hasMinimumEvidence({ submissionCount: scope.submission_count, distinctRiders: scope.distinct_riders });
   return rows.map((row) => {
@@ -297,7 +315,9 @@ export function dropoutBreakdown(scope: StatisticsRow | undefined, rows: Dropout
       enough,
       powerDropouts: enough ? rateFigure(row.power_dropouts, row.pedalling_hours) : null,
       againstRest:
-        enough && restEnough ? rateRatioFigure(row.power_dropouts, row.pedalling_hours, scope.power_dropouts - row.power_dropouts, restHours) : null,
+        enough && restEnough
+          ? rateRatioFigure(row.power_dropouts, row.pedalling_hours, scope.power_dropouts - row.power_dropouts, restHours)
+          : null,
     };
   });
 }

@@ -10,7 +10,15 @@ import type { StatisticsSums } from './contributions';
 // and a recompute adds terms(totals) of every rider: the two give the same sums.
 
 /** A rider's running totals in a scope: the columns of meter_statistics_riders besides the keys. */
-export const RIDER_TOTAL_COLUMNS = ['contribution_count', 'bias_count', 'sum_weight', 'sum_weighted_bias', 'pedalling_hours', 'power_dropouts', 'cadence_dropouts'] as const;
+export const RIDER_TOTAL_COLUMNS = [
+  'contribution_count',
+  'bias_count',
+  'sum_weight',
+  'sum_weighted_bias',
+  'pedalling_hours',
+  'power_dropouts',
+  'cadence_dropouts',
+] as const;
 export type RiderTotals = Record<(typeof RIDER_TOTAL_COLUMNS)[number], number>;
 
 /** Sums over a scope's riders (meter_statistics.rider_*). */

@@ -1,6 +1,14 @@
 import { medianOfHistogram } from './cadence-median';
 import { emptySums, STATISTICS_SUM_COLUMNS, type SideContribution, type StatisticsSums } from './contributions';
-import { addRiderTerms, emptyRiderTerms, RIDER_TOTAL_COLUMNS, riderTerms, riderTotalsOf, type RiderTerms, type RiderTotals } from './rider-sums';
+import {
+  addRiderTerms,
+  emptyRiderTerms,
+  RIDER_TOTAL_COLUMNS,
+  riderTerms,
+  riderTotalsOf,
+  type RiderTerms,
+  type RiderTotals,
+} from './rider-sums';
 
 // The per-scope sums of the statistics tables (meter_statistics and its companions; see
 // the migration 20261201003000) as deltas of submissions' contributions. Pure: the
@@ -18,7 +26,10 @@ export interface Deltas {
   stats: Map<string, Scope & { sums: StatisticsSums; riderTerms: RiderTerms }>;
   riders: Map<string, Scope & { riderId: number; totals: RiderTotals }>;
   lags: Map<string, Scope & { lagSeconds: number; count: number }>;
-  tags: Map<string, Scope & { tag: string; value: string; submissionCount: number; pedallingHours: number; powerDropouts: number; cadenceDropouts: number }>;
+  tags: Map<
+    string,
+    Scope & { tag: string; value: string; submissionCount: number; pedallingHours: number; powerDropouts: number; cadenceDropouts: number }
+  >;
   likeForLike: boolean;
 }
 
@@ -59,7 +70,15 @@ export function accumulate(deltas: Deltas, contributions: SideContribution[], si
       }
       for (const { tag, value } of contribution.tags) {
         const tagKey = `${key}:${tag}:${value}`;
-        const row = deltas.tags.get(tagKey) ?? { ...scope, tag, value, submissionCount: 0, pedallingHours: 0, powerDropouts: 0, cadenceDropouts: 0 };
+        const row = deltas.tags.get(tagKey) ?? {
+          ...scope,
+          tag,
+          value,
+          submissionCount: 0,
+          pedallingHours: 0,
+          powerDropouts: 0,
+          cadenceDropouts: 0,
+        };
         row.submissionCount += sign;
         row.pedallingHours += sign * contribution.sums.pedalling_hours;
         row.powerDropouts += sign * contribution.sums.power_dropouts;
@@ -70,13 +89,17 @@ export function accumulate(deltas: Deltas, contributions: SideContribution[], si
   }
 }
 
-
 const emptyRiderTotals = (): RiderTotals => Object.fromEntries(RIDER_TOTAL_COLUMNS.map((column) => [column, 0])) as RiderTotals;
 
 export type DeltaRow<K extends keyof Deltas> = Deltas[K] extends Map<string, infer V> ? V : never;
 
 export const riderRow = (r: DeltaRow<'riders'>) => ({ model_id: r.modelId, firmware_id: r.firmwareId, rider_id: r.riderId, ...r.totals });
-export const lagRow = (l: DeltaRow<'lags'>) => ({ model_id: l.modelId, firmware_id: l.firmwareId, lag_seconds: l.lagSeconds, submission_count: l.count });
+export const lagRow = (l: DeltaRow<'lags'>) => ({
+  model_id: l.modelId,
+  firmware_id: l.firmwareId,
+  lag_seconds: l.lagSeconds,
+  submission_count: l.count,
+});
 export const tagRow = (t: DeltaRow<'tags'>) => ({
   model_id: t.modelId,
   firmware_id: t.firmwareId,
@@ -87,7 +110,6 @@ export const tagRow = (t: DeltaRow<'tags'>) => ({
   power_dropouts: t.powerDropouts,
   cadence_dropouts: t.cadenceDropouts,
 });
-
 
 /** The rows of every statistics table from the deltas of all accepted submissions (as `stats:recompute` writes them). */
 export function scopeRowsOf(deltas: Deltas) {

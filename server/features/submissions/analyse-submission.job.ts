@@ -69,7 +69,12 @@ export async function analyseSubmission(db: Knex, id: number, logger?: Logger): 
     }
     logger?.error({ err, submissionId: id, attempts }, 'analysis failed');
     if (attempts >= MAX_ANALYSIS_ATTEMPTS) {
-      await submissions.markFailed(db, id, 'analysis_error', 'The analysis could not be completed. A moderator has been told; you do not need to upload again.');
+      await submissions.markFailed(
+        db,
+        id,
+        'analysis_error',
+        'The analysis could not be completed. A moderator has been told; you do not need to upload again.',
+      );
       return;
     }
     throw err;

@@ -16,7 +16,10 @@ const HEAP_LIMIT_MB = 1024;
 
 /** A task that ran out of time or memory, or whose thread died. */
 export class RecordingTaskError extends Error {
-  constructor(readonly reason: 'time' | 'memory' | 'crash', cause: unknown) {
+  constructor(
+    readonly reason: 'time' | 'memory' | 'crash',
+    cause: unknown,
+  ) {
     super(`recording task failed (${reason})`, { cause });
     this.name = 'RecordingTaskError';
   }
@@ -58,7 +61,10 @@ async function run<T>(task: RecordingTask, timeLimitMs: number): Promise<T> {
 
 /** Decodes and checks one uploaded file; throws AnalysisError for a file the engine cannot use. */
 export function prepareRecording(bytes: Uint8Array, timeLimitMs = TASK_TIME_LIMIT_MS): Promise<PreparedRecording> {
-  return run<PreparedRecording>({ kind: 'prepare', bytes }, timeLimitMs).then((prepared) => ({ ...prepared, stored: Buffer.from(prepared.stored) }));
+  return run<PreparedRecording>({ kind: 'prepare', bytes }, timeLimitMs).then((prepared) => ({
+    ...prepared,
+    stored: Buffer.from(prepared.stored),
+  }));
 }
 
 /** Runs the engine on two stored streams. */

@@ -59,7 +59,10 @@ function stripOriginal(bytes: Uint8Array): Uint8Array {
     return stripFitLocation(bytes).bytes;
   } catch (err) {
     if (err instanceof FitStructureError) {
-      throw new AnalysisError('damaged_file', `This file is damaged: ${err.message} Export the ride again from the device that recorded it.`);
+      throw new AnalysisError(
+        'damaged_file',
+        `This file is damaged: ${err.message} Export the ride again from the device that recorded it.`,
+      );
     }
     throw err;
   }

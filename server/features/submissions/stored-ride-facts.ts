@@ -7,7 +7,12 @@ import type { ComparisonResult, DeviceIdentity, DeviceInfo, RecordingStatistics 
 
 /** A file's device identity without the serial number. */
 export function storedDeviceIdentity(device: DeviceIdentity): DeviceIdentity {
-  return { manufacturerId: device.manufacturerId, productId: device.productId, serialNumber: null, softwareVersion: device.softwareVersion };
+  return {
+    manufacturerId: device.manufacturerId,
+    productId: device.productId,
+    serialNumber: null,
+    softwareVersion: device.softwareVersion,
+  };
 }
 
 export function storedDeviceInfo(info: DeviceInfo): DeviceInfo {
@@ -40,6 +45,10 @@ export function storedResult(result: ComparisonResult): StoredComparison {
   const { devices: _devices, recordings: _recordings, alignment, ...rest } = result;
   return {
     ...rest,
-    alignment: { clockOffsetSeconds: alignment.clockOffsetSeconds, overlapSeconds: alignment.overlapSeconds, correlation: alignment.correlation },
+    alignment: {
+      clockOffsetSeconds: alignment.clockOffsetSeconds,
+      overlapSeconds: alignment.overlapSeconds,
+      correlation: alignment.correlation,
+    },
   };
 }

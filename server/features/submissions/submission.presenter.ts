@@ -1,11 +1,6 @@
 import type { DeviceIdentity, DeviceInfo } from '@shared/analysis/types';
 import { dayOf } from '@shared/schemas/day';
-import {
-  type DeviceInfoView,
-  type MySubmissionView,
-  rideComparisonView,
-  type SubmissionView,
-} from '@shared/schemas/submission-view';
+import { type DeviceInfoView, type MySubmissionView, rideComparisonView, type SubmissionView } from '@shared/schemas/submission-view';
 import type { SubmissionStatus } from '@shared/schemas/submission';
 import type { RiderSubmissionRow, SubmissionRow } from './submissions.repository';
 
@@ -44,7 +39,8 @@ export function presentSubmission(row: SubmissionRow, viewer: Viewer | undefined
     flags: row.flags.map(({ code, severity, message }) => ({ code, severity, message })),
     errorCode: row.errorCode,
     errorMessage: row.errorMessage,
-    rider: row.riderId === null ? { handle: null, name: 'deleted rider' } : { handle: row.riderHandle, name: row.riderName ?? 'deleted rider' },
+    rider:
+      row.riderId === null ? { handle: null, name: 'deleted rider' } : { handle: row.riderHandle, name: row.riderName ?? 'deleted rider' },
     isOwn: !!viewer && viewer.id === row.riderId,
     recordings: row.recordings.map((r) => ({
       side: r.side,

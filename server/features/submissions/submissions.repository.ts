@@ -45,7 +45,16 @@ export async function lockRiderSubmissions(trx: Knex.Transaction, riderId: numbe
 
 export async function insertSubmission(
   trx: Knex.Transaction,
-  row: { riderId: number; indoor: boolean; surface: string; notes: string; aSha256: string; bSha256: string; rideStartedAt: Date; rideEndedAt: Date },
+  row: {
+    riderId: number;
+    indoor: boolean;
+    surface: string;
+    notes: string;
+    aSha256: string;
+    bSha256: string;
+    rideStartedAt: Date;
+    rideEndedAt: Date;
+  },
   recordings: NewRecording[],
 ): Promise<number> {
   const [{ id }] = await trx('submissions')
@@ -123,11 +132,19 @@ export async function findForAnalysis(db: Knex, id: number) {
   const submission = await db('submissions').where({ id }).first('id', 'status', 'attempts');
   if (!submission) return undefined;
   const recordings = await findStoredRecordings(db, id);
-  return { id: submission.id as number, status: submission.status as SubmissionStatus, attempts: submission.attempts as number, recordings };
+  return {
+    id: submission.id as number,
+    status: submission.status as SubmissionStatus,
+    attempts: submission.attempts as number,
+    recordings,
+  };
 }
 
 /** What the tag check compares a recording's tags with: its model's firmware versions and every recording device. */
-export async function findTagCatalogue(db: Knex, modelId: number): Promise<{ firmware: { id: number; version: string }[]; recordingDevices: { id: number; name: string }[] }> {
+export async function findTagCatalogue(
+  db: Knex,
+  modelId: number,
+): Promise<{ firmware: { id: number; version: string }[]; recordingDevices: { id: number; name: string }[] }> {
   const [firmware, recordingDevices] = await Promise.all([
     db('firmware_versions').where({ model_id: modelId }).whereNot('status', 'rejected').select('id', 'version'),
     db('recording_devices').whereNot('status', 'rejected').select('id', 'name'),
@@ -162,30 +179,30 @@ export async function storeResult(db: Knex, id: number, result: ComparisonResult
 /** The stored result, its flags and its headline columns, as one update (also used by re-analysis). */
 export function resultColumns(db: Knex, result: ComparisonResult) {
   return {
-      method_version: result.methodVersion,
-      result: JSON.stringify(storedResult(result)),
-      flags: JSON.stringify(result.flags),
-      flag_severity: flagSeverity(result.flags),
-      error_code: null,
-      error_message: null,
-      bias_percent: result.bias.percent,
-      loa_lower_percent: result.agreement.lowerLimitPercent,
-      loa_upper_percent: result.agreement.upperLimitPercent,
-      sum_a: result.sums.a,
-      sum_b: result.sums.b,
-      matched_seconds: result.bias.matchedSeconds,
-      pedalling_seconds: result.pedallingSeconds,
-      overlap_seconds: result.alignment.overlapSeconds,
-      clock_offset_seconds: result.alignment.clockOffsetSeconds,
-      correlation: result.alignment.correlation,
-      cadence_lag_seconds: result.cadenceLagSeconds,
-      like_for_like_mode: result.likeForLike.mode,
-      a_power_dropouts: result.dropouts.a.power.count,
-      a_cadence_dropouts: result.dropouts.a.cadence.count,
-      b_power_dropouts: result.dropouts.b.power.count,
-      b_cadence_dropouts: result.dropouts.b.cadence.count,
-      analysed_at: db.fn.now(),
-      updated_at: db.fn.now(),
+    method_version: result.methodVersion,
+    result: JSON.stringify(storedResult(result)),
+    flags: JSON.stringify(result.flags),
+    flag_severity: flagSeverity(result.flags),
+    error_code: null,
+    error_message: null,
+    bias_percent: result.bias.percent,
+    loa_lower_percent: result.agreement.lowerLimitPercent,
+    loa_upper_percent: result.agreement.upperLimitPercent,
+    sum_a: result.sums.a,
+    sum_b: result.sums.b,
+    matched_seconds: result.bias.matchedSeconds,
+    pedalling_seconds: result.pedallingSeconds,
+    overlap_seconds: result.alignment.overlapSeconds,
+    clock_offset_seconds: result.alignment.clockOffsetSeconds,
+    correlation: result.alignment.correlation,
+    cadence_lag_seconds: result.cadenceLagSeconds,
+    like_for_like_mode: result.likeForLike.mode,
+    a_power_dropouts: result.dropouts.a.power.count,
+    a_cadence_dropouts: result.dropouts.a.cadence.count,
+    b_power_dropouts: result.dropouts.b.power.count,
+    b_cadence_dropouts: result.dropouts.b.cadence.count,
+    analysed_at: db.fn.now(),
+    updated_at: db.fn.now(),
   };
 }
 

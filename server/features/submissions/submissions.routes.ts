@@ -42,13 +42,21 @@ export function submissionsRouter(deps: { db: Db; queue?: Queue; config: Config;
     const fileA = uploadedFile(req, 'fileA');
     const fileB = uploadedFile(req, 'fileB');
     if (!fileA || !fileB) {
-      const fields = { ...(!fileA && { fileA: 'choose the first FIT file (A)' }), ...(!fileB && { fileB: 'choose the second FIT file (B)' }) };
+      const fields = {
+        ...(!fileA && { fileA: 'choose the first FIT file (A)' }),
+        ...(!fileB && { fileB: 'choose the second FIT file (B)' }),
+      };
       throw new ValidationError('Upload exactly two FIT files: the first (A) and the second (B).', { fields });
     }
-    const { id } = await createSubmission({ db, queue: deps.queue, store: deps.store, submissionsPerDay: deps.config.SUBMISSIONS_PER_DAY }, req.user!.id, input, {
-      a: { buffer: fileA.buffer, originalName: fileA.originalname },
-      b: { buffer: fileB.buffer, originalName: fileB.originalname },
-    });
+    const { id } = await createSubmission(
+      { db, queue: deps.queue, store: deps.store, submissionsPerDay: deps.config.SUBMISSIONS_PER_DAY },
+      req.user!.id,
+      input,
+      {
+        a: { buffer: fileA.buffer, originalName: fileA.originalname },
+        b: { buffer: fileB.buffer, originalName: fileB.originalname },
+      },
+    );
     res.status(201).json({ id, status: 'received', url: `/submissions/${id}` } satisfies CreatedSubmission);
   });
 

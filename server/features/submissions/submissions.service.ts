@@ -141,7 +141,11 @@ async function prepare(bytes: Buffer, side: Side): Promise<PreparedRecording> {
       throw new UnusableFileError(side, err.code, err.message.replace(/^This (file|recording)/, `The ${SIDE_LABEL[side]} file`));
     }
     if (err instanceof RecordingTaskError) {
-      throw new UnusableFileError(side, 'too_costly', `The ${SIDE_LABEL[side]} file takes more ${err.reason === 'time' ? 'time' : 'memory'} to read than any ride recording does, so it was not read to the end. Export the ride again from the device that recorded it.`);
+      throw new UnusableFileError(
+        side,
+        'too_costly',
+        `The ${SIDE_LABEL[side]} file takes more ${err.reason === 'time' ? 'time' : 'memory'} to read than any ride recording does, so it was not read to the end. Export the ride again from the device that recorded it.`,
+      );
     }
     throw err;
   }
@@ -179,7 +183,9 @@ async function checkTags(db: Knex, riderId: number, input: CreateSubmissionInput
     }
   }
   if (Object.keys(fields).length > 0) {
-    const message = Object.entries(fields).map(([f, m]) => `${f}: ${m}`).join('; ');
+    const message = Object.entries(fields)
+      .map(([f, m]) => `${f}: ${m}`)
+      .join('; ');
     throw new ValidationError(message, { fields });
   }
 }

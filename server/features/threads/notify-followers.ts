@@ -25,7 +25,10 @@ export async function notifyFollowers(
 ): Promise<number[]> {
   const followers = await threads.followerIds(trx, event.threadId, event.actorId);
   if (followers.length === 0) return [];
-  await threads.insertNotifications(trx, followers.map((userId) => ({ userId, threadId: event.threadId, postId: event.postId, kind: event.kind })));
+  await threads.insertNotifications(
+    trx,
+    followers.map((userId) => ({ userId, threadId: event.threadId, postId: event.postId, kind: event.kind })),
+  );
 
   const mailKind = MAIL_KIND[event.kind];
   if (!mailKind || event.postId === null) return followers;

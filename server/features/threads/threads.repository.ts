@@ -118,7 +118,10 @@ export async function findThread(db: Db, id: number, options: { forUpdate?: bool
   return row && threadRow(row);
 }
 
-export async function insertThread(db: Db, row: { modelId: number; firmwareId: number | null; authorId: number; title: string }): Promise<number> {
+export async function insertThread(
+  db: Db,
+  row: { modelId: number; firmwareId: number | null; authorId: number; title: string },
+): Promise<number> {
   const [{ id }] = await db('threads')
     .insert({ model_id: row.modelId, firmware_id: row.firmwareId, author_id: row.authorId, title: row.title })
     .returning('id');
@@ -233,7 +236,10 @@ export async function listThreads(db: Db, modelId: number, query: ThreadListQuer
   const [{ count }] = await filtered.clone().count<{ count: string }[]>({ count: '*' });
   const rows = await summaryQuery(db)
     .whereIn('t.id', filtered.clone().select('t.id'))
-    .orderBy([{ column: 't.last_activity_at', order: 'desc' }, { column: 't.id', order: 'desc' }])
+    .orderBy([
+      { column: 't.last_activity_at', order: 'desc' },
+      { column: 't.id', order: 'desc' },
+    ])
     .limit(THREADS_PAGE_SIZE)
     .offset((query.page - 1) * THREADS_PAGE_SIZE);
   return { threads: rows.map(toSummary), total: Number(count) };
@@ -322,7 +328,13 @@ function postQuery(db: Db) {
   return db('posts as p')
     .leftJoin('users as u', 'u.id', 'p.author_id')
     .leftJoin('makers as mk', 'mk.id', 'p.staff_maker_id')
-    .select('p.*', 'u.handle as author_handle', 'u.name as author_name', 'u.deleted_at as author_deleted_at', 'mk.name as staff_maker_name');
+    .select(
+      'p.*',
+      'u.handle as author_handle',
+      'u.name as author_name',
+      'u.deleted_at as author_deleted_at',
+      'mk.name as staff_maker_name',
+    );
 }
 
 export async function listPosts(db: Db, threadId: number): Promise<PostRow[]> {
@@ -359,7 +371,11 @@ export async function updatePostBody(db: Db, id: number, body: { source: string;
 export async function setPostHidden(db: Db, id: number, hidden: { reason: string; by: number } | null): Promise<void> {
   await db('posts')
     .where({ id })
-    .update(hidden ? { hidden_reason: hidden.reason, hidden_by: hidden.by, hidden_at: db.fn.now() } : { hidden_reason: null, hidden_by: null, hidden_at: null });
+    .update(
+      hidden
+        ? { hidden_reason: hidden.reason, hidden_by: hidden.by, hidden_at: db.fn.now() }
+        : { hidden_reason: null, hidden_by: null, hidden_at: null },
+    );
 }
 
 export async function setOfficialResponse(db: Db, threadId: number, postId: number | null): Promise<void> {
@@ -369,7 +385,10 @@ export async function setOfficialResponse(db: Db, threadId: number, postId: numb
 
 /** Staff badges belong to the maker of the model; after a move to another maker's model they no longer speak for it. */
 export async function firstStaffReplyAt(db: Db, threadId: number, makerId: number): Promise<Date | null> {
-  const row = await db('posts').where({ thread_id: threadId, staff_maker_id: makerId, is_opening: false }).min<{ min: Date | null }>('created_at as min').first();
+  const row = await db('posts')
+    .where({ thread_id: threadId, staff_maker_id: makerId, is_opening: false })
+    .min<{ min: Date | null }>('created_at as min')
+    .first();
   return row?.min ?? null;
 }
 
@@ -407,7 +426,18 @@ export async function linkedSubmissions(db: Db, postIds: number[], modelId: numb
     .whereIn('ps.post_id', postIds)
     .where('s.status', 'accepted')
     .orderBy(['ps.post_id', 's.id', 'r.side'])
-    .select('ps.post_id', 's.id', 'r.side', 'f.version', 's.bias_percent', 's.loa_lower_percent', 's.loa_upper_percent', 's.a_power_dropouts', 's.b_power_dropouts', 's.ride_started_at');
+    .select(
+      'ps.post_id',
+      's.id',
+      'r.side',
+      'f.version',
+      's.bias_percent',
+      's.loa_lower_percent',
+      's.loa_upper_percent',
+      's.a_power_dropouts',
+      's.b_power_dropouts',
+      's.ride_started_at',
+    );
   for (const r of rows) {
     const list = byPost.get(r.post_id) ?? [];
     if (list.some((l) => l.id === r.id)) continue;
@@ -506,7 +536,15 @@ export async function listNotifications(db: Db, userId: number): Promise<Notific
     .where('n.user_id', userId)
     .orderBy('n.id', 'desc')
     .limit(NOTIFICATIONS_PAGE_SIZE)
-    .select('n.*', 't.title', 'm.name as model_name', 'p.author_id', 'u.handle as author_handle', 'u.name as author_name', 'u.deleted_at as author_deleted_at')
+    .select(
+      'n.*',
+      't.title',
+      'm.name as model_name',
+      'p.author_id',
+      'u.handle as author_handle',
+      'u.name as author_name',
+      'u.deleted_at as author_deleted_at',
+    )
     .then((rows) =>
       rows.map((r: NotificationRecord) => ({
         id: r.id,

@@ -33,10 +33,17 @@ export function threadsRouter(deps: service.ThreadDeps) {
   router.get('/models/:slug/threads', validate(slugParams, 'params'), validate(threadListQuery, 'query'), async (_req, res) => {
     res.json(await service.listModelThreads(db, res.locals.params.slug, res.locals.query));
   });
-  router.post('/models/:slug/threads', posting, requireUser, validate(slugParams, 'params'), validate(createThreadInput), async (req, res) => {
-    const { id } = await service.createThread(deps, req.user!, res.locals.params.slug, res.locals.body);
-    res.status(201).json({ id, url: `/threads/${id}` });
-  });
+  router.post(
+    '/models/:slug/threads',
+    posting,
+    requireUser,
+    validate(slugParams, 'params'),
+    validate(createThreadInput),
+    async (req, res) => {
+      const { id } = await service.createThread(deps, req.user!, res.locals.params.slug, res.locals.body);
+      res.status(201).json({ id, url: `/threads/${id}` });
+    },
+  );
   router.get('/models/:slug/thread-summary', validate(slugParams, 'params'), async (_req, res) => {
     res.json(await service.getModelThreadSummary(db, res.locals.params.slug));
   });
@@ -76,20 +83,34 @@ export function threadsRouter(deps: service.ThreadDeps) {
     await service.setThreadLocked(db, req.user!, res.locals.params.id, res.locals.body.locked, res.locals.body.reason);
     res.json(await show(res.locals.params.id, req.user));
   });
-  router.post('/threads/:id/move', requireRole('moderator'), requireNotMakerStaff, threadId, validate(moveThreadInput), async (req, res) => {
-    await service.moveThread(db, req.user!, res.locals.params.id, res.locals.body.modelSlug, res.locals.body.reason);
-    res.json(await show(res.locals.params.id, req.user));
-  });
+  router.post(
+    '/threads/:id/move',
+    requireRole('moderator'),
+    requireNotMakerStaff,
+    threadId,
+    validate(moveThreadInput),
+    async (req, res) => {
+      await service.moveThread(db, req.user!, res.locals.params.id, res.locals.body.modelSlug, res.locals.body.reason);
+      res.json(await show(res.locals.params.id, req.user));
+    },
+  );
 
   // ——— posts ———
   router.patch('/posts/:id', posting, requireUser, validate(idParams, 'params'), validate(editPostInput), async (req, res) => {
     await service.editPost(deps, req.user!, res.locals.params.id, res.locals.body);
     res.json({ id: res.locals.params.id });
   });
-  router.put('/posts/:id/visibility', requireRole('moderator'), requireNotMakerStaff, validate(idParams, 'params'), validate(postVisibilityInput), async (req, res) => {
-    await service.setPostVisibility(db, req.user!, res.locals.params.id, res.locals.body);
-    res.json({ id: res.locals.params.id, hidden: res.locals.body.hidden });
-  });
+  router.put(
+    '/posts/:id/visibility',
+    requireRole('moderator'),
+    requireNotMakerStaff,
+    validate(idParams, 'params'),
+    validate(postVisibilityInput),
+    async (req, res) => {
+      await service.setPostVisibility(db, req.user!, res.locals.params.id, res.locals.body);
+      res.json({ id: res.locals.params.id, hidden: res.locals.body.hidden });
+    },
+  );
 
   // ——— notifications ———
   router.get('/notifications', requireUser, async (req, res) => {

@@ -74,7 +74,10 @@ async function checkedSubmissionIds(db: Knex | Knex.Transaction, modelId: number
 
 export async function listModelThreads(db: Knex, slug: string, query: ThreadListQuery): Promise<ThreadListResponse> {
   const model = await approvedModel(db, slug);
-  const [{ threads: list, total }, firmware] = await Promise.all([threads.listThreads(db, model.id, query), threads.listFirmware(db, model.id)]);
+  const [{ threads: list, total }, firmware] = await Promise.all([
+    threads.listThreads(db, model.id, query),
+    threads.listFirmware(db, model.id),
+  ]);
   const { status: _status, ...ref } = model;
   return { model: { ...ref, firmware }, threads: list, total, page: query.page, pageSize: threads.THREADS_PAGE_SIZE };
 }
@@ -86,7 +89,14 @@ export async function getModelThreadSummary(db: Knex, slug: string): Promise<Mod
   return {
     openCount: counts.open,
     totalCount: counts.total,
-    threads: withMaker.map(({ id, title, status, fixedIn, lastActivityOn, hasOfficialResponse }) => ({ id, title, status, fixedIn, lastActivityOn, hasOfficialResponse })),
+    threads: withMaker.map(({ id, title, status, fixedIn, lastActivityOn, hasOfficialResponse }) => ({
+      id,
+      title,
+      status,
+      fixedIn,
+      lastActivityOn,
+      hasOfficialResponse,
+    })),
   };
 }
 
@@ -120,7 +130,11 @@ export async function getThread(db: Knex, id: number, viewer: Viewer): Promise<T
     thread.movedFromModelId ? threads.findModelById(db, thread.movedFromModelId) : undefined,
     viewer ? threads.isFollowing(db, id, viewer.id) : false,
   ]);
-  const linked = await threads.linkedSubmissions(db, posts.map((p) => p.id), model.id);
+  const linked = await threads.linkedSubmissions(
+    db,
+    posts.map((p) => p.id),
+    model.id,
+  );
   const now = Date.now();
   const views = posts.map((p) => toPostView(p, viewer, linked.get(p.id) ?? [], now));
   const isModerator = !!viewer?.roles.includes('moderator');
@@ -155,12 +169,19 @@ function staffMakerFor(user: SessionUser, model: threads.ModelRow): number | nul
   return isStaffOf(user, model.maker.id) ? model.maker.id : null;
 }
 
-export async function createThread(deps: ThreadDeps, user: SessionUser, slug: string, raw: CreateThreadInput): Promise<{ id: number; postId: number }> {
+export async function createThread(
+  deps: ThreadDeps,
+  user: SessionUser,
+  slug: string,
+  raw: CreateThreadInput,
+): Promise<{ id: number; postId: number }> {
   const input = createThreadInput.parse(raw);
   return deps.db.transaction(async (trx) => {
     const model = await approvedModel(trx, slug);
     if (input.firmwareId !== null && !(await threads.firmwareOfModel(trx, input.firmwareId, model.id))) {
-      throw new ValidationError(`firmwareId: not a firmware version of ${model.name}`, { fields: { firmwareId: `not a firmware version of ${model.name}` } });
+      throw new ValidationError(`firmwareId: not a firmware version of ${model.name}`, {
+        fields: { firmwareId: `not a firmware version of ${model.name}` },
+      });
     }
     const submissionIds = await checkedSubmissionIds(trx, model.id, input.submissionIds, model.name);
     const id = await threads.insertThread(trx, { modelId: model.id, firmwareId: input.firmwareId, authorId: user.id, title: input.title });
@@ -210,7 +231,11 @@ export async function editPost(deps: ThreadDeps, user: SessionUser, postId: numb
     if (post.authorId !== user.id) throw new ForbiddenError('Only the author of a post can edit it.');
     if (post.hiddenReason) throw new ForbiddenError('A moderator has hidden this post, so it cannot be edited.');
     if (Date.now() - post.createdAt.getTime() > EDIT_WINDOW_MS) {
-      throw new AppError(403, 'edit_window_closed', `Posts can be edited for ${POST_EDIT_WINDOW_MINUTES} minutes after writing them; write a reply instead.`);
+      throw new AppError(
+        403,
+        'edit_window_closed',
+        `Posts can be edited for ${POST_EDIT_WINDOW_MINUTES} minutes after writing them; write a reply instead.`,
+      );
     }
     const { thread, model } = await existingThread(trx, post.threadId);
     if (thread.locked) throw new ThreadLockedError();
@@ -224,19 +249,22 @@ export async function editPost(deps: ThreadDeps, user: SessionUser, postId: numb
 export async function markOfficialResponse(deps: ThreadDeps, user: SessionUser, threadId: number, postId: number | null): Promise<void> {
   await deps.db.transaction(async (trx) => {
     const { model } = await existingThread(trx, threadId, true);
-    if (!isStaffOf(user, model.maker.id)) throw new ForbiddenError(`Only verified staff of ${model.maker.name} can mark the official response.`);
+    if (!isStaffOf(user, model.maker.id))
+      throw new ForbiddenError(`Only verified staff of ${model.maker.name} can mark the official response.`);
     if (postId === null) {
       await threads.setOfficialResponse(trx, threadId, null);
       return;
     }
     const post = await threads.findPost(trx, postId);
-    if (!post || post.threadId !== threadId) throw new ValidationError('postId: not a post of this thread', { fields: { postId: 'not a post of this thread' } });
+    if (!post || post.threadId !== threadId)
+      throw new ValidationError('postId: not a post of this thread', { fields: { postId: 'not a post of this thread' } });
     if (post.staffMakerId !== model.maker.id || post.isOpening) {
       throw new ValidationError(`postId: only a reply written by staff of ${model.maker.name} can be the official response`, {
         fields: { postId: `choose a reply written by staff of ${model.maker.name}` },
       });
     }
-    if (post.hiddenReason) throw new ValidationError('postId: a hidden post cannot be the official response', { fields: { postId: 'this post is hidden' } });
+    if (post.hiddenReason)
+      throw new ValidationError('postId: a hidden post cannot be the official response', { fields: { postId: 'this post is hidden' } });
     if (post.isOfficialResponse) return;
     await threads.setOfficialResponse(trx, threadId, postId);
     await threads.touchThread(trx, threadId);
@@ -248,9 +276,12 @@ export async function setThreadStatus(deps: ThreadDeps, user: SessionUser, threa
   const input = setThreadStatusInput.parse(raw);
   await deps.db.transaction(async (trx) => {
     const { thread, model } = await existingThread(trx, threadId, true);
-    if (!isStaffOf(user, model.maker.id)) throw new ForbiddenError(`Only verified staff of ${model.maker.name} can set this thread's status.`);
+    if (!isStaffOf(user, model.maker.id))
+      throw new ForbiddenError(`Only verified staff of ${model.maker.name} can set this thread's status.`);
     if (input.fixedInFirmwareId !== null && !(await threads.firmwareOfModel(trx, input.fixedInFirmwareId, model.id))) {
-      throw new ValidationError(`fixedInFirmwareId: not a firmware version of ${model.name}`, { fields: { fixedInFirmwareId: `not a firmware version of ${model.name}` } });
+      throw new ValidationError(`fixedInFirmwareId: not a firmware version of ${model.name}`, {
+        fields: { fixedInFirmwareId: `not a firmware version of ${model.name}` },
+      });
     }
     if (thread.status === input.status && thread.fixedInFirmwareId === input.fixedInFirmwareId) return;
     await threads.updateThread(trx, threadId, {
@@ -327,10 +358,13 @@ export async function moveThread(db: Knex, moderator: SessionUser, threadId: num
     const { thread, model } = await existingThread(trx, threadId, true);
     const target = await threads.findModelBySlug(trx, targetSlug);
     if (target?.status !== 'approved') {
-      throw new ValidationError(`modelSlug: there is no model "${targetSlug}" in the catalogue`, { fields: { modelSlug: 'unknown model' } });
+      throw new ValidationError(`modelSlug: there is no model "${targetSlug}" in the catalogue`, {
+        fields: { modelSlug: 'unknown model' },
+      });
     }
     assertIndependentOf(moderator, [model.maker.id, target.maker.id]);
-    if (target.id === model.id) throw new ValidationError('modelSlug: the thread is already about this model', { fields: { modelSlug: 'same model' } });
+    if (target.id === model.id)
+      throw new ValidationError('modelSlug: the thread is already about this model', { fields: { modelSlug: 'same model' } });
     const sameMaker = target.maker.id === model.maker.id;
     await threads.updateThread(trx, threadId, {
       modelId: target.id,

@@ -147,10 +147,7 @@ export async function countAdminsForUpdate(trx: Knex.Transaction): Promise<numbe
 }
 
 export async function makersOf(db: Db, userId: number): Promise<MakerSummary[]> {
-  return db('maker_staff as s')
-    .join('makers as m', 'm.id', 's.maker_id')
-    .where('s.user_id', userId)
-    .select('m.id', 'm.slug', 'm.name');
+  return db('maker_staff as s').join('makers as m', 'm.id', 's.maker_id').where('s.user_id', userId).select('m.id', 'm.slug', 'm.name');
 }
 
 export async function upsertMakerStaff(db: Db, userId: number, makerId: number, verifiedBy: number | null): Promise<void> {

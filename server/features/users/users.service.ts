@@ -99,7 +99,13 @@ export async function signInWithProfile(db: Knex, profile: ProviderProfile): Pro
       avatarUrl: profile.avatarUrl ?? null,
     });
     await users.insertRoleGrant(trx, newId, 'rider', null);
-    await recordAudit(trx, { actorId: newId, action: 'user.created', subjectType: 'user', subjectId: newId, after: { handle, roles: ['rider'] } });
+    await recordAudit(trx, {
+      actorId: newId,
+      action: 'user.created',
+      subjectType: 'user',
+      subjectId: newId,
+      after: { handle, roles: ['rider'] },
+    });
     return newId;
   });
   const user = await loadSessionUser(db, id);
@@ -120,13 +126,19 @@ export async function updateAccount(db: Knex, userId: number, input: UpdateAccou
  * Their uploaded files are removed from the object store once the rows no longer
  * name them (a store that fails then leaves them to the sweep of unnamed objects).
  */
-export async function deleteAccount(deps: { db: Knex; store: ObjectStore; logger?: Logger }, userId: number, confirmHandle: string): Promise<void> {
+export async function deleteAccount(
+  deps: { db: Knex; store: ObjectStore; logger?: Logger },
+  userId: number,
+  confirmHandle: string,
+): Promise<void> {
   const { db } = deps;
   const removeOriginals = await db.transaction(async (trx) => {
     const user = await users.findUserById(trx, userId);
     if (!user || user.deletedAt) throw new NotFoundError('This account no longer exists.');
     if (user.handle !== confirmHandle) {
-      throw new ValidationError('confirmHandle: type your handle exactly to confirm', { fields: { confirmHandle: 'does not match your handle' } });
+      throw new ValidationError('confirmHandle: type your handle exactly to confirm', {
+        fields: { confirmHandle: 'does not match your handle' },
+      });
     }
     const roles = await users.rolesOf(trx, userId);
     if (roles.includes('admin') && (await users.countAdminsForUpdate(trx)) <= 1) {
@@ -182,7 +194,15 @@ async function changeRole(db: Knex, change: RoleChange, kind: 'granted' | 'revok
         : await users.deleteRoleGrant(trx, change.userId, change.role);
     if (!changed) return before;
     const after = await users.rolesOf(trx, change.userId);
-    await recordAudit(trx, { actorId: change.actorId, action: `role.${kind}`, subjectType: 'user', subjectId: change.userId, reason: change.reason, before: { roles: before }, after: { roles: after } });
+    await recordAudit(trx, {
+      actorId: change.actorId,
+      action: `role.${kind}`,
+      subjectType: 'user',
+      subjectId: change.userId,
+      reason: change.reason,
+      before: { roles: before },
+      after: { roles: after },
+    });
     return after;
   });
 }
@@ -201,7 +221,15 @@ export async function verifyMakerStaff(
     const [before] = await users.makersOf(trx, change.userId);
     if (before?.id === maker.id) return;
     await users.upsertMakerStaff(trx, change.userId, maker.id, change.actorId);
-    await recordAudit(trx, { actorId: change.actorId, action: 'maker_staff.verified', subjectType: 'user', subjectId: change.userId, reason: change.reason, before: { maker: before ?? null }, after: { maker } });
+    await recordAudit(trx, {
+      actorId: change.actorId,
+      action: 'maker_staff.verified',
+      subjectType: 'user',
+      subjectId: change.userId,
+      reason: change.reason,
+      before: { maker: before ?? null },
+      after: { maker },
+    });
   });
 }
 
@@ -211,7 +239,15 @@ export async function removeMakerStaff(db: Knex, change: { actorId: number; user
     const [before] = await users.makersOf(trx, change.userId);
     if (!before) return;
     await users.deleteMakerStaff(trx, change.userId);
-    await recordAudit(trx, { actorId: change.actorId, action: 'maker_staff.removed', subjectType: 'user', subjectId: change.userId, reason: change.reason, before: { maker: before }, after: { maker: null } });
+    await recordAudit(trx, {
+      actorId: change.actorId,
+      action: 'maker_staff.removed',
+      subjectType: 'user',
+      subjectId: change.userId,
+      reason: change.reason,
+      before: { maker: before },
+      after: { maker: null },
+    });
   });
 }
 
@@ -231,7 +267,15 @@ export function listMakers(db: Knex) {
  */
 export async function ensureUser(
   db: Knex,
-  person: { handle: string; name: string; email?: string | null; roles?: Role[]; makerSlug?: string; providerId?: string; provider?: string },
+  person: {
+    handle: string;
+    name: string;
+    email?: string | null;
+    roles?: Role[];
+    makerSlug?: string;
+    providerId?: string;
+    provider?: string;
+  },
 ): Promise<SessionUser> {
   const handle = handleSchema.parse(person.handle);
   const id = await db.transaction(async (trx) => {

@@ -19,21 +19,33 @@ export function AccountRoute() {
             </p>
           </header>
           <section aria-labelledby="profile" className="space-y-4 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
-            <h2 id="profile" className="text-lead font-semibold">Profile and e-mail</h2>
+            <h2 id="profile" className="text-lead font-semibold">
+              Profile and e-mail
+            </h2>
             <AccountSettingsForm me={me} />
           </section>
           <section aria-labelledby="my-submissions" className="space-y-3 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
-            <h2 id="my-submissions" className="text-lead font-semibold">My submissions</h2>
+            <h2 id="my-submissions" className="text-lead font-semibold">
+              My submissions
+            </h2>
             <MySubmissionsList />
           </section>
           <section aria-labelledby="my-meters" className="space-y-2 rounded-card border border-paper-line bg-white/70 p-6 shadow-card">
-            <h2 id="my-meters" className="text-lead font-semibold">My meters and their batteries</h2>
+            <h2 id="my-meters" className="text-lead font-semibold">
+              My meters and their batteries
+            </h2>
             <p className="text-ink-soft">
-              Log battery changes and riding per meter on <Link to="/my-equipment" className="text-fjord-700 underline">My meters</Link>: they count towards each model's battery life.
+              Log battery changes and riding per meter on{' '}
+              <Link to="/my-equipment" className="text-fjord-700 underline">
+                My meters
+              </Link>
+              : they count towards each model's battery life.
             </p>
           </section>
           <section aria-labelledby="delete" className="space-y-4 rounded-card border border-alert-100 bg-white/70 p-6 shadow-card">
-            <h2 id="delete" className="text-lead font-semibold text-alert-800">Delete my account</h2>
+            <h2 id="delete" className="text-lead font-semibold text-alert-800">
+              Delete my account
+            </h2>
             <DeleteAccountForm handle={me.handle} />
           </section>
         </div>

@@ -16,7 +16,12 @@ export function FirmwareRoute() {
   const { slug = '', version = '' } = useParams();
   const firmware = useFirmware(slug, version);
   if (firmware.isPending) return <p className="text-ink-soft">Loading…</p>;
-  if (firmware.isError) return <p role="alert" className="text-alert-800">{firmware.error.message}</p>;
+  if (firmware.isError)
+    return (
+      <p role="alert" className="text-alert-800">
+        {firmware.error.message}
+      </p>
+    );
   const page = firmware.data;
   // A merged version's old address answers with the version it became: show that address.
   if (page.model.slug !== slug || page.firmware.version !== version) {
@@ -32,16 +37,26 @@ export function FirmwareRoute() {
         affects={[getModelQueryOptions(slug).queryKey, getScoreboardQueryOptions({}).queryKey]}
       />
       <div className="mt-8">
-        <HeadlineFigures figures={page.firmware.figures} consensus={page.firmware.consensus} consensusFit={{ fittedOn: page.consensusFittedOn, refitPending: page.consensusRefitPending }} />
+        <HeadlineFigures
+          figures={page.firmware.figures}
+          consensus={page.firmware.consensus}
+          consensusFit={{ fittedOn: page.consensusFittedOn, refitPending: page.consensusRefitPending }}
+        />
         <FigureMethodsLine methods={page.methods} />
       </div>
       <Section title="Against the previous firmware">
         <FirmwareComparisonTable modelSlug={page.model.slug} firmware={[page.firmware]} />
       </Section>
-      <Section title="What goes with dropouts" intro="Power dropouts on this firmware split by how the rides were recorded, each against the other rides on this firmware.">
+      <Section
+        title="What goes with dropouts"
+        intro="Power dropouts on this firmware split by how the rides were recorded, each against the other rides on this firmware."
+      >
         <DropoutBreakdown rows={page.dropoutBreakdown} />
       </Section>
-      <Section title="Battery and temperature" intro="How long a battery lasts on this version, from riders' logs, and the bias in each temperature band of the head unit.">
+      <Section
+        title="Battery and temperature"
+        intro="How long a battery lasts on this version, from riders' logs, and the bias in each temperature band of the head unit."
+      >
         <BatteryAndTemperature modelSlug={page.model.slug} version={page.firmware.version} />
       </Section>
       <Section title="Accepted rides on this firmware">

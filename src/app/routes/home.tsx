@@ -24,13 +24,15 @@ export function HomeRoute() {
         <p className="text-caption font-semibold uppercase tracking-widest text-ember-700">Power meter accuracy, measured on real rides</p>
         <h1 className="text-display font-semibold text-ink">How far can you trust a power meter?</h1>
         <p className="text-lead text-ink-soft">
-          Makers promise ±1–2 %. On the road, meters drift, drop out and disagree, and a firmware update can make things
-          better or worse. Crosswatt collects rides recorded on two meters at once, measures how well the pair agrees,
-          and pools thousands of such comparisons into figures per model and firmware version.
+          Makers promise ±1–2 %. On the road, meters drift, drop out and disagree, and a firmware update can make things better or worse.
+          Crosswatt collects rides recorded on two meters at once, measures how well the pair agrees, and pools thousands of such
+          comparisons into figures per model and firmware version.
         </p>
       </section>
       <section aria-labelledby="who" className="space-y-5">
-        <h2 id="who" className="text-title font-semibold">Who it is for</h2>
+        <h2 id="who" className="text-title font-semibold">
+          Who it is for
+        </h2>
         <ul className="grid gap-4 sm:grid-cols-2">
           {audiences.map((a) => (
             <li key={a.title} className="rounded-card border border-paper-line bg-white/70 p-6 shadow-card">

@@ -49,7 +49,12 @@ export function ModelThreadsRoute() {
         <button type="button" aria-pressed={!!filters.open} className={chip(!!filters.open)} onClick={() => toggle('open')}>
           Not fixed yet
         </button>
-        <button type="button" aria-pressed={!!filters.makerResponded} className={chip(!!filters.makerResponded)} onClick={() => toggle('makerResponded')}>
+        <button
+          type="button"
+          aria-pressed={!!filters.makerResponded}
+          className={chip(!!filters.makerResponded)}
+          onClick={() => toggle('makerResponded')}
+        >
           Maker responded
         </button>
         <label className="flex items-center gap-2 text-caption text-ink-soft">
@@ -75,11 +80,18 @@ export function ModelThreadsRoute() {
       {writing ? (
         <NewThreadForm modelSlug={model.slug} firmware={model.firmware} onCreated={(id) => navigate(`/threads/${id}`)} />
       ) : me.data ? (
-        <button type="button" onClick={() => setWriting(true)} className="rounded-full bg-fjord-700 px-5 py-2 font-medium text-paper hover:bg-fjord-900">
+        <button
+          type="button"
+          onClick={() => setWriting(true)}
+          className="rounded-full bg-fjord-700 px-5 py-2 font-medium text-paper hover:bg-fjord-900"
+        >
           Report something
         </button>
       ) : (
-        <a href={signInUrl(`/models/${model.slug}/threads`)} className="inline-block font-semibold text-fjord-700 underline underline-offset-2">
+        <a
+          href={signInUrl(`/models/${model.slug}/threads`)}
+          className="inline-block font-semibold text-fjord-700 underline underline-offset-2"
+        >
           Sign in to start a thread
         </a>
       )}

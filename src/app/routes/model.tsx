@@ -19,7 +19,12 @@ export function ModelRoute() {
   const model = useModel(slug);
   const conditions = useModelConditions(slug);
   if (model.isPending) return <p className="text-ink-soft">Loading…</p>;
-  if (model.isError) return <p role="alert" className="text-alert-800">{model.error.message}</p>;
+  if (model.isError)
+    return (
+      <p role="alert" className="text-alert-800">
+        {model.error.message}
+      </p>
+    );
   const page = model.data;
   // A merged model's old address answers with the model it became: show that address.
   if (page.model.slug !== slug) return <Navigate to={`/models/${page.model.slug}`} replace />;
@@ -41,7 +46,10 @@ export function ModelRoute() {
       <div className="mt-8">
         <ModelThreadSummary modelSlug={page.model.slug} />
       </div>
-      <Section title="Across firmware versions" intro="Each version's bias and power dropout rate with their 95 % intervals; overlapping bars mean the data cannot tell the versions apart.">
+      <Section
+        title="Across firmware versions"
+        intro="Each version's bias and power dropout rate with their 95 % intervals; overlapping bars mean the data cannot tell the versions apart."
+      >
         <FirmwareChart firmware={page.firmware} />
       </Section>
       <Section
@@ -50,10 +58,16 @@ export function ModelRoute() {
       >
         <FirmwareComparisonTable modelSlug={page.model.slug} firmware={page.firmware} />
       </Section>
-      <Section title="What goes with dropouts" intro="Power dropouts split by how the rides were recorded, each compared with all the model's other rides.">
+      <Section
+        title="What goes with dropouts"
+        intro="Power dropouts split by how the rides were recorded, each compared with all the model's other rides."
+      >
         <DropoutBreakdown rows={page.dropoutBreakdown} />
       </Section>
-      <Section title="Battery and temperature" intro="Hours of riding per battery from riders' logs, each firmware against the one before, and the bias in each temperature band of the head unit.">
+      <Section
+        title="Battery and temperature"
+        intro="Hours of riding per battery from riders' logs, each firmware against the one before, and the bias in each temperature band of the head unit."
+      >
         <BatteryAndTemperature modelSlug={page.model.slug} />
       </Section>
       <Section title="Recent accepted rides">

@@ -17,10 +17,12 @@ export function ModerationCatalogueRoute() {
           Rename or merge approved entries
         </h2>
         <p className="max-w-2xl text-ink-soft">
-          Two makers or recording devices that are the same thing: merge one into the other and its submissions and statistics move with it. Models and firmware versions are
-          curated on their own pages.
+          Two makers or recording devices that are the same thing: merge one into the other and its submissions and statistics move with it.
+          Models and firmware versions are curated on their own pages.
         </p>
-        <CatalogueMerges affects={[getScoreboardQueryOptions({}).queryKey, getMakersQueryOptions().queryKey, getCatalogueQueryOptions().queryKey]} />
+        <CatalogueMerges
+          affects={[getScoreboardQueryOptions({}).queryKey, getMakersQueryOptions().queryKey, getCatalogueQueryOptions().queryKey]}
+        />
       </section>
     </ModerationPage>
   );

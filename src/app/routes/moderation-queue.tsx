@@ -11,11 +11,15 @@ export function ModerationQueueRoute() {
   const filters: QueueFilters = parsed.success ? parsed.data : {};
   const onFilters = (next: QueueFilters) => {
     const search = new URLSearchParams();
-    for (const [key, value] of Object.entries(next)) if (value !== undefined && !(key === 'page' && value === 1)) search.set(key, String(value));
+    for (const [key, value] of Object.entries(next))
+      if (value !== undefined && !(key === 'page' && value === 1)) search.set(key, String(value));
     setParams(search);
   };
   return (
-    <ModerationPage title="Review queue" intro="Analysed submissions waiting for a decision. The most severe flags come first, then the longest waiting.">
+    <ModerationPage
+      title="Review queue"
+      intro="Analysed submissions waiting for a decision. The most severe flags come first, then the longest waiting."
+    >
       <ReviewQueueTable filters={filters} onFilters={onFilters} />
     </ModerationPage>
   );

@@ -16,8 +16,18 @@ export function ModerationReviewRoute() {
 
 function ReviewPage({ id }: { id: number }) {
   const review = useReview(id);
-  if (review.isPending) return <p className="text-ink-soft" role="status">Loading the submission…</p>;
-  if (review.isError) return <p className="text-alert-800" role="alert">This submission could not be loaded: {review.error.message}</p>;
+  if (review.isPending)
+    return (
+      <p className="text-ink-soft" role="status">
+        Loading the submission…
+      </p>
+    );
+  if (review.isError)
+    return (
+      <p className="text-alert-800" role="alert">
+        This submission could not be loaded: {review.error.message}
+      </p>
+    );
   const data = review.data;
   const s = data.submission as unknown as Submission & { version: number };
   const a = s.recordings.find((r) => r.side === 'a');
@@ -33,7 +43,8 @@ function ReviewPage({ id }: { id: number }) {
           Submission #{s.id} · {STATUS_LABELS[s.status]}
         </p>
         <h1 className="text-title font-semibold text-ink">
-          {a?.modelName ?? 'A'} {a?.firmwareVersion} <span className="text-ink-faint">against</span> {b?.modelName ?? 'B'} {b?.firmwareVersion}
+          {a?.modelName ?? 'A'} {a?.firmwareVersion} <span className="text-ink-faint">against</span> {b?.modelName ?? 'B'}{' '}
+          {b?.firmwareVersion}
         </h1>
         <p className="text-ink-soft">
           By {s.rider.name}

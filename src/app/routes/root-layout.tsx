@@ -6,7 +6,10 @@ import { SiteHeader } from '@/components/ui/site-header';
 /** Each route names its page in `handle.title`; the tab reads "Title · Crosswatt". */
 function usePageTitle() {
   const matches = useMatches();
-  const title = [...matches].reverse().map((m) => (m.handle as { title?: string } | undefined)?.title).find(Boolean);
+  const title = [...matches]
+    .reverse()
+    .map((m) => (m.handle as { title?: string } | undefined)?.title)
+    .find(Boolean);
   useEffect(() => {
     document.title = title ? `${title} · Crosswatt` : 'Crosswatt';
   }, [title]);
@@ -16,7 +19,10 @@ export function RootLayout() {
   usePageTitle();
   return (
     <div className="flex min-h-screen flex-col">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-4 focus:top-4 focus:rounded focus:bg-paper focus:px-3 focus:py-2">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:left-4 focus:top-4 focus:rounded focus:bg-paper focus:px-3 focus:py-2"
+      >
         Skip to content
       </a>
       <SiteHeader />

@@ -19,15 +19,26 @@ export function ScoreboardRoute() {
     <div>
       <h1 className="text-title font-semibold text-ink">Scoreboard</h1>
       <p className="mt-2 max-w-3xl text-lead text-ink-soft">
-        How each power meter model reads against the meters riders paired it with, from accepted submissions only. Every figure carries its 95 % interval;
-        below 3 rides or 3 riders we say so rather than guess.
+        How each power meter model reads against the meters riders paired it with, from accepted submissions only. Every figure carries its
+        95 % interval; below 3 rides or 3 riders we say so rather than guess.
       </p>
       <div className="mt-8">
         <ScoreboardFiltersForm filters={filters} onChange={update} />
       </div>
       <div className="mt-6" aria-busy={scoreboard.isFetching}>
-        {scoreboard.isError && <p role="alert" className="rounded-card bg-alert-100 px-4 py-3 text-alert-800">{scoreboard.error.message}</p>}
-        {page && <ScoreboardTable page={page} sort={query.sort} order={query.order} onSort={(sort, order) => update({ ...filters, sort, order, page: 1 })} />}
+        {scoreboard.isError && (
+          <p role="alert" className="rounded-card bg-alert-100 px-4 py-3 text-alert-800">
+            {scoreboard.error.message}
+          </p>
+        )}
+        {page && (
+          <ScoreboardTable
+            page={page}
+            sort={query.sort}
+            order={query.order}
+            onSort={(sort, order) => update({ ...filters, sort, order, page: 1 })}
+          />
+        )}
         {!page && scoreboard.isPending && <p className="text-ink-soft">Loading the scoreboard…</p>}
       </div>
       {page && (
@@ -36,10 +47,20 @@ export function ScoreboardRoute() {
             {page.total} models · page {page.page} of {pages}
           </span>
           <span className="flex gap-2">
-            <button type="button" disabled={page.page <= 1} onClick={() => update({ ...filters, page: page.page - 1 })} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+            <button
+              type="button"
+              disabled={page.page <= 1}
+              onClick={() => update({ ...filters, page: page.page - 1 })}
+              className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+            >
               Previous
             </button>
-            <button type="button" disabled={page.page >= pages} onClick={() => update({ ...filters, page: page.page + 1 })} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+            <button
+              type="button"
+              disabled={page.page >= pages}
+              onClick={() => update({ ...filters, page: page.page + 1 })}
+              className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+            >
               Next
             </button>
           </span>
@@ -47,7 +68,10 @@ export function ScoreboardRoute() {
       )}
       <p className="mt-8 text-caption text-ink-soft">
         Open data:{' '}
-        <a className="text-fjord-700 underline" href={`/api/scoreboard.csv?${scoreboardSearch({ ...filters, sort: undefined, order: undefined, page: undefined, pageSize: undefined })}`}>
+        <a
+          className="text-fjord-700 underline"
+          href={`/api/scoreboard.csv?${scoreboardSearch({ ...filters, sort: undefined, order: undefined, page: undefined, pageSize: undefined })}`}
+        >
           this scoreboard as CSV
         </a>{' '}
         ·{' '}
@@ -58,7 +82,11 @@ export function ScoreboardRoute() {
         <a className="text-fjord-700 underline" href={OPEN_DATA_LICENCE.url}>
           {OPEN_DATA_LICENCE.name}
         </a>
-        . Figures are crowdsourced, not a calibration certificate: <a className="text-fjord-700 underline" href="/methodology">how they are made</a>.
+        . Figures are crowdsourced, not a calibration certificate:{' '}
+        <a className="text-fjord-700 underline" href="/methodology">
+          how they are made
+        </a>
+        .
       </p>
     </div>
   );

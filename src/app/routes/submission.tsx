@@ -39,8 +39,8 @@ export function SubmissionRoute() {
           {s.recordings.find((r) => r.side === 'b')?.modelName ?? 'B'}
         </h1>
         <p className="text-ink-soft">
-          {s.isOwn ? 'Your ride' : `Ridden by ${s.rider.name}`}, {s.indoor ? 'indoors' : 'outdoors'} on {SURFACE_LABELS[s.surface].toLowerCase()} · sent{' '}
-          {formatDay(s.submittedOn)}
+          {s.isOwn ? 'Your ride' : `Ridden by ${s.rider.name}`}, {s.indoor ? 'indoors' : 'outdoors'} on{' '}
+          {SURFACE_LABELS[s.surface].toLowerCase()} · sent {formatDay(s.submittedOn)}
         </p>
         {s.notes && <p className="max-w-3xl whitespace-pre-line rounded-lg bg-paper-deep p-3 text-caption text-ink-soft">“{s.notes}”</p>}
       </header>
@@ -52,7 +52,10 @@ export function SubmissionRoute() {
         <SubmissionResult
           submissionId={s.id}
           result={s.result}
-          names={{ a: s.recordings.find((r) => r.side === 'a')?.modelName ?? 'A', b: s.recordings.find((r) => r.side === 'b')?.modelName ?? 'B' }}
+          names={{
+            a: s.recordings.find((r) => r.side === 'a')?.modelName ?? 'A',
+            b: s.recordings.find((r) => r.side === 'b')?.modelName ?? 'B',
+          }}
         />
       )}
       {s.isOwn && (

@@ -13,8 +13,8 @@ export function SubmitRoute() {
             <p className="text-caption font-semibold uppercase tracking-widest text-ember-700">Submit a ride</p>
             <h1 className="text-title font-semibold text-ink sm:text-display">Two meters, one ride</h1>
             <p className="text-lead text-ink-soft">
-              Upload the two recordings of a ride you rode with two power meters on the bike, tell us which meters they
-              were, and Crosswatt works out how closely they agree.
+              Upload the two recordings of a ride you rode with two power meters on the bike, tell us which meters they were, and Crosswatt
+              works out how closely they agree.
             </p>
           </header>
           <SubmissionForm signInHref={signInUrl(location.pathname)} />

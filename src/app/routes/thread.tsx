@@ -40,7 +40,9 @@ export function ThreadRoute() {
           <div className="flex flex-wrap items-center gap-2 text-caption text-ink-soft">
             <ThreadStatusBadge status={t.status} fixedIn={t.fixedIn} />
             {t.firmware && <span className="rounded-full bg-paper-deep px-2.5 py-0.5">Firmware {t.firmware.version}</span>}
-            {t.locked && <span className="rounded-full bg-alert-100 px-2.5 py-0.5 font-semibold text-alert-800">Locked by a moderator</span>}
+            {t.locked && (
+              <span className="rounded-full bg-alert-100 px-2.5 py-0.5 font-semibold text-alert-800">Locked by a moderator</span>
+            )}
             {t.movedFrom && <span>Moved here from {t.movedFrom.name}</span>}
           </div>
         </header>

@@ -8,7 +8,19 @@ export interface SectionLink {
 }
 
 /** The frame of a back-office page: the section's name, a title, a line of purpose, and the way to its sibling pages. */
-export function SectionPage({ section, links, title, intro, children }: { section: string; links: SectionLink[]; title: string; intro: string; children: ReactNode }) {
+export function SectionPage({
+  section,
+  links,
+  title,
+  intro,
+  children,
+}: {
+  section: string;
+  links: SectionLink[];
+  title: string;
+  intro: string;
+  children: ReactNode;
+}) {
   return (
     <div className="space-y-6">
       <header className="space-y-3">

@@ -21,7 +21,10 @@ export function SiteHeader() {
           <Logo />
         </Link>
         {/* On a phone the links take a row of their own and scroll sideways rather than wrap. */}
-        <nav aria-label="Main" className="order-last -mx-1 flex w-full gap-1 overflow-x-auto px-1 pb-1 md:order-none md:w-auto md:flex-1 md:pb-0">
+        <nav
+          aria-label="Main"
+          className="order-last -mx-1 flex w-full gap-1 overflow-x-auto px-1 pb-1 md:order-none md:w-auto md:flex-1 md:pb-0"
+        >
           {navItems.map((item) => (
             <NavLink
               key={item.to}

@@ -25,7 +25,10 @@ describe("a rider's account", () => {
     const { agent, csrf } = await signedInAgent(app, { handle: 'lapwing-bell' });
     const before = (await agent.get('/api/me')).body.name;
 
-    const res = await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ name: 'Lapwing\u0007 Bell' });
+    const res = await agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await csrf())
+      .send({ name: 'Lapwing\u0007 Bell' });
 
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/one line of plain text/);
@@ -35,8 +38,14 @@ describe("a rider's account", () => {
   it('when the name is empty or fields are unknown, then the answer is 400 naming the problem', async () => {
     const { agent, csrf } = await signedInAgent(app, { handle: 'stint-blank' });
 
-    const empty = await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ name: '   ' });
-    const unknown = await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ roles: ['admin'] });
+    const empty = await agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await csrf())
+      .send({ name: '   ' });
+    const unknown = await agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await csrf())
+      .send({ roles: ['admin'] });
 
     expect(empty.status).toBe(400);
     expect(empty.body.error.details.fields).toHaveProperty('name');
@@ -46,7 +55,10 @@ describe("a rider's account", () => {
   it('when a rider deletes their account, then their row stays but says "deleted rider", and they are signed out', async () => {
     const { agent, csrf, user } = await signedInAgent(app, { handle: 'redshank-leaves' });
 
-    const res = await agent.post('/api/account/deletion').set('X-CSRF-Token', await csrf()).send({ confirmHandle: 'redshank-leaves' });
+    const res = await agent
+      .post('/api/account/deletion')
+      .set('X-CSRF-Token', await csrf())
+      .send({ confirmHandle: 'redshank-leaves' });
 
     expect(res.status).toBe(204);
     const row = await db('users').where({ id: user.id }).first();
@@ -58,7 +70,10 @@ describe("a rider's account", () => {
 
   it('when a deleted rider signs in again, then they get a new, empty account', async () => {
     const { agent, csrf, user } = await signedInAgent(app, { handle: 'knot-returns' });
-    await agent.post('/api/account/deletion').set('X-CSRF-Token', await csrf()).send({ confirmHandle: 'knot-returns' });
+    await agent
+      .post('/api/account/deletion')
+      .set('X-CSRF-Token', await csrf())
+      .send({ confirmHandle: 'knot-returns' });
 
     const again = request.agent(app);
     await signInThroughFakeProvider(again, 'knot-returns');
@@ -72,7 +87,10 @@ describe("a rider's account", () => {
   it('when the confirmation does not match the handle, then nothing is deleted', async () => {
     const { agent, csrf, user } = await signedInAgent(app, { handle: 'ruff-stays' });
 
-    const res = await agent.post('/api/account/deletion').set('X-CSRF-Token', await csrf()).send({ confirmHandle: 'ruff-goes' });
+    const res = await agent
+      .post('/api/account/deletion')
+      .set('X-CSRF-Token', await csrf())
+      .send({ confirmHandle: 'ruff-goes' });
 
     expect(res.status).toBe(400);
     expect((await db('users').where({ id: user.id }).first()).deleted_at).toBeNull();
@@ -94,7 +112,10 @@ describe('CSRF protection', () => {
     const { agent } = await signedInAgent(app, { handle: 'csrf-victim' });
     const { csrf: attackerCsrf } = await signedInAgent(app, { handle: 'csrf-attacker' });
 
-    const res = await agent.patch('/api/account').set('X-CSRF-Token', await attackerCsrf()).send({ name: 'Changed' });
+    const res = await agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await attackerCsrf())
+      .send({ name: 'Changed' });
 
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_invalid');
@@ -113,20 +134,37 @@ describe('rate limits', () => {
     const token = await csrf();
 
     const answers = [];
-    for (let i = 0; i < 3; i++) answers.push(await agent.patch('/api/account').set('X-CSRF-Token', token).send({ notificationPrefs: { emailOnReply: i % 2 === 0 } }));
+    for (let i = 0; i < 3; i++)
+      answers.push(
+        await agent
+          .patch('/api/account')
+          .set('X-CSRF-Token', token)
+          .send({ notificationPrefs: { emailOnReply: i % 2 === 0 } }),
+      );
 
     expect(answers.map((r) => r.status)).toEqual([200, 200, 429]);
-    expect(answers[2]!.body.error).toEqual({ code: 'too_many_requests', message: 'Too many changes in a short time. Wait a minute and try again.' });
+    expect(answers[2]!.body.error).toEqual({
+      code: 'too_many_requests',
+      message: 'Too many changes in a short time. Wait a minute and try again.',
+    });
   });
 
   it('when several accounts write from one address more often than its budget, then the next write gets a JSON 429', async () => {
     const limited = await createTestContext({ fakes: true, env: { RATE_LIMIT_WRITES_PER_ADDRESS_PER_WINDOW: '3' } });
-    const people = [await signedInAgent(limited.app, { handle: 'shared-desk-1' }), await signedInAgent(limited.app, { handle: 'shared-desk-2' })];
+    const people = [
+      await signedInAgent(limited.app, { handle: 'shared-desk-1' }),
+      await signedInAgent(limited.app, { handle: 'shared-desk-2' }),
+    ];
 
     const answers = [];
     for (let i = 0; i < 4; i++) {
       const { agent, csrf } = people[i % 2]!;
-      answers.push(await agent.patch('/api/account').set('X-CSRF-Token', await csrf()).send({ notificationPrefs: { emailOnReply: true } }));
+      answers.push(
+        await agent
+          .patch('/api/account')
+          .set('X-CSRF-Token', await csrf())
+          .send({ notificationPrefs: { emailOnReply: true } }),
+      );
     }
 
     expect(answers.map((r) => r.status)).toEqual([200, 200, 200, 429]);
@@ -141,7 +179,10 @@ describe('rate limits', () => {
 
     expect(answers.map((r) => r.status)).toEqual([302, 302, 429]);
     expect(answers[2]!.type).toBe('application/json');
-    expect(answers[2]!.body.error).toEqual({ code: 'too_many_requests', message: 'Too many sign-in attempts in a short time. Wait a minute and try again.' });
+    expect(answers[2]!.body.error).toEqual({
+      code: 'too_many_requests',
+      message: 'Too many sign-in attempts in a short time. Wait a minute and try again.',
+    });
   });
 
   it('when the sign-in limit is 2, then two whole sign-ins (start and callback each) succeed: the callback is not counted', async () => {

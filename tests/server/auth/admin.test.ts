@@ -10,7 +10,10 @@ describe('admins managing roles', () => {
     const { agent, csrf, user: admin } = await signedInAgent(app, { handle: 'admin-grants', roles: ['admin'] });
     const rider = await ensureUser(db, { handle: 'future-moderator', name: 'Future Moderator' });
 
-    const res = await agent.post(`/api/admin/users/${rider.id}/roles`).set('X-CSRF-Token', await csrf()).send({ role: 'moderator', reason: 'steady hand' });
+    const res = await agent
+      .post(`/api/admin/users/${rider.id}/roles`)
+      .set('X-CSRF-Token', await csrf())
+      .send({ role: 'moderator', reason: 'steady hand' });
 
     expect(res.status).toBe(200);
     expect(res.body.roles).toEqual(['moderator', 'rider']);
@@ -34,7 +37,9 @@ describe('admins managing roles', () => {
 
     expect(res.status).toBe(200);
     expect(res.body.roles).toEqual(['rider']);
-    const entry = await db('audit_log').where({ action: 'role.revoked', subject_id: String(moderator.id) }).first();
+    const entry = await db('audit_log')
+      .where({ action: 'role.revoked', subject_id: String(moderator.id) })
+      .first();
     expect(entry.after).toEqual({ roles: ['rider'] });
   });
 
@@ -63,7 +68,10 @@ describe('admins managing roles', () => {
     const { agent, csrf } = await signedInAgent(app, { handle: 'admin-typo', roles: ['admin'] });
     const rider = await ensureUser(db, { handle: 'typo-target', name: 'Typo Target' });
 
-    const res = await agent.post(`/api/admin/users/${rider.id}/roles`).set('X-CSRF-Token', await csrf()).send({ role: 'superuser' });
+    const res = await agent
+      .post(`/api/admin/users/${rider.id}/roles`)
+      .set('X-CSRF-Token', await csrf())
+      .send({ role: 'superuser' });
 
     expect(res.status).toBe(400);
     expect(res.body.error.details.fields).toHaveProperty('role');
@@ -72,7 +80,10 @@ describe('admins managing roles', () => {
   it('when the user does not exist, then the answer is 404', async () => {
     const { agent, csrf } = await signedInAgent(app, { handle: 'admin-missing', roles: ['admin'] });
 
-    const res = await agent.post('/api/admin/users/999999/roles').set('X-CSRF-Token', await csrf()).send({ role: 'moderator' });
+    const res = await agent
+      .post('/api/admin/users/999999/roles')
+      .set('X-CSRF-Token', await csrf())
+      .send({ role: 'moderator' });
 
     expect(res.status).toBe(404);
   });
@@ -84,7 +95,10 @@ describe('admins verifying maker staff', () => {
     const { agent: staffAgent, user: staff } = await signedInAgent(app, { handle: 'future-staff' });
     const [maker] = await db('makers').insert({ slug: 'northcape-cranks', name: 'Northcape Cranks' }).returning('id');
 
-    const verify = await agent.put(`/api/admin/users/${staff.id}/maker-staff`).set('X-CSRF-Token', await csrf()).send({ makerId: maker.id });
+    const verify = await agent
+      .put(`/api/admin/users/${staff.id}/maker-staff`)
+      .set('X-CSRF-Token', await csrf())
+      .send({ makerId: maker.id });
     const meAsStaff = await staffAgent.get('/api/me');
     const remove = await agent.delete(`/api/admin/users/${staff.id}/maker-staff`).set('X-CSRF-Token', await csrf());
     const meAfter = await staffAgent.get('/api/me');
@@ -94,7 +108,10 @@ describe('admins verifying maker staff', () => {
     expect(meAsStaff.body.makers).toEqual([{ id: maker.id, slug: 'northcape-cranks', name: 'Northcape Cranks' }]);
     expect(remove.status).toBe(204);
     expect(meAfter.body.makerIds).toEqual([]);
-    const actions = await db('audit_log').where({ subject_id: String(staff.id) }).orderBy('id').pluck('action');
+    const actions = await db('audit_log')
+      .where({ subject_id: String(staff.id) })
+      .orderBy('id')
+      .pluck('action');
     expect(actions).toEqual(['user.created', 'maker_staff.verified', 'maker_staff.removed']);
   });
 
@@ -102,7 +119,10 @@ describe('admins verifying maker staff', () => {
     const { agent, csrf } = await signedInAgent(app, { handle: 'admin-nomaker', roles: ['admin'] });
     const rider = await ensureUser(db, { handle: 'staff-nomaker', name: 'No Maker' });
 
-    const res = await agent.put(`/api/admin/users/${rider.id}/maker-staff`).set('X-CSRF-Token', await csrf()).send({ makerId: 424242 });
+    const res = await agent
+      .put(`/api/admin/users/${rider.id}/maker-staff`)
+      .set('X-CSRF-Token', await csrf())
+      .send({ makerId: 424242 });
 
     expect(res.status).toBe(400);
     expect(await db('maker_staff').where({ user_id: rider.id }).first()).toBeUndefined();
@@ -118,7 +138,12 @@ describe('the admin users list', () => {
 
     expect(res.status).toBe(200);
     expect(res.body.total).toBe(1);
-    expect(res.body.users[0]).toMatchObject({ handle: 'wagtail-sprinter', roles: ['moderator', 'rider'], maker: { slug: 'wagtail-pedals' }, deleted: false });
+    expect(res.body.users[0]).toMatchObject({
+      handle: 'wagtail-sprinter',
+      roles: ['moderator', 'rider'],
+      maker: { slug: 'wagtail-pedals' },
+      deleted: false,
+    });
   });
 
   it('when the search contains SQL wildcards, then they are matched literally', async () => {

@@ -57,9 +57,17 @@ const rules: Record<string, Rule> = {
   // A wrong confirmation: passes the guard, deletes nothing.
   'POST /api/account/deletion': { allowed: SIGNED_IN, body: () => ({ confirmHandle: 'someone-else' }) },
   // admin (issue 4)
-  'POST /api/admin/users/:userId/roles': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/roles`, body: () => ({ role: 'moderator' }) },
+  'POST /api/admin/users/:userId/roles': {
+    allowed: ADMINS,
+    path: (f) => `/api/admin/users/${f.targetUserId}/roles`,
+    body: () => ({ role: 'moderator' }),
+  },
   'DELETE /api/admin/users/:userId/roles/:role': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/roles/moderator` },
-  'PUT /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff`, body: (f) => ({ makerId: f.makerId }) },
+  'PUT /api/admin/users/:userId/maker-staff': {
+    allowed: ADMINS,
+    path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff`,
+    body: (f) => ({ makerId: f.makerId }),
+  },
   'DELETE /api/admin/users/:userId/maker-staff': { allowed: ADMINS, path: (f) => `/api/admin/users/${f.targetUserId}/maker-staff` },
   // re-analysis (issue 14): the stored originals are not available yet, so the admin's call passes the guards and starts nothing
   'POST /api/admin/reanalysis': { allowed: ADMINS, body: () => ({ source: 'originals' }) },
@@ -94,14 +102,22 @@ const rules: Record<string, Rule> = {
   'PUT /api/threads/:id/status': { allowed: THE_MAKERS_STAFF, path: (f) => `/api/threads/${f.threadId}/status` },
   'PUT /api/threads/:id/follow': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/follow` },
   'DELETE /api/threads/:id/follow': { allowed: SIGNED_IN, path: (f) => `/api/threads/${f.threadId}/follow` },
-  'PUT /api/threads/:id/lock': { allowed: MODERATORS, path: (f) => `/api/threads/${f.threadId}/lock`, body: () => ({ locked: true, reason: 'Matrix check' }) },
+  'PUT /api/threads/:id/lock': {
+    allowed: MODERATORS,
+    path: (f) => `/api/threads/${f.threadId}/lock`,
+    body: () => ({ locked: true, reason: 'Matrix check' }),
+  },
   'POST /api/threads/:id/move': {
     allowed: MODERATORS,
     path: (f) => `/api/threads/${f.threadId}/move`,
     body: (f) => ({ modelSlug: f.otherModelSlug, reason: 'Matrix check' }),
   },
   // Staff and moderators do not edit riders' posts (moderators hide them instead).
-  'PATCH /api/posts/:id': { allowed: NOBODY_BUT_THE_AUTHOR, path: (f) => `/api/posts/${f.postId}`, body: () => ({ body: 'Rewritten by someone else' }) },
+  'PATCH /api/posts/:id': {
+    allowed: NOBODY_BUT_THE_AUTHOR,
+    path: (f) => `/api/posts/${f.postId}`,
+    body: () => ({ body: 'Rewritten by someone else' }),
+  },
   'PUT /api/posts/:id/visibility': {
     allowed: MODERATORS,
     path: (f) => `/api/posts/${f.postId}/visibility`,
@@ -132,7 +148,10 @@ describe('the permission matrix', () => {
     const target = await ensureUser(db, { handle: 'matrix-target', name: 'Matrix Target' });
     fixture.targetUserId = target.id;
     fixture.makerId = catalogue.maker.id;
-    const thread = await createThread({ db, config }, target, catalogue.spider.slug, { title: 'Matrix thread title', body: 'Matrix thread body' });
+    const thread = await createThread({ db, config }, target, catalogue.spider.slug, {
+      title: 'Matrix thread title',
+      body: 'Matrix thread body',
+    });
     const submission = await submissionAwaitingReview(db, target.id, catalogue);
     Object.assign(fixture, {
       modelSlug: catalogue.spider.slug,
@@ -150,7 +169,8 @@ describe('the permission matrix', () => {
       const token = (await agent.get('/api/csrf-token')).body.token as string;
       return { agent, token };
     }
-    const roles = person === 'admin' ? (['admin'] as const) : person === 'moderator' || person === 'staffModerator' ? (['moderator'] as const) : [];
+    const roles =
+      person === 'admin' ? (['admin'] as const) : person === 'moderator' || person === 'staffModerator' ? (['moderator'] as const) : [];
     const { agent, csrf } = await signedInAgent(app, {
       handle: `matrix-${person.toLowerCase()}`,
       roles: [...roles],
@@ -180,7 +200,9 @@ describe('the permission matrix', () => {
     it(`when ${route} comes without a CSRF token, then it is refused with 403 csrf_invalid`, async () => {
       const path = rule.path?.(fixture) ?? pattern;
 
-      const res = await request(app)[method.toLowerCase() as 'post'](path).send(rule.body?.(fixture) ?? {});
+      const res = await request(app)
+        [method.toLowerCase() as 'post'](path)
+        .send(rule.body?.(fixture) ?? {});
 
       expect(res.status).toBe(403);
       expect(res.body.error.code).toBe('csrf_invalid');
@@ -193,7 +215,9 @@ describe('the permission matrix', () => {
         const { agent, token } = await agentFor(person);
         const path = rule.path?.(fixture) ?? pattern;
 
-        const res = await agent[method.toLowerCase() as 'post'](path).set('X-CSRF-Token', token).send(rule.body?.(fixture) ?? {});
+        const res = await agent[method.toLowerCase() as 'post'](path)
+          .set('X-CSRF-Token', token)
+          .send(rule.body?.(fixture) ?? {});
 
         if (allowed) {
           expect([401, 403], `${res.status} ${JSON.stringify(res.body)}`).not.toContain(res.status);

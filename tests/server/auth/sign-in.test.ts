@@ -29,7 +29,13 @@ describe('signing in through the OAuth provider', () => {
     const me = await agent.get('/api/me');
 
     expect(me.status).toBe(200);
-    expect(me.body).toMatchObject({ handle: 'kestrel-rides', name: 'kestrel-rides', email: 'kestrel-rides@riders.crosswatt.test', roles: ['rider'], makerIds: [] });
+    expect(me.body).toMatchObject({
+      handle: 'kestrel-rides',
+      name: 'kestrel-rides',
+      email: 'kestrel-rides@riders.crosswatt.test',
+      roles: ['rider'],
+      makerIds: [],
+    });
     expect(me.body.notificationPrefs).toEqual({ emailOnDecision: true, emailOnReply: true });
   });
 
@@ -47,7 +53,9 @@ describe('signing in through the OAuth provider', () => {
   it('when someone signs in again after the provider profile changed, then the account is updated, not duplicated', async () => {
     const agent = request.agent(app);
     await signInThroughFakeProvider(agent, 'heron-climbs');
-    await db('fake_oauth_identities').where({ login: 'heron-climbs' }).update({ name: 'Heron Climbs', email: 'heron@riders.crosswatt.test' });
+    await db('fake_oauth_identities')
+      .where({ login: 'heron-climbs' })
+      .update({ name: 'Heron Climbs', email: 'heron@riders.crosswatt.test' });
     const before = await countUsers();
 
     await signInThroughFakeProvider(request.agent(app), 'heron-climbs');

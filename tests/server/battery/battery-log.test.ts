@@ -23,13 +23,23 @@ beforeAll(async () => {
 });
 
 async function addSpiderMeter(person: Person, nickname: string) {
-  const res = await write(person, 'post', '/api/me/meters', { modelId: catalogue.spider.id, position: 'total', nickname, batteryType: 'coin_cell' });
+  const res = await write(person, 'post', '/api/me/meters', {
+    modelId: catalogue.spider.id,
+    position: 'total',
+    nickname,
+    batteryType: 'coin_cell',
+  });
   expect(res.status).toBe(201);
   return res.body.id as number;
 }
 
 async function logEvent(person: Person, meterId: number, occurredOn: string, previousEnded: string) {
-  return write(person, 'post', `/api/me/meters/${meterId}/battery-events`, { occurredOn, kind: 'changed', previousEnded, firmwareId: catalogue.spiderFirmware.id });
+  return write(person, 'post', `/api/me/meters/${meterId}/battery-events`, {
+    occurredOn,
+    kind: 'changed',
+    previousEnded,
+    firmwareId: catalogue.spiderFirmware.id,
+  });
 }
 
 const count = async (table: string) => Number((await db(table).count<{ count: string }[]>({ count: '*' }))[0]!.count);
@@ -87,7 +97,13 @@ describe('a rider logs batteries', () => {
   ])('when the event has %s, then it is refused with a message and nothing is written', async (_label, change, message) => {
     const meterId = await addSpiderMeter(rider, `Refusals ${Math.random()}`);
     const before = await count('battery_events');
-    const payload = { occurredOn: '2026-03-01', kind: 'changed', previousEnded: 'first_battery', firmwareId: catalogue.spiderFirmware.id, ...change };
+    const payload = {
+      occurredOn: '2026-03-01',
+      kind: 'changed',
+      previousEnded: 'first_battery',
+      firmwareId: catalogue.spiderFirmware.id,
+      ...change,
+    };
 
     const res = await write(rider, 'post', `/api/me/meters/${meterId}/battery-events`, payload);
 
@@ -98,7 +114,12 @@ describe('a rider logs batteries', () => {
 
   it("when the firmware is another model's, then it is refused as not this model's", async () => {
     const meterId = await addSpiderMeter(rider, 'Firmware check');
-    const res = await write(rider, 'post', `/api/me/meters/${meterId}/battery-events`, { occurredOn: '2026-03-01', kind: 'changed', previousEnded: 'first_battery', firmwareId: catalogue.pedalsFirmware.id });
+    const res = await write(rider, 'post', `/api/me/meters/${meterId}/battery-events`, {
+      occurredOn: '2026-03-01',
+      kind: 'changed',
+      previousEnded: 'first_battery',
+      firmwareId: catalogue.pedalsFirmware.id,
+    });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toBe('firmwareId: not a firmware of this model');
   });
@@ -106,7 +127,12 @@ describe('a rider logs batteries', () => {
   it('when hand-added riding is over 1000 hours or the name has a line break, then it is refused', async () => {
     const meterId = await addSpiderMeter(rider, 'Hours check');
     const hours = await write(rider, 'post', `/api/me/meters/${meterId}/riding`, { riddenOn: '2026-02-01', hours: 1001 });
-    const name = await write(rider, 'post', '/api/me/meters', { modelId: catalogue.spider.id, position: 'total', nickname: 'Bad\r\nBcc: x', batteryType: 'coin_cell' });
+    const name = await write(rider, 'post', '/api/me/meters', {
+      modelId: catalogue.spider.id,
+      position: 'total',
+      nickname: 'Bad\r\nBcc: x',
+      batteryType: 'coin_cell',
+    });
     expect(hours.status).toBe(400);
     expect(name.status).toBe(400);
     expect(await db('self_reported_riding').where({ rider_meter_id: meterId }).first()).toBeUndefined();
@@ -119,13 +145,18 @@ describe('a rider logs batteries', () => {
 
 describe("the maker's claim", () => {
   it('when a moderator enters a claim with its source, then the model page shows it and the audit log has it', async () => {
-    const res = await write(moderator, 'put', `/api/moderation/models/${catalogue.spider.id}/battery-claim`, { hours: 800, source: "Maker's manual, section 3" });
+    const res = await write(moderator, 'put', `/api/moderation/models/${catalogue.spider.id}/battery-claim`, {
+      hours: 800,
+      source: "Maker's manual, section 3",
+    });
 
     const conditions = await request(app).get(`/api/models/${catalogue.spider.slug}/conditions`);
 
     expect(res.status).toBe(200);
     expect(conditions.body.claim).toEqual({ hours: 800, source: "Maker's manual, section 3" });
-    const audit = await db('audit_log').where({ action: 'model.battery_claim_set', subject_id: String(catalogue.spider.id) }).first();
+    const audit = await db('audit_log')
+      .where({ action: 'model.battery_claim_set', subject_id: String(catalogue.spider.id) })
+      .first();
     expect(audit.after).toEqual({ hours: 800, source: "Maker's manual, section 3" });
   });
 
@@ -144,10 +175,20 @@ describe("a model's battery life", () => {
     // Five riders, one flat battery each after 1, 2, 3, 4 and 5 hours of hand-added riding, and the next one still running.
     for (let r = 1; r <= MIN_BATTERIES; r++) {
       const person = await signedInAgent(app, { handle: `life-rider-${r}` });
-      const meter = await write(person, 'post', '/api/me/meters', { modelId: local.spider.id, position: 'total', nickname: 'Spider', batteryType: 'coin_cell' });
+      const meter = await write(person, 'post', '/api/me/meters', {
+        modelId: local.spider.id,
+        position: 'total',
+        nickname: 'Spider',
+        batteryType: 'coin_cell',
+      });
       const meterId = meter.body.id as number;
       const event = (occurredOn: string, previousEnded: string) =>
-        write(person, 'post', `/api/me/meters/${meterId}/battery-events`, { occurredOn, kind: 'changed', previousEnded, firmwareId: local.spiderFirmware.id });
+        write(person, 'post', `/api/me/meters/${meterId}/battery-events`, {
+          occurredOn,
+          kind: 'changed',
+          previousEnded,
+          firmwareId: local.spiderFirmware.id,
+        });
       await event('2026-01-01', 'first_battery');
       await write(person, 'post', `/api/me/meters/${meterId}/riding`, { riddenOn: '2026-01-02', hours: r * 100 });
       await event('2026-04-01', 'ran_flat');

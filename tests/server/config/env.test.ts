@@ -24,6 +24,9 @@ describe('configuration', () => {
   it('when only one of the two S3 credentials is set, or the bucket name is not one S3 allows, then it refuses to start', () => {
     expect(() => loadConfig({ ...base, S3_ACCESS_KEY_ID: 'key-only' })).toThrow(/S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY/);
     expect(() => loadConfig({ ...base, S3_BUCKET: 'Originals_Bucket' })).toThrow(/S3_BUCKET/);
-    expect(loadConfig({ ...base, S3_FORCE_PATH_STYLE: 'true', S3_ENDPOINT: 'http://127.0.0.1:9000' })).toMatchObject({ S3_FORCE_PATH_STYLE: true, ORIGINALS_SWEEP_GRACE_HOURS: 24 });
+    expect(loadConfig({ ...base, S3_FORCE_PATH_STYLE: 'true', S3_ENDPOINT: 'http://127.0.0.1:9000' })).toMatchObject({
+      S3_FORCE_PATH_STYLE: true,
+      ORIGINALS_SWEEP_GRACE_HOURS: 24,
+    });
   });
 });

@@ -83,19 +83,31 @@ describe('seeding the demo world', () => {
 
   it("when a like-for-like ride is analysed, then its measured bias is within tolerance of the meters' injected gains", async () => {
     const clean = report.plan.filter((p) => !p.flaw);
-    const rows = await db('submissions').select('id', 'bias_percent', 'like_for_like_mode').whereIn('id', clean.map((p) => report.submissionIds[p.index]));
+    const rows = await db('submissions')
+      .select('id', 'bias_percent', 'like_for_like_mode')
+      .whereIn(
+        'id',
+        clean.map((p) => report.submissionIds[p.index]),
+      );
     const byId = new Map(rows.map((row) => [row.id, row]));
 
     for (const planned of clean) {
       const row = byId.get(report.submissionIds[planned.index])!;
       const injected = 100 * (planned.a.gain / planned.b.gain - 1);
       expect(row.like_for_like_mode).not.toBe('mixed');
-      expect(Math.abs(row.bias_percent - injected), `ride ${planned.index}: ${planned.a.model} vs ${planned.b.model}`).toBeLessThan(BIAS_TOLERANCE_PERCENT);
+      expect(Math.abs(row.bias_percent - injected), `ride ${planned.index}: ${planned.a.model} vs ${planned.b.model}`).toBeLessThan(
+        BIAS_TOLERANCE_PERCENT,
+      );
     }
   });
 
   it('when a ride is flawed on purpose, then the engine raises the flag a moderator should see', async () => {
-    const expectedFlag = { other_ride: 'low_correlation', uncalibrated: 'large_bias', mixed: 'mixed_comparison', short: 'short_overlap' } as const;
+    const expectedFlag = {
+      other_ride: 'low_correlation',
+      uncalibrated: 'large_bias',
+      mixed: 'mixed_comparison',
+      short: 'short_overlap',
+    } as const;
     const flawed = report.plan.filter((p) => p.flaw && p.flaw in expectedFlag);
     expect(flawed.length).toBeGreaterThanOrEqual(4);
 
@@ -122,10 +134,15 @@ describe('seeding the demo world', () => {
     expect(report.threads).toBe(THREAD_SCRIPTS.length);
     expect(threads).toHaveLength(THREAD_SCRIPTS.length);
     expect(new Set(threads.map((t: { status: string }) => t.status))).toEqual(new Set(['fixed', 'investigating', 'acknowledged', 'open']));
-    expect(threads.filter((t: { hasOfficialResponse: boolean }) => t.hasOfficialResponse)).toHaveLength(THREAD_SCRIPTS.filter((s) => s.posts.some((p) => p.official)).length);
+    expect(threads.filter((t: { hasOfficialResponse: boolean }) => t.hasOfficialResponse)).toHaveLength(
+      THREAD_SCRIPTS.filter((s) => s.posts.some((p) => p.official)).length,
+    );
     expect(larkspur.body).toMatchObject({ status: 'fixed', fixedIn: { version: '1.4' }, firmware: { version: '1.1' } });
     expect(larkspur.body.posts).toHaveLength(THREAD_SCRIPTS[0].posts.length);
-    expect(larkspur.body.officialResponse).toMatchObject({ author: { handle: 'demo-staff-quillon-dynamics' }, staffOf: { name: 'Quillon Dynamics' } });
+    expect(larkspur.body.officialResponse).toMatchObject({
+      author: { handle: 'demo-staff-quillon-dynamics' },
+      staffOf: { name: 'Quillon Dynamics' },
+    });
     // Riders speak for no maker, whatever they write.
     expect(larkspur.body.posts.filter((p: { staffOf: unknown }) => p.staffOf)).toHaveLength(1);
   });
@@ -138,7 +155,20 @@ describe('seeding the demo world', () => {
   });
 
   it('when the seed runs a second time, then nothing changes', async () => {
-    const tables = ['makers', 'models', 'firmware_versions', 'recording_devices', 'users', 'role_grants', 'maker_staff', 'submissions', 'submission_recordings', 'threads', 'posts', 'moderator_notes'];
+    const tables = [
+      'makers',
+      'models',
+      'firmware_versions',
+      'recording_devices',
+      'users',
+      'role_grants',
+      'maker_staff',
+      'submissions',
+      'submission_recordings',
+      'threads',
+      'posts',
+      'moderator_notes',
+    ];
     const before = await Promise.all(tables.map(countRows));
 
     const again = await seedDemoWorld(SMALL);

@@ -9,7 +9,11 @@ import { submissionAwaitingReview } from '../moderation/moderation-fixtures';
 
 // The mail service is down: nothing listens on SMTP_PORT.
 const smtpPort = String(await freePort());
-const { app, db, config } = await createTestContext({ fakes: true, worker: true, env: { SMTP_PORT: smtpPort, MAIL_RETRY_FIRST_DELAY_SECONDS: '60' } });
+const { app, db, config } = await createTestContext({
+  fakes: true,
+  worker: true,
+  env: { SMTP_PORT: smtpPort, MAIL_RETRY_FIRST_DELAY_SECONDS: '60' },
+});
 
 let catalogue: TestCatalogue;
 
@@ -30,7 +34,11 @@ describe('e-mail when the mail service is down', () => {
 
     expect(res.status).toBe(200);
     const message = await waitFor<{ status: string; attempts: number; last_error: string | null; next_attempt_at: Date; created_at: Date }>(
-      () => db('mail_messages').where({ user_id: rider.user.id }).where('attempts', '>', 0).first('status', 'attempts', 'last_error', 'next_attempt_at', 'created_at'),
+      () =>
+        db('mail_messages')
+          .where({ user_id: rider.user.id })
+          .where('attempts', '>', 0)
+          .first('status', 'attempts', 'last_error', 'next_attempt_at', 'created_at'),
       { what: 'a first failed attempt' },
     );
     expect(message).toMatchObject({ status: 'queued', attempts: 1 });
@@ -63,7 +71,15 @@ describe('e-mail when the mail service is down', () => {
   it('when an attempt fails within the give-up time, then the message stays queued', async () => {
     const rider = await signedInAgent(app, { handle: 'patient-mail-rider' });
     const [{ id }] = await db('mail_messages')
-      .insert({ user_id: rider.user.id, kind: 'submission_accepted', to_address: 'y@riders.crosswatt.test', subject: 's', text_body: 't', attempts: 20, retrying_since: db.raw(`now() - interval '23 hours'`) })
+      .insert({
+        user_id: rider.user.id,
+        kind: 'submission_accepted',
+        to_address: 'y@riders.crosswatt.test',
+        subject: 's',
+        text_body: 't',
+        attempts: 20,
+        retrying_since: db.raw(`now() - interval '23 hours'`),
+      })
       .returning('id');
 
     // Two days by default (server/config/env.ts): an outage of a whole day is outlived.

@@ -17,7 +17,10 @@ const { app, db, config, queue } = await createTestContext({
 });
 
 function receivedWithSubject(subject: string) {
-  return db('mail_outbox').where({ subject }).count<{ count: string }[]>({ count: '*' }).then(([row]) => Number(row!.count));
+  return db('mail_outbox')
+    .where({ subject })
+    .count<{ count: string }[]>({ count: '*' })
+    .then(([row]) => Number(row!.count));
 }
 
 function liveJobs(mailId: number) {
@@ -33,12 +36,21 @@ describe('mail through an outage of the mail service', () => {
     const rider = await signedInAgent(app, { handle: 'outage-rider' });
     const subject = 'A reply while the mail service was down';
 
-    const mailId = await queueMail(db, { config, queue }, { userId: rider.user.id, kind: 'thread_reply', subject, text: 'Someone replied.' });
+    const mailId = await queueMail(
+      db,
+      { config, queue },
+      { userId: rider.user.id, kind: 'thread_reply', subject, text: 'Someone replied.' },
+    );
     // Three failed attempts: the first retries (after 1 s, then 2 s) have passed.
-    await waitFor(() => db('mail_messages').where({ id: mailId }).where('attempts', '>=', 3).first('id'), { what: 'three failed attempts' });
+    await waitFor(() => db('mail_messages').where({ id: mailId }).where('attempts', '>=', 3).first('id'), {
+      what: 'three failed attempts',
+    });
     const smtp = await startFakeSmtp({ db, port: smtpPort });
     try {
-      const sent = await waitFor<{ attempts: number; last_error: string | null }>(() => db('mail_messages').where({ id: mailId, status: 'sent' }).first('attempts', 'last_error'), { what: 'the message sent' });
+      const sent = await waitFor<{ attempts: number; last_error: string | null }>(
+        () => db('mail_messages').where({ id: mailId, status: 'sent' }).first('attempts', 'last_error'),
+        { what: 'the message sent' },
+      );
       await waitFor(async () => (await liveJobs(mailId!)) === 0, { what: 'no job left for the message' });
 
       expect(sent.attempts).toBeGreaterThanOrEqual(4);

@@ -89,8 +89,15 @@ describe('e-mail', () => {
   it('when a thread reply is queued for someone who switched reply e-mails off, then nothing is queued; with them on, it is sent', async () => {
     const quiet = await signedInAgent(app, { handle: 'reply-quiet' });
     const keen = await signedInAgent(app, { handle: 'reply-keen' });
-    await quiet.agent.patch('/api/account').set('X-CSRF-Token', await quiet.csrf()).send({ notificationPrefs: { emailOnReply: false } });
-    const message = { kind: 'thread_reply' as const, subject: 'New reply: cadence dropouts on 1.4', text: 'Someone replied in a thread you follow.' };
+    await quiet.agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await quiet.csrf())
+      .send({ notificationPrefs: { emailOnReply: false } });
+    const message = {
+      kind: 'thread_reply' as const,
+      subject: 'New reply: cadence dropouts on 1.4',
+      text: 'Someone replied in a thread you follow.',
+    };
 
     const skipped = await queueMail(db, { config, queue }, { userId: quiet.user.id, ...message });
     const queued = await queueMail(db, { config, queue }, { userId: keen.user.id, ...message });
@@ -106,7 +113,11 @@ describe('e-mail', () => {
 
     await expect(
       db.transaction(async (trx) => {
-        await queueMail(trx, { config, queue }, { userId: rider.user.id, kind: 'maker_response', subject: 'Official answer', text: 'The maker answered.' });
+        await queueMail(
+          trx,
+          { config, queue },
+          { userId: rider.user.id, kind: 'maker_response', subject: 'Official answer', text: 'The maker answered.' },
+        );
         throw new Error('the change failed');
       }),
     ).rejects.toThrow('the change failed');

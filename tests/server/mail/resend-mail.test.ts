@@ -16,13 +16,24 @@ beforeAll(async () => {
 
 async function failedMessage(subject: string): Promise<number> {
   const [{ id }] = await db('mail_messages')
-    .insert({ user_id: riderId, kind: 'submission_accepted', to_address: 'resend-rider@riders.crosswatt.test', subject, text_body: 't', status: 'failed', attempts: 31, last_error: 'connect ECONNREFUSED 127.0.0.1:2525' })
+    .insert({
+      user_id: riderId,
+      kind: 'submission_accepted',
+      to_address: 'resend-rider@riders.crosswatt.test',
+      subject,
+      text_body: 't',
+      status: 'failed',
+      attempts: 31,
+      last_error: 'connect ECONNREFUSED 127.0.0.1:2525',
+    })
     .returning('id');
   return id;
 }
 
 function jobsFor(mailId: number) {
-  return db('pgboss.job').where({ name: SEND_MAIL_QUEUE, singleton_key: String(mailId) }).select('state');
+  return db('pgboss.job')
+    .where({ name: SEND_MAIL_QUEUE, singleton_key: String(mailId) })
+    .select('state');
 }
 
 describe('failed mail in the Outbox', () => {
@@ -58,8 +69,16 @@ describe('failed mail in the Outbox', () => {
     expect(second.body.error.message).toMatch(/not failed/);
     expect(await db('mail_messages').where({ id }).first('status', 'attempts')).toEqual({ status: 'queued', attempts: 31 });
     expect(await jobsFor(id)).toEqual([{ state: 'created' }]);
-    const audit = await db('audit_log').where({ action: 'mail.resent', subject_id: String(id) }).select('actor_id', 'before', 'after');
-    expect(audit).toEqual([{ actor_id: admin.user.id, before: { status: 'failed', attempts: 31, lastError: 'connect ECONNREFUSED 127.0.0.1:2525' }, after: { status: 'queued' } }]);
+    const audit = await db('audit_log')
+      .where({ action: 'mail.resent', subject_id: String(id) })
+      .select('actor_id', 'before', 'after');
+    expect(audit).toEqual([
+      {
+        actor_id: admin.user.id,
+        before: { status: 'failed', attempts: 31, lastError: 'connect ECONNREFUSED 127.0.0.1:2525' },
+        after: { status: 'queued' },
+      },
+    ]);
   });
 
   it('when the message id does not exist or is not a number, then a clear 4xx and nothing changes', async () => {

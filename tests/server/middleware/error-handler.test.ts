@@ -19,7 +19,10 @@ describe('values the database cannot hold', () => {
         .post('/api/moderation/submissions/99999999999/decision')
         .set('X-CSRF-Token', await moderator.csrf())
         .send({ decision: 'accept', expectedVersion: 1 }),
-      await admin.agent.post('/api/admin/users/99999999999/roles').set('X-CSRF-Token', await admin.csrf()).send({ role: 'moderator' }),
+      await admin.agent
+        .post('/api/admin/users/99999999999/roles')
+        .set('X-CSRF-Token', await admin.csrf())
+        .send({ role: 'moderator' }),
     ];
 
     for (const res of answers) {

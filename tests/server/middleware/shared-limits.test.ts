@@ -37,7 +37,7 @@ describe('limits shared by every web process', () => {
     expect(await one.db('submissions').where({ rider_id: onFirst.user.id })).toHaveLength(2);
   });
 
-  it('when another process is storing the rider\'s last submission of the day, then an upload through this app waits for it and is refused', async () => {
+  it("when another process is storing the rider's last submission of the day, then an upload through this app waits for it and is refused", async () => {
     const onFirst = await signedInAgent(one.app, { handle: 'racing-rider' });
     const onSecond = await signedInAgent(other.app, { handle: 'racing-rider' });
     expect((await upload(onFirst, 611)).status).toBe(201);
@@ -55,7 +55,9 @@ describe('limits shared by every web process', () => {
     });
 
     const answer = upload(onSecond, 612).then((r) => r);
-    await waitFor(() => one.db('pg_locks').where({ locktype: 'advisory', granted: false }).first('pid'), { what: 'the upload waiting for the lock' });
+    await waitFor(() => one.db('pg_locks').where({ locktype: 'advisory', granted: false }).first('pid'), {
+      what: 'the upload waiting for the lock',
+    });
     await storing.commit();
 
     const refused = await answer;
@@ -66,12 +68,19 @@ describe('limits shared by every web process', () => {
   it('when a person uses up the write budget on one app, then the other app refuses their next write too', async () => {
     const onFirst = await signedInAgent(one.app, { handle: 'busy-writer' });
     const onSecond = await signedInAgent(other.app, { handle: 'busy-writer' });
-    const write = async (rider: Rider) => rider.agent.post('/api/notifications/read').set('X-CSRF-Token', await rider.csrf()).send({ all: true });
+    const write = async (rider: Rider) =>
+      rider.agent
+        .post('/api/notifications/read')
+        .set('X-CSRF-Token', await rider.csrf())
+        .send({ all: true });
 
     for (let i = 0; i < 5; i++) expect((await write(i % 2 === 0 ? onFirst : onSecond)).status).toBe(200);
     const refused = await write(onSecond);
 
     expect(refused.status).toBe(429);
-    expect(refused.body.error).toEqual({ code: 'too_many_requests', message: 'Too many changes in a short time. Wait a minute and try again.' });
+    expect(refused.body.error).toEqual({
+      code: 'too_many_requests',
+      message: 'Too many changes in a short time. Wait a minute and try again.',
+    });
   });
 });

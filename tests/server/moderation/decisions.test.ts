@@ -17,7 +17,10 @@ beforeAll(async () => {
 });
 
 async function decide(agent: typeof moderator, id: number, body: object) {
-  return agent.agent.post(`/api/moderation/submissions/${id}/decision`).set('X-CSRF-Token', await agent.csrf()).send(body);
+  return agent.agent
+    .post(`/api/moderation/submissions/${id}/decision`)
+    .set('X-CSRF-Token', await agent.csrf())
+    .send(body);
 }
 
 async function statisticsOf(modelId: number) {
@@ -34,7 +37,9 @@ describe('moderation decisions', () => {
     expect(res.status).toBe(200);
     expect(res.body).toEqual({ id, status: 'accepted', version: version + 1 });
     expect((await statisticsOf(catalogue.spider.id))?.submission_count).toBe(before + 1);
-    const audit = await db('audit_log').where({ subject_type: 'submission', subject_id: String(id), action: 'submission.accepted' }).first();
+    const audit = await db('audit_log')
+      .where({ subject_type: 'submission', subject_id: String(id), action: 'submission.accepted' })
+      .first();
     expect(audit.actor_id).toBe(moderator.user.id);
     expect(audit.before).toMatchObject({ status: 'awaiting_review', version });
     expect(audit.after).toMatchObject({ status: 'accepted', version: version + 1 });
@@ -45,18 +50,28 @@ describe('moderation decisions', () => {
   it('when a moderator rejects with a reason and a note, then the rider sees both and the e-mail carries them', async () => {
     const { id, version } = await submissionAwaitingReview(db, rider.user.id, catalogue);
 
-    const res = await decide(moderator, id, { decision: 'reject', reason: 'not_calibrated', note: 'Meter A skipped its zero offset.', expectedVersion: version });
+    const res = await decide(moderator, id, {
+      decision: 'reject',
+      reason: 'not_calibrated',
+      note: 'Meter A skipped its zero offset.',
+      expectedVersion: version,
+    });
 
     expect(res.status).toBe(200);
     expect(res.body.status).toBe('rejected');
     const seen = await rider.agent.get(`/api/submissions/${id}/decision`);
     expect(seen.status).toBe(200);
-    expect(seen.body).toMatchObject({ status: 'rejected', decision: { reason: 'not_calibrated', note: 'Meter A skipped its zero offset.' } });
+    expect(seen.body).toMatchObject({
+      status: 'rejected',
+      decision: { reason: 'not_calibrated', note: 'Meter A skipped its zero offset.' },
+    });
     expect(seen.body.decision.reasonLabel).toMatch(/not calibrated/);
     const mail = await capturedMail(db, 'decided-rider@riders.crosswatt.test', new RegExp(`#${id} was not accepted`));
     expect(mail.text_body).toContain('Reason: One meter was not calibrated (no zero offset)');
     expect(mail.text_body).toContain('Meter A skipped its zero offset.');
-    const audit = await db('audit_log').where({ subject_id: String(id), action: 'submission.rejected' }).first();
+    const audit = await db('audit_log')
+      .where({ subject_id: String(id), action: 'submission.rejected' })
+      .first();
     expect(audit.reason).toBe('not_calibrated: Meter A skipped its zero offset.');
   });
 
@@ -72,7 +87,11 @@ describe('moderation decisions', () => {
 
   it('when a moderator sends a submission back and the rider corrects a tag, then it returns to the queue', async () => {
     const { id, version } = await submissionAwaitingReview(db, rider.user.id, catalogue);
-    const sent = await decide(moderator, id, { decision: 'send_back', note: 'Device A runs 2.1.0? Check the firmware.', expectedVersion: version });
+    const sent = await decide(moderator, id, {
+      decision: 'send_back',
+      note: 'Device A runs 2.1.0? Check the firmware.',
+      expectedVersion: version,
+    });
     expect(sent.status).toBe(200);
     expect(sent.body.status).toBe('sent_back');
     await capturedMail(db, 'decided-rider@riders.crosswatt.test', new RegExp(`correct the tags of submission #${id}`));
@@ -86,7 +105,9 @@ describe('moderation decisions', () => {
     expect(edit.body).toMatchObject({ status: 'awaiting_review', reanalyse: false });
     const queue = await moderator.agent.get('/api/moderation/queue');
     expect(queue.body.submissions.map((s: { id: number }) => s.id)).toContain(id);
-    const audit = await db('audit_log').where({ subject_id: String(id), action: 'submission.tags_edited' }).first();
+    const audit = await db('audit_log')
+      .where({ subject_id: String(id), action: 'submission.tags_edited' })
+      .first();
     expect(audit.before.tags[0].recordingDeviceFirmware).toBe('12.1');
     expect(audit.after.tags[0].recordingDeviceFirmware).toBe('12.2');
   });
@@ -96,7 +117,10 @@ describe('moderation decisions', () => {
     const sent = await decide(moderator, id, { decision: 'send_back', note: 'Check the tags.', expectedVersion: version });
     const stranger = await signedInAgent(app, { handle: 'tag-stranger' });
 
-    const edit = await stranger.agent.patch(`/api/submissions/${id}/tags`).set('X-CSRF-Token', await stranger.csrf()).send({ a: { zeroOffset: 'no' }, expectedVersion: sent.body.version });
+    const edit = await stranger.agent
+      .patch(`/api/submissions/${id}/tags`)
+      .set('X-CSRF-Token', await stranger.csrf())
+      .send({ a: { zeroOffset: 'no' }, expectedVersion: sent.body.version });
 
     expect(edit.status).toBe(404);
   });
@@ -104,8 +128,12 @@ describe('moderation decisions', () => {
   it('when a moderator corrects the firmware tag of an accepted submission, then the statistics move to the corrected firmware and it is audited as a correction', async () => {
     const { id, version } = await submissionAwaitingReview(db, rider.user.id, catalogue);
     const accepted = await decide(moderator, id, { decision: 'accept', expectedVersion: version });
-    const newer = await db('firmware_versions').insert({ model_id: catalogue.spider.id, version: '2.2.0', version_order: [2, 2, 0], status: 'approved' }).returning('id');
-    const countAt = async (firmwareId: number) => (await db('meter_statistics').where({ model_id: catalogue.spider.id, firmware_id: firmwareId }).first('submission_count'))?.submission_count ?? 0;
+    const newer = await db('firmware_versions')
+      .insert({ model_id: catalogue.spider.id, version: '2.2.0', version_order: [2, 2, 0], status: 'approved' })
+      .returning('id');
+    const countAt = async (firmwareId: number) =>
+      (await db('meter_statistics').where({ model_id: catalogue.spider.id, firmware_id: firmwareId }).first('submission_count'))
+        ?.submission_count ?? 0;
     const oldBefore = await countAt(catalogue.spiderFirmware.id);
 
     const res = await moderator.agent
@@ -117,7 +145,9 @@ describe('moderation decisions', () => {
     expect(res.body).toMatchObject({ status: 'accepted', reanalyse: false });
     expect(await countAt(catalogue.spiderFirmware.id)).toBe(oldBefore - 1);
     expect(await countAt(newer[0].id)).toBe(1);
-    const audit = await db('audit_log').where({ subject_id: String(id), action: 'submission.tags_corrected' }).first();
+    const audit = await db('audit_log')
+      .where({ subject_id: String(id), action: 'submission.tags_corrected' })
+      .first();
     expect(audit.actor_id).toBe(moderator.user.id);
     expect(audit.reason).toBe('The file says 2.2');
   });
@@ -127,12 +157,18 @@ describe('moderation decisions', () => {
     const accepted = await decide(moderator, id, { decision: 'accept', expectedVersion: version });
     const during = (await statisticsOf(catalogue.pedals.id))!.submission_count;
 
-    const res = await decide(moderator, id, { decision: 'withdraw', reason: 'The rider told us meter B was faulty that day.', expectedVersion: accepted.body.version });
+    const res = await decide(moderator, id, {
+      decision: 'withdraw',
+      reason: 'The rider told us meter B was faulty that day.',
+      expectedVersion: accepted.body.version,
+    });
 
     expect(res.status).toBe(200);
     expect(res.body.status).toBe('withdrawn');
     expect((await statisticsOf(catalogue.pedals.id))?.submission_count ?? 0).toBe(during - 1);
-    const audit = await db('audit_log').where({ subject_id: String(id), action: 'submission.withdrawn' }).first();
+    const audit = await db('audit_log')
+      .where({ subject_id: String(id), action: 'submission.withdrawn' })
+      .first();
     expect(audit.reason).toBe('The rider told us meter B was faulty that day.');
     expect(audit.before.status).toBe('accepted');
   });
@@ -152,8 +188,14 @@ describe('moderation decisions', () => {
     const [tokenA, tokenB] = [await moderator.csrf(), await second.csrf()];
 
     const [a, b] = await Promise.all([
-      moderator.agent.post(`/api/moderation/submissions/${id}/decision`).set('X-CSRF-Token', tokenA).send({ decision: 'accept', expectedVersion: version }),
-      second.agent.post(`/api/moderation/submissions/${id}/decision`).set('X-CSRF-Token', tokenB).send({ decision: 'reject', reason: 'duplicate', expectedVersion: version }),
+      moderator.agent
+        .post(`/api/moderation/submissions/${id}/decision`)
+        .set('X-CSRF-Token', tokenA)
+        .send({ decision: 'accept', expectedVersion: version }),
+      second.agent
+        .post(`/api/moderation/submissions/${id}/decision`)
+        .set('X-CSRF-Token', tokenB)
+        .send({ decision: 'reject', reason: 'duplicate', expectedVersion: version }),
     ]);
 
     const statuses = [a.status, b.status].sort();
@@ -163,7 +205,11 @@ describe('moderation decisions', () => {
     expect(loser.body.error.code).toBe('conflict');
     expect(loser.body.error.message).toMatch(/Someone changed this submission while you were looking at it: it is now (accepted|rejected)/);
     expect((await db('submissions').where({ id }).first('status')).status).toBe(winner.body.status);
-    expect(await db('audit_log').where({ subject_id: String(id) }).whereIn('action', ['submission.accepted', 'submission.rejected'])).toHaveLength(1);
+    expect(
+      await db('audit_log')
+        .where({ subject_id: String(id) })
+        .whereIn('action', ['submission.accepted', 'submission.rejected']),
+    ).toHaveLength(1);
   });
 
   it('when a moderator is staff of a maker in the submission, then they may not decide on it', async () => {
@@ -187,7 +233,10 @@ describe('moderation decisions', () => {
 
   it('when the rider has switched off decision e-mails, then a decision sends nothing', async () => {
     const quiet = await signedInAgent(app, { handle: 'quiet-rider' });
-    await quiet.agent.patch('/api/account').set('X-CSRF-Token', await quiet.csrf()).send({ notificationPrefs: { emailOnDecision: false } });
+    await quiet.agent
+      .patch('/api/account')
+      .set('X-CSRF-Token', await quiet.csrf())
+      .send({ notificationPrefs: { emailOnDecision: false } });
     const { id, version } = await submissionAwaitingReview(db, quiet.user.id, catalogue);
 
     const res = await decide(moderator, id, { decision: 'accept', expectedVersion: version });

@@ -12,7 +12,9 @@ describe('the moderation migration', () => {
     expect(await db.schema.hasTable('catalogue_aliases')).toBe(false);
     expect(await db.schema.hasColumn('models', 'hidden_reason')).toBe(false);
     expect(await db.schema.hasColumn('submissions', 'decision_reason')).toBe(false);
-    await expect(db('makers').insert({ slug: 'rejected-maker', name: 'Rejected Maker', status: 'rejected' })).rejects.toThrow(/makers_status_check/);
+    await expect(db('makers').insert({ slug: 'rejected-maker', name: 'Rejected Maker', status: 'rejected' })).rejects.toThrow(
+      /makers_status_check/,
+    );
 
     await migration.up(db);
 

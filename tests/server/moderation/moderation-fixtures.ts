@@ -38,7 +38,8 @@ export async function capturedMail(db: Db, address: string, subject: RegExp, tim
     const rows = await db('mail_outbox').whereRaw('? = any(recipients)', [address]).orderBy('id', 'desc').select('*');
     const found = rows.find((r) => subject.test(r.subject));
     if (found) return found as { subject: string; text_body: string; recipients: string[]; headers: Record<string, string> };
-    if (Date.now() > until) throw new Error(`no mail to ${address} matching ${subject} (got: ${rows.map((r) => r.subject).join(' | ') || 'none'})`);
+    if (Date.now() > until)
+      throw new Error(`no mail to ${address} matching ${subject} (got: ${rows.map((r) => r.subject).join(' | ') || 'none'})`);
     await new Promise((r) => setTimeout(r, 150));
   }
 }

@@ -29,8 +29,12 @@ describe('the review queue', () => {
   it('when submissions wait, then the most severe flags come first, with headline figures, and the filters narrow the list', async () => {
     const calm = await submissionAwaitingReview(db, rider.user.id, catalogue);
     const flagged = await submissionAwaitingReview(db, rider.user.id, other);
-    await db('submissions').where({ id: flagged.id }).update({ flags: JSON.stringify([severe]), flag_severity: 3 });
-    await db('submissions').where({ id: calm.id }).update({ created_at: db.raw(`now() - interval '3 days'`) });
+    await db('submissions')
+      .where({ id: flagged.id })
+      .update({ flags: JSON.stringify([severe]), flag_severity: 3 });
+    await db('submissions')
+      .where({ id: calm.id })
+      .update({ created_at: db.raw(`now() - interval '3 days'`) });
 
     const all = await moderator.agent.get('/api/moderation/queue');
     const byFlag = await moderator.agent.get('/api/moderation/queue').query({ flag: 'low_correlation' });
@@ -66,7 +70,10 @@ describe('the review queue', () => {
 describe('the review page', () => {
   it('when the same ride comes again with other files, then the review lists it as a near-identical duplicate, with the rider history and the device checks', async () => {
     const original = await submissionAwaitingReview(db, rider.user.id, catalogue, { seed: 7001 });
-    await moderator.agent.post(`/api/moderation/submissions/${original.id}/decision`).set('X-CSRF-Token', await moderator.csrf()).send({ decision: 'accept', expectedVersion: original.version });
+    await moderator.agent
+      .post(`/api/moderation/submissions/${original.id}/decision`)
+      .set('X-CSRF-Token', await moderator.csrf())
+      .send({ decision: 'accept', expectedVersion: original.version });
     // The same ride written by another head unit: other files by hash, the same streams.
     const input = createSubmissionInput.parse(submissionMeta(catalogue));
     const other = cleanPair(7001, { headUnitSerial: 987_654 });
@@ -85,14 +92,18 @@ describe('the review page', () => {
     expect(duplicate).toMatchObject({ status: 'accepted', nearIdentical: true });
     expect(duplicate.sameStreamShare).toBeGreaterThan(0.95);
     expect(res.body.riderHistory.accepted).toBeGreaterThanOrEqual(1);
-    const deviceCheck = res.body.deviceChecks.find((c: { side: string; what: string }) => c.side === 'a' && c.what === 'recording_device_firmware');
+    const deviceCheck = res.body.deviceChecks.find(
+      (c: { side: string; what: string }) => c.side === 'a' && c.what === 'recording_device_firmware',
+    );
     expect(deviceCheck).toMatchObject({ tagged: '12.1', agrees: false });
     expect(deviceCheck.message).toMatch(/tagged 12\.1/);
   });
 
   it('when a submission carries a flag, then the review explains what to check and suggests a reason', async () => {
     const { id } = await submissionAwaitingReview(db, rider.user.id, catalogue);
-    await db('submissions').where({ id }).update({ flags: JSON.stringify([severe]), flag_severity: 3 });
+    await db('submissions')
+      .where({ id })
+      .update({ flags: JSON.stringify([severe]), flag_severity: 3 });
 
     const res = await moderator.agent.get(`/api/moderation/submissions/${id}`);
 

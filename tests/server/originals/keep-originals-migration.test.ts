@@ -26,6 +26,8 @@ describe('the migration that keeps originals', () => {
       [null, null],
       [null, null],
     ]);
-    await expect(db('submission_recordings').where({ id: rows[0].id }).update({ original_key: 'originals/x.fit' })).rejects.toThrow(/original_kept_whole/);
+    await expect(db('submission_recordings').where({ id: rows[0].id }).update({ original_key: 'originals/x.fit' })).rejects.toThrow(
+      /original_kept_whole/,
+    );
   });
 });

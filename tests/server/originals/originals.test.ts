@@ -129,7 +129,9 @@ describe('keeping the uploaded files', () => {
   it('when recordings have no original (stored before they were kept), then the review says so for each file while one with originals says kept', async () => {
     const older = await upload(app, 'older-rider', cleanPair(304));
     const newer = await upload(app, 'newer-rider', cleanPair(307));
-    await db('submission_recordings').where({ submission_id: older.body.id }).update({ original_key: null, original_bytes: null, decoder_version: null });
+    await db('submission_recordings')
+      .where({ submission_id: older.body.id })
+      .update({ original_key: null, original_bytes: null, decoder_version: null });
     const { agent } = await signedInAgent(app, { handle: 'originals-moderator', roles: ['moderator'] });
 
     const olderReview = await agent.get(`/api/moderation/submissions/${older.body.id}`);
@@ -156,7 +158,10 @@ describe('deleting an account', () => {
     for (const key of keys) expect(await store.head(key)).toBeDefined();
     const { agent, csrf } = await signedInAgent(app, { handle: 'leaving-rider' });
 
-    const deletion = await agent.post('/api/account/deletion').set('X-CSRF-Token', await csrf()).send({ confirmHandle: 'leaving-rider' });
+    const deletion = await agent
+      .post('/api/account/deletion')
+      .set('X-CSRF-Token', await csrf())
+      .send({ confirmHandle: 'leaving-rider' });
 
     expect(deletion.status).toBe(204);
     for (const key of keys) expect(await store.head(key)).toBeUndefined();
@@ -176,13 +181,19 @@ describe('deleting an account', () => {
     const first = await upload(app, 'first-sharer', { a: shared.a, b: shared.b });
     const second = await upload(app, 'second-sharer', { a: shared.a, b: other.b });
     expect([first.status, second.status]).toEqual([201, 201]);
-    const sharedKey = (await db('submission_recordings').where({ submission_id: first.body.id, side: 'a' }).first('original_key')).original_key;
+    const sharedKey = (await db('submission_recordings').where({ submission_id: first.body.id, side: 'a' }).first('original_key'))
+      .original_key;
     const { agent, csrf } = await signedInAgent(app, { handle: 'first-sharer' });
 
-    await agent.post('/api/account/deletion').set('X-CSRF-Token', await csrf()).send({ confirmHandle: 'first-sharer' });
+    await agent
+      .post('/api/account/deletion')
+      .set('X-CSRF-Token', await csrf())
+      .send({ confirmHandle: 'first-sharer' });
 
     expect(await store.head(sharedKey)).toBeDefined();
-    expect((await db('submission_recordings').where({ submission_id: second.body.id, side: 'a' }).first('original_key')).original_key).toBe(sharedKey);
+    expect((await db('submission_recordings').where({ submission_id: second.body.id, side: 'a' }).first('original_key')).original_key).toBe(
+      sharedKey,
+    );
   });
 });
 

@@ -39,7 +39,10 @@ const ROUTES: Record<string, RouteRule> = {
   'GET /api/admin/reanalysis': { visitor: 'signed_in_only' },
   'GET /api/admin/users': { visitor: 'signed_in_only' },
   'GET /api/catalogue': { visitor: 'public' },
-  'GET /api/catalogue/aliases': { visitor: 'public', paths: (w) => w.modelSlugs.slice(0, 3).map((s) => `/api/catalogue/aliases?slug=${s}`) },
+  'GET /api/catalogue/aliases': {
+    visitor: 'public',
+    paths: (w) => w.modelSlugs.slice(0, 3).map((s) => `/api/catalogue/aliases?slug=${s}`),
+  },
   'GET /api/csrf-token': { visitor: 'public' },
   'GET /api/health': { visitor: 'public' },
   'GET /api/mail/outbox': { visitor: 'signed_in_only' },
@@ -55,19 +58,28 @@ const ROUTES: Record<string, RouteRule> = {
     paths: (w) => w.firmware.map((f) => `/api/models/${f.slug}/firmware/${encodeURIComponent(f.version)}`),
   },
   'GET /api/models/:slug/conditions': { visitor: 'public', paths: (w) => w.modelSlugs.map((s) => `/api/models/${s}/conditions`) },
-  'GET /api/models/:slug/linkable-submissions': { visitor: 'signed_in_only', paths: (w) => [`/api/models/${w.modelSlugs[0]}/linkable-submissions`] },
+  'GET /api/models/:slug/linkable-submissions': {
+    visitor: 'signed_in_only',
+    paths: (w) => [`/api/models/${w.modelSlugs[0]}/linkable-submissions`],
+  },
   'GET /api/models/:slug/thread-summary': { visitor: 'public', paths: (w) => w.modelSlugs.map((s) => `/api/models/${s}/thread-summary`) },
   'GET /api/models/:slug/threads': { visitor: 'public', paths: (w) => w.modelSlugs.map((s) => `/api/models/${s}/threads`) },
   'GET /api/moderation/catalogue/pending': { visitor: 'signed_in_only' },
   'GET /api/moderation/queue': { visitor: 'signed_in_only' },
-  'GET /api/moderation/submissions/:id': { visitor: 'signed_in_only', paths: (w) => w.submissionIds.slice(0, 3).map((id) => `/api/moderation/submissions/${id}`) },
+  'GET /api/moderation/submissions/:id': {
+    visitor: 'signed_in_only',
+    paths: (w) => w.submissionIds.slice(0, 3).map((id) => `/api/moderation/submissions/${id}`),
+  },
   'GET /api/notifications': { visitor: 'signed_in_only' },
   'GET /api/scoreboard': { visitor: 'public' },
   'GET /api/scoreboard.csv': { visitor: 'public' },
   'GET /api/submissions.csv': { visitor: 'public' },
   // Not-yet-accepted submissions answer 404 to visitors; the accepted ones are public.
   'GET /api/submissions/:id': { visitor: 'public', paths: (w) => w.submissionIds.map((id) => `/api/submissions/${id}`) },
-  'GET /api/submissions/:id/trace': { visitor: 'public', paths: (w) => w.submissionIds.slice(0, 3).map((id) => `/api/submissions/${id}/trace`) },
+  'GET /api/submissions/:id/trace': {
+    visitor: 'public',
+    paths: (w) => w.submissionIds.slice(0, 3).map((id) => `/api/submissions/${id}/trace`),
+  },
   'GET /api/submissions/:id/decision': { visitor: 'public', paths: (w) => w.submissionIds.map((id) => `/api/submissions/${id}/decision`) },
   'GET /api/threads/:id': { visitor: 'public', paths: (w) => w.threadIds.map((id) => `/api/threads/${id}`) },
   // Sign-in redirects: no body worth reading, but walked all the same.
@@ -100,8 +112,7 @@ beforeAll(async () => {
 function serialNumbersIn(value: unknown, found = new Set<number>()): Set<number> {
   if (Array.isArray(value)) {
     for (const v of value) serialNumbersIn(v, found);
-  }
-  else if (value && typeof value === 'object') {
+  } else if (value && typeof value === 'object') {
     for (const [key, v] of Object.entries(value)) {
       if (key === 'serialNumber' && typeof v === 'number') found.add(v);
       else serialNumbersIn(v, found);
@@ -159,10 +170,24 @@ describe('what a visitor gets from the public routes', () => {
     for (const [route, statuses] of walk.statuses) {
       const rule = ROUTES[route]!;
       expect(statuses.length, route).toBeGreaterThan(0);
-      expect(statuses.filter((s) => s >= 500), `${route} answered a 5xx`).toEqual([]);
-      if (rule.visitor === 'signed_in_only') expect(statuses.every((s) => s === 401 || s === 403 || s === 404), route).toBe(true);
+      expect(
+        statuses.filter((s) => s >= 500),
+        `${route} answered a 5xx`,
+      ).toEqual([]);
+      if (rule.visitor === 'signed_in_only')
+        expect(
+          statuses.every((s) => s === 401 || s === 403 || s === 404),
+          route,
+        ).toBe(true);
     }
-    for (const route of ['GET /api/submissions/:id', 'GET /api/models/:slug', 'GET /api/models/:slug/firmware/:version', 'GET /api/threads/:id', 'GET /api/scoreboard.csv', 'GET /api/submissions.csv']) {
+    for (const route of [
+      'GET /api/submissions/:id',
+      'GET /api/models/:slug',
+      'GET /api/models/:slug/firmware/:version',
+      'GET /api/threads/:id',
+      'GET /api/scoreboard.csv',
+      'GET /api/submissions.csv',
+    ]) {
       expect(walk.statuses.get(route)!.filter((s) => s === 200).length, route).toBeGreaterThan(0);
     }
   });
@@ -198,7 +223,11 @@ describe('the privacy walk itself', () => {
   });
 
   it('when the exact start time of a ride is put back, as an ISO time or as Unix seconds, then the walk finds it', async () => {
-    const leaky = appThatLeaks(/^\/api\/threads\/\d+$/, (body) => ({ ...body, lastRide: '2026-11-14T07:42:10.000Z', clock: { at: 1_794_642_130 } }));
+    const leaky = appThatLeaks(/^\/api\/threads\/\d+$/, (body) => ({
+      ...body,
+      lastRide: '2026-11-14T07:42:10.000Z',
+      clock: { at: 1_794_642_130 },
+    }));
 
     const { findings } = await walkAsVisitor(leaky);
 

@@ -34,7 +34,12 @@ async function asLeftByMethod1(id: number, change: Record<string, unknown> = {})
   const rank = { info: 1, warning: 2, severe: 3 } as const;
   await db('submissions')
     .where({ id })
-    .update({ method_version: 1, flags: JSON.stringify(flags), flag_severity: Math.max(0, ...flags.map((f) => rank[f.severity])), ...change });
+    .update({
+      method_version: 1,
+      flags: JSON.stringify(flags),
+      flag_severity: Math.max(0, ...flags.map((f) => rank[f.severity])),
+      ...change,
+    });
 }
 
 async function decide(id: number, decision: 'accept' | 'reject') {
@@ -42,7 +47,10 @@ async function decide(id: number, decision: 'accept' | 'reject') {
 }
 
 const rows = (ids: number[]) =>
-  db('submissions').whereIn('id', ids).orderBy('id').select('id', 'status', 'method_version', 'bias_percent', 'flags', 'version', 'decided_by', 'decision_reason');
+  db('submissions')
+    .whereIn('id', ids)
+    .orderBy('id')
+    .select('id', 'status', 'method_version', 'bias_percent', 'flags', 'version', 'decided_by', 'decision_reason');
 
 beforeAll(async () => {
   catalogue = await createCatalogue(db);
@@ -81,11 +89,19 @@ describe('re-analysis of stored submissions', () => {
     await decide(rejected.id, 'reject');
     const before = await rows(ids);
     const modelPageBefore = await request(app).get(`/api/models/${catalogue.spider.slug}`);
-    const acceptedBefore = (await db('meter_statistics').where({ model_id: catalogue.spider.id }).whereNull('firmware_id').first('submission_count')).submission_count;
+    const acceptedBefore = (
+      await db('meter_statistics').where({ model_id: catalogue.spider.id }).whereNull('firmware_id').first('submission_count')
+    ).submission_count;
 
     // Act: start a run over HTTP; a second start while it runs is refused; then a worker works the queue.
-    const start = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});
-    const second = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});
+    const start = await admin.agent
+      .post('/api/admin/reanalysis')
+      .set('X-CSRF-Token', await admin.csrf())
+      .send({});
+    const second = await admin.agent
+      .post('/api/admin/reanalysis')
+      .set('X-CSRF-Token', await admin.csrf())
+      .send({});
     const progress = await admin.agent.get('/api/admin/reanalysis');
     await workReanalysisQueue(queue!, db, createLogger(config), testObjectStore());
     const finished = await waitFor(
@@ -101,8 +117,19 @@ describe('re-analysis of stored submissions', () => {
     expect(start.body.run).toMatchObject({ status: 'running', methodVersion: METHOD_VERSION, source: 'streams', total: 4, done: 0 });
     expect(second.status).toBe(409);
     expect(second.body.error.message).toMatch(/already running/);
-    expect(progress.body).toMatchObject({ currentMethodVersion: METHOD_VERSION, runs: [{ id: start.body.run.id, status: 'running', total: 4 }] });
-    expect(finished).toMatchObject({ id: start.body.run.id, status: 'finished', total: 4, done: 4, failed: 0, sentBack: 1, lastError: null });
+    expect(progress.body).toMatchObject({
+      currentMethodVersion: METHOD_VERSION,
+      runs: [{ id: start.body.run.id, status: 'running', total: 4 }],
+    });
+    expect(finished).toMatchObject({
+      id: start.body.run.id,
+      status: 'finished',
+      total: 4,
+      done: 4,
+      failed: 0,
+      sentBack: 1,
+      lastError: null,
+    });
     expect(finished.finishedAt).not.toBeNull();
 
     // Every ride at the current method; the edited bias is the engine's again.
@@ -117,13 +144,17 @@ describe('re-analysis of stored submissions', () => {
 
     // The reason is in the audit log and on the moderator's review page.
     const reason = `Re-analysed with method ${METHOD_VERSION}: Device A's power meter firmware is tagged 2.1.0, but its file reports 1.2.`;
-    const audit = await db('audit_log').where({ subject_type: 'submission', subject_id: String(mistagged.id), action: 'submission.sent_back_by_reanalysis' }).select('reason');
+    const audit = await db('audit_log')
+      .where({ subject_type: 'submission', subject_id: String(mistagged.id), action: 'submission.sent_back_by_reanalysis' })
+      .select('reason');
     expect(audit).toEqual([{ reason }]);
     const review = await moderator.agent.get(`/api/moderation/submissions/${mistagged.id}`);
     expect(review.body.history).toContainEqual(expect.objectContaining({ action: 'submission.sent_back_by_reanalysis', reason }));
 
     // The statistics: rebuilt once, without the ride sent back, and what a full recompute gives.
-    const acceptedAfter = (await db('meter_statistics').where({ model_id: catalogue.spider.id }).whereNull('firmware_id').first('submission_count')).submission_count;
+    const acceptedAfter = (
+      await db('meter_statistics').where({ model_id: catalogue.spider.id }).whereNull('firmware_id').first('submission_count')
+    ).submission_count;
     expect(acceptedAfter).toBe(acceptedBefore - 1);
     const afterRun = await statisticsSnapshot(db);
     await recomputeAllAggregates(db);
@@ -131,10 +162,16 @@ describe('re-analysis of stored submissions', () => {
 
     // The public model page says its figures now come from the current method only.
     expect(modelPageBefore.body.methods).toEqual({ current: METHOD_VERSION, versions: [1] });
-    expect((await request(app).get(`/api/models/${catalogue.spider.slug}`)).body.methods).toEqual({ current: METHOD_VERSION, versions: [METHOD_VERSION] });
+    expect((await request(app).get(`/api/models/${catalogue.spider.slug}`)).body.methods).toEqual({
+      current: METHOD_VERSION,
+      versions: [METHOD_VERSION],
+    });
 
     // A second run finds nothing to re-analyse and changes no submission.
-    const rerun = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({});
+    const rerun = await admin.agent
+      .post('/api/admin/reanalysis')
+      .set('X-CSRF-Token', await admin.csrf())
+      .send({});
     expect(rerun.status).toBe(202);
     expect(rerun.body.run).toMatchObject({ status: 'finished', total: 0, done: 0, failed: 0, sentBack: 0 });
     expect(await rows(ids)).toEqual(after);
@@ -154,13 +191,20 @@ describe('re-analysis of stored submissions', () => {
 
   it('when the decoder is newer than the one that read a kept original, then a run from the originals decodes it again and stores the new stream with its decoder; a run from the streams leaves it', async () => {
     const kept = await submissionAwaitingReview(db, riderId, catalogue, { seed: 7105 });
-    const recordings = () => db('submission_recordings').where({ submission_id: kept.id }).orderBy('side').select('side', 'original_key', 'decoder_version', 'stream');
+    const recordings = () =>
+      db('submission_recordings')
+        .where({ submission_id: kept.id })
+        .orderBy('side')
+        .select('side', 'original_key', 'decoder_version', 'stream');
     const [a, b] = await recordings();
     expect(a.original_key).not.toBeNull();
     // As an older decoder would have left it: its version, and (to see the stream replaced) the other side's stream in A.
     await db('submission_recordings').where({ submission_id: kept.id, side: 'a' }).update({ decoder_version: 1, stream: b.stream });
     const run = async (source: string) => {
-      const res = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({ source });
+      const res = await admin.agent
+        .post('/api/admin/reanalysis')
+        .set('X-CSRF-Token', await admin.csrf())
+        .send({ source });
       expect(res.status).toBe(202);
       return waitFor(
         async () => {
@@ -181,7 +225,10 @@ describe('re-analysis of stored submissions', () => {
     expect(fromOriginals).toMatchObject({ status: 'finished', source: 'originals', total: 1, done: 1, failed: 0 });
     expect(aAfter.decoder_version).toBe(DECODER_VERSION);
     expect(Buffer.compare(aAfter.stream, a.stream)).toBe(0);
-    const bad = await admin.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await admin.csrf()).send({ source: 'files' });
+    const bad = await admin.agent
+      .post('/api/admin/reanalysis')
+      .set('X-CSRF-Token', await admin.csrf())
+      .send({ source: 'files' });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/^source:/);
   }, 180_000);
@@ -192,7 +239,14 @@ describe('re-analysis of stored submissions', () => {
     expect((await request(app).get('/api/admin/reanalysis')).status).toBe(401);
     expect((await rider.agent.get('/api/admin/reanalysis')).status).toBe(403);
     expect((await moderator.agent.get('/api/admin/reanalysis')).status).toBe(403);
-    expect((await moderator.agent.post('/api/admin/reanalysis').set('X-CSRF-Token', await moderator.csrf()).send({})).status).toBe(403);
+    expect(
+      (
+        await moderator.agent
+          .post('/api/admin/reanalysis')
+          .set('X-CSRF-Token', await moderator.csrf())
+          .send({})
+      ).status,
+    ).toBe(403);
     expect((await admin.agent.post('/api/admin/reanalysis').send({})).status).toBe(403);
     expect(await db('reanalysis_runs').count({ n: '*' }).first()).toEqual(runsBefore);
   });

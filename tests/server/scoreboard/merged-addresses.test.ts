@@ -16,8 +16,21 @@ describe('old addresses of merged catalogue entries', () => {
   it('when a model was merged into another, then its old page address redirects to the kept model', async () => {
     const catalogue = await createCatalogue(db);
     const moderatorId = await insertRider(db);
-    const twin = await insertModel(db, { makerId: catalogue.maker.id, slug: `${catalogue.spider.slug}-twin`, name: 'Orbit Twin', position: 'total', kind: 'spider', status: 'approved' });
-    await mergeEntries(db, { type: 'model', fromId: twin.id, intoId: catalogue.spider.id, actorId: moderatorId, reason: 'same spider, listed twice' });
+    const twin = await insertModel(db, {
+      makerId: catalogue.maker.id,
+      slug: `${catalogue.spider.slug}-twin`,
+      name: 'Orbit Twin',
+      position: 'total',
+      kind: 'spider',
+      status: 'approved',
+    });
+    await mergeEntries(db, {
+      type: 'model',
+      fromId: twin.id,
+      intoId: catalogue.spider.id,
+      actorId: moderatorId,
+      reason: 'same spider, listed twice',
+    });
 
     const res = await request(app).get(`/api/models/${twin.slug}`);
 
@@ -31,8 +44,19 @@ describe('old addresses of merged catalogue entries', () => {
   it('when a firmware version was merged into another, then its old page address redirects to the kept version', async () => {
     const catalogue = await createCatalogue(db);
     const moderatorId = await insertRider(db);
-    const typo = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.1', versionOrder: versionOrder('2.1'), status: 'approved' });
-    await mergeEntries(db, { type: 'firmware', fromId: typo.id, intoId: catalogue.spiderFirmware.id, actorId: moderatorId, reason: 'the same release' });
+    const typo = await insertFirmware(db, {
+      modelId: catalogue.spider.id,
+      version: '2.1',
+      versionOrder: versionOrder('2.1'),
+      status: 'approved',
+    });
+    await mergeEntries(db, {
+      type: 'firmware',
+      fromId: typo.id,
+      intoId: catalogue.spiderFirmware.id,
+      actorId: moderatorId,
+      reason: 'the same release',
+    });
 
     const res = await request(app).get(`/api/models/${catalogue.spider.slug}/firmware/2.1`);
 

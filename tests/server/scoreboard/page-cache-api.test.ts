@@ -23,7 +23,12 @@ async function acceptedRide(bias: number): Promise<number> {
   const id = await insertAnalysedSubmission(db, {
     riderId: riders[0],
     a: { modelId: catalogue.spider.id, firmwareId: catalogue.spiderFirmware.id, recordingDeviceId: catalogue.headUnit.id },
-    b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+    b: {
+      modelId: catalogue.pedals.id,
+      firmwareId: catalogue.pedalsFirmware.id,
+      recordingDeviceId: catalogue.headUnit.id,
+      position: 'dual',
+    },
     biasPercent: bias,
     pedallingHours: 1,
     likeForLike: 'mixed',
@@ -33,11 +38,12 @@ async function acceptedRide(bias: number): Promise<number> {
 }
 
 const modelPage = async () => (await request(app).get(`/api/models/${catalogue.spider.slug}`).expect(200)).body as ModelPage;
-const firmwarePage = async () => (await request(app).get(`/api/models/${catalogue.spider.slug}/firmware/2.1.0`).expect(200)).body as FirmwarePage;
+const firmwarePage = async () =>
+  (await request(app).get(`/api/models/${catalogue.spider.slug}/firmware/2.1.0`).expect(200)).body as FirmwarePage;
 const spiderRow = async () =>
-  ((await request(app).get('/api/scoreboard').query({ q: catalogue.maker.name, sort: 'name' }).expect(200)).body as ScoreboardPage).rows.find(
-    (row) => row.slug === catalogue.spider.slug,
-  );
+  (
+    (await request(app).get('/api/scoreboard').query({ q: catalogue.maker.name, sort: 'name' }).expect(200)).body as ScoreboardPage
+  ).rows.find((row) => row.slug === catalogue.spider.slug);
 
 beforeAll(async () => {
   catalogue = await createCatalogue(db);
@@ -71,7 +77,12 @@ describe('public statistics pages kept in memory', () => {
     await modelPage();
     expect(await spiderRow()).toBeDefined();
     // Act
-    await pinNote(db, { subject: 'model', id: catalogue.spider.id, body: 'Firmware 2.1.0 needs a zero offset after each ride.', actorId: moderatorId });
+    await pinNote(db, {
+      subject: 'model',
+      id: catalogue.spider.id,
+      body: 'Firmware 2.1.0 needs a zero offset after each ride.',
+      actorId: moderatorId,
+    });
     await hideModel(db, { modelId: catalogue.spider.id, reason: 'Under review', actorId: moderatorId });
     // Assert
     const page = await modelPage();

@@ -19,9 +19,22 @@ let emptyModelSlug: string;
 // one hour each, by three riders; 2.2.0 drops out 10 times in 3 h against 2 in 3 h.
 beforeAll(async () => {
   catalogue = await createCatalogue(db);
-  const newer = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
+  const newer = await insertFirmware(db, {
+    modelId: catalogue.spider.id,
+    version: '2.2.0',
+    versionOrder: versionOrder('2.2.0'),
+    releasedOn: '2026-05-01',
+    status: 'approved',
+  });
   newerFirmwareId = newer.id;
-  const empty = await insertModel(db, { makerId: catalogue.maker.id, slug: `${catalogue.maker.slug}-quiet`, name: 'Quiet', position: 'left', kind: 'crank_arm', status: 'approved' });
+  const empty = await insertModel(db, {
+    makerId: catalogue.maker.id,
+    slug: `${catalogue.maker.slug}-quiet`,
+    name: 'Quiet',
+    position: 'left',
+    kind: 'crank_arm',
+    status: 'approved',
+  });
   emptyModelSlug = empty.slug;
   const riders = [await insertRider(db), await insertRider(db), await insertRider(db)];
   const rides = [
@@ -36,7 +49,12 @@ beforeAll(async () => {
     const id = await insertAnalysedSubmission(db, {
       riderId: riders[ride.rider],
       a: { modelId: catalogue.spider.id, firmwareId: ride.firmwareId, recordingDeviceId: catalogue.headUnit.id },
-      b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+      b: {
+        modelId: catalogue.pedals.id,
+        firmwareId: catalogue.pedalsFirmware.id,
+        recordingDeviceId: catalogue.headUnit.id,
+        position: 'dual',
+      },
       biasPercent: ride.bias,
       pedallingHours: 1,
       aPowerDropouts: ride.dropouts,
@@ -54,7 +72,10 @@ beforeAll(async () => {
   });
 });
 
-const scoreboard = (query: Record<string, string | number> = {}) => request(app).get('/api/scoreboard').query({ q: catalogue.maker.name, ...query });
+const scoreboard = (query: Record<string, string | number> = {}) =>
+  request(app)
+    .get('/api/scoreboard')
+    .query({ q: catalogue.maker.name, ...query });
 
 describe('GET /api/scoreboard', () => {
   it('when models have accepted submissions, then their figures are the rider-level bias with a t interval and the rider-clustered dropout rate', async () => {
@@ -221,7 +242,9 @@ describe('open data', () => {
     expect(res.status).toBe(200);
     const lines = res.text.trim().split('\r\n');
     const header = lines[0].split(',');
-    expect(header).toEqual(expect.arrayContaining(['submission_id', 'ride_month', 'bias_a_vs_b_percent', 'a_model_slug', 'b_power_dropouts']));
+    expect(header).toEqual(
+      expect.arrayContaining(['submission_id', 'ride_month', 'bias_a_vs_b_percent', 'a_model_slug', 'b_power_dropouts']),
+    );
     expect(header.some((column) => /rider|note|latitude|longitude|position_lat|handle|email|user/.test(column))).toBe(false);
     expect(lines).toHaveLength(7);
     expect(res.text).not.toContain('Test ride');

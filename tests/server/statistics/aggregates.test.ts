@@ -26,7 +26,12 @@ function spiderAgainstPedals(overrides: Partial<AnalysedSubmission>): AnalysedSu
   return {
     riderId: riders[0],
     a: { modelId: catalogue.spider.id, firmwareId: catalogue.spiderFirmware.id, recordingDeviceId: catalogue.headUnit.id },
-    b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+    b: {
+      modelId: catalogue.pedals.id,
+      firmwareId: catalogue.pedalsFirmware.id,
+      recordingDeviceId: catalogue.headUnit.id,
+      position: 'dual',
+    },
     biasPercent: 0,
     pedallingHours: 1,
     ...overrides,
@@ -34,24 +39,47 @@ function spiderAgainstPedals(overrides: Partial<AnalysedSubmission>): AnalysedSu
 }
 
 const scope = (modelId: number, firmwareId: number | null) =>
-  db('meter_statistics').where({ model_id: modelId }).andWhere((q) => (firmwareId === null ? q.whereNull('firmware_id') : q.where('firmware_id', firmwareId))).first();
+  db('meter_statistics')
+    .where({ model_id: modelId })
+    .andWhere((q) => (firmwareId === null ? q.whereNull('firmware_id') : q.where('firmware_id', firmwareId)))
+    .first();
 
 describe('aggregates of accepted submissions', () => {
   it('when three riders have accepted submissions, then the sums are the hand-computed ones for both sides', async () => {
     // Arrange
     const ids = [
-      await insertAnalysedSubmission(db, spiderAgainstPedals({ riderId: riders[0], biasPercent: 2, pedallingHours: 1, aPowerDropouts: 1, cadenceLagSeconds: 1 })),
-      await insertAnalysedSubmission(db, spiderAgainstPedals({ riderId: riders[1], biasPercent: 4, pedallingHours: 2, cadenceLagSeconds: 2 })),
       await insertAnalysedSubmission(
         db,
-        spiderAgainstPedals({ riderId: riders[2], biasPercent: 3, pedallingHours: 6, aPowerDropouts: 2, bPowerDropouts: 5, surface: 'rough_road', cadenceLagSeconds: 4 }),
+        spiderAgainstPedals({ riderId: riders[0], biasPercent: 2, pedallingHours: 1, aPowerDropouts: 1, cadenceLagSeconds: 1 }),
+      ),
+      await insertAnalysedSubmission(
+        db,
+        spiderAgainstPedals({ riderId: riders[1], biasPercent: 4, pedallingHours: 2, cadenceLagSeconds: 2 }),
+      ),
+      await insertAnalysedSubmission(
+        db,
+        spiderAgainstPedals({
+          riderId: riders[2],
+          biasPercent: 3,
+          pedallingHours: 6,
+          aPowerDropouts: 2,
+          bPowerDropouts: 5,
+          surface: 'rough_road',
+          cadenceLagSeconds: 4,
+        }),
       ),
     ];
     // Act
     for (const id of ids) await acceptSubmission(db, id);
     // Assert: side A (the spider). Weights 1, 2 and 4 (6 h capped at 4 h).
     const spider = await scope(catalogue.spider.id, catalogue.spiderFirmware.id);
-    expect(spider).toMatchObject({ submission_count: 3, distinct_riders: 3, like_for_like_count: 3, power_dropouts: 3, median_cadence_lag_seconds: 2 });
+    expect(spider).toMatchObject({
+      submission_count: 3,
+      distinct_riders: 3,
+      like_for_like_count: 3,
+      power_dropouts: 3,
+      median_cadence_lag_seconds: 2,
+    });
     expect(spider.pedalling_hours).toBeCloseTo(9, 9);
     expect(spider.sum_weight).toBeCloseTo(7, 9);
     expect(spider.sum_weighted_bias).toBeCloseTo(1 * 2 + 2 * 4 + 4 * 3, 9);
@@ -72,11 +100,29 @@ describe('aggregates of accepted submissions', () => {
   it('when submissions are accepted and some later removed, then the tables equal a full recompute', async () => {
     // Arrange: a second firmware, a rider with two submissions, one removal of a rider's only submission.
     const added = [
-      await insertAnalysedSubmission(db, spiderAgainstPedals({ riderId: riders[0], biasPercent: -1.5, pedallingHours: 0.75, likeForLike: 'mixed', aCadenceDropouts: 3 })),
-      await insertAnalysedSubmission(db, spiderAgainstPedals({ riderId: riders[1], biasPercent: 5.25, pedallingHours: 4.5, indoor: true, surface: 'trainer', cadenceLagSeconds: null })),
       await insertAnalysedSubmission(
         db,
-        spiderAgainstPedals({ riderId: await insertRider(db), biasPercent: 0.4, pedallingHours: 1.2, sprints: [{ percent: 3, aSecondsTo80Percent: 2, bSecondsTo80Percent: 3 }] }),
+        spiderAgainstPedals({ riderId: riders[0], biasPercent: -1.5, pedallingHours: 0.75, likeForLike: 'mixed', aCadenceDropouts: 3 }),
+      ),
+      await insertAnalysedSubmission(
+        db,
+        spiderAgainstPedals({
+          riderId: riders[1],
+          biasPercent: 5.25,
+          pedallingHours: 4.5,
+          indoor: true,
+          surface: 'trainer',
+          cadenceLagSeconds: null,
+        }),
+      ),
+      await insertAnalysedSubmission(
+        db,
+        spiderAgainstPedals({
+          riderId: await insertRider(db),
+          biasPercent: 0.4,
+          pedallingHours: 1.2,
+          sprints: [{ percent: 3, aSecondsTo80Percent: 2, bSecondsTo80Percent: 3 }],
+        }),
       ),
     ];
     for (const id of added) await acceptSubmission(db, id);
@@ -97,8 +143,14 @@ describe('aggregates of accepted submissions', () => {
       .insert({ model_id: catalogue.spider.id, version: '2.3.0', version_order: [2, 3, 0], status: 'approved' })
       .returning('id');
     const a = { modelId: catalogue.spider.id, firmwareId: firmware[0].id, recordingDeviceId: catalogue.headUnit.id };
-    const direct = await insertAnalysedSubmission(db, spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 1, pedallingHours: 2, aPowerDropouts: 1 }));
-    const mixed = await insertAnalysedSubmission(db, spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 6, pedallingHours: 1, aPowerDropouts: 2, likeForLike: 'mixed' }));
+    const direct = await insertAnalysedSubmission(
+      db,
+      spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 1, pedallingHours: 2, aPowerDropouts: 1 }),
+    );
+    const mixed = await insertAnalysedSubmission(
+      db,
+      spiderAgainstPedals({ a, riderId: riders[0], biasPercent: 6, pedallingHours: 1, aPowerDropouts: 2, likeForLike: 'mixed' }),
+    );
     // Act
     await acceptSubmission(db, direct);
     await acceptSubmission(db, mixed);
@@ -117,7 +169,12 @@ describe('aggregates of accepted submissions', () => {
     const otherFirmware = await db('firmware_versions')
       .insert({ model_id: catalogue.spider.id, version: '2.2.0', version_order: [2, 2, 0], status: 'approved' })
       .returning('id');
-    const id = await insertAnalysedSubmission(db, spiderAgainstPedals({ a: { modelId: catalogue.spider.id, firmwareId: otherFirmware[0].id, recordingDeviceId: catalogue.headUnit.id } }));
+    const id = await insertAnalysedSubmission(
+      db,
+      spiderAgainstPedals({
+        a: { modelId: catalogue.spider.id, firmwareId: otherFirmware[0].id, recordingDeviceId: catalogue.headUnit.id },
+      }),
+    );
     await acceptSubmission(db, id);
     expect(await scope(catalogue.spider.id, otherFirmware[0].id)).toBeDefined();
     // Act

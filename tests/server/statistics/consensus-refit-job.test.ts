@@ -17,13 +17,31 @@ let catalogue: TestCatalogue;
 // enough for a consensus offset of the pedals (connected to 2 others).
 beforeAll(async () => {
   catalogue = await createCatalogue(db);
-  const newer = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.2.0', versionOrder: versionOrder('2.2.0'), releasedOn: '2026-05-01', status: 'approved' });
+  const newer = await insertFirmware(db, {
+    modelId: catalogue.spider.id,
+    version: '2.2.0',
+    versionOrder: versionOrder('2.2.0'),
+    releasedOn: '2026-05-01',
+    status: 'approved',
+  });
   const riders = [await insertRider(db), await insertRider(db), await insertRider(db)];
-  for (const [i, firmwareId] of [catalogue.spiderFirmware.id, catalogue.spiderFirmware.id, catalogue.spiderFirmware.id, newer.id, newer.id, newer.id].entries()) {
+  for (const [i, firmwareId] of [
+    catalogue.spiderFirmware.id,
+    catalogue.spiderFirmware.id,
+    catalogue.spiderFirmware.id,
+    newer.id,
+    newer.id,
+    newer.id,
+  ].entries()) {
     const id = await insertAnalysedSubmission(db, {
       riderId: riders[i % 3]!,
       a: { modelId: catalogue.spider.id, firmwareId, recordingDeviceId: catalogue.headUnit.id },
-      b: { modelId: catalogue.pedals.id, firmwareId: catalogue.pedalsFirmware.id, recordingDeviceId: catalogue.headUnit.id, position: 'dual' },
+      b: {
+        modelId: catalogue.pedals.id,
+        firmwareId: catalogue.pedalsFirmware.id,
+        recordingDeviceId: catalogue.headUnit.id,
+        position: 'dual',
+      },
       biasPercent: 1 + i,
       pedallingHours: 1,
     });
@@ -32,7 +50,8 @@ beforeAll(async () => {
 });
 
 const pedalsPage = async () =>
-  (await request(app).get(`/api/models/${catalogue.pedals.slug}/firmware/${encodeURIComponent(catalogue.pedalsFirmware.version)}`)).body as FirmwarePage;
+  (await request(app).get(`/api/models/${catalogue.pedals.slug}/firmware/${encodeURIComponent(catalogue.pedalsFirmware.version)}`))
+    .body as FirmwarePage;
 
 function refitJobs() {
   return db('pgboss.job').where({ name: REFIT_CONSENSUS_QUEUE }).select('state');
@@ -45,10 +64,13 @@ describe('the consensus refit as a job', () => {
     // Nothing was fitted yet: the reader got the last fit (none), not a refit on its request.
     expect(first).toMatchObject({ consensusFittedOn: null, consensusRefitPending: true });
     expect(first.firmware.consensus).toBeNull();
-    const refitted = await waitFor(async () => {
-      const page = await pedalsPage();
-      return page.firmware.consensus ? page : undefined;
-    }, { what: 'the worker’s refit on the page' });
+    const refitted = await waitFor(
+      async () => {
+        const page = await pedalsPage();
+        return page.firmware.consensus ? page : undefined;
+      },
+      { what: 'the worker’s refit on the page' },
+    );
     expect(refitted.firmware.consensus).toMatchObject({ connectedTo: 2 });
     // Public times are days (tests/server/privacy): today's, in UTC.
     expect(refitted).toMatchObject({ consensusFittedOn: new Date().toISOString().slice(0, 10), consensusRefitPending: false });

@@ -36,16 +36,39 @@ describe('figures from running sums', () => {
 
   it('when a histogram of cadence lags is given, then its median is the ordinary median of the values', () => {
     expect(medianOfHistogram([])).toBeNull();
-    expect(medianOfHistogram([{ value: 2, count: 1 }, { value: -1, count: 2 }])).toBe(-1);
-    expect(medianOfHistogram([{ value: 1, count: 2 }, { value: 3, count: 2 }])).toBe(2);
-    expect(medianOfHistogram([{ value: 0, count: 0 }, { value: 4, count: 1 }])).toBe(4);
+    expect(
+      medianOfHistogram([
+        { value: 2, count: 1 },
+        { value: -1, count: 2 },
+      ]),
+    ).toBe(-1);
+    expect(
+      medianOfHistogram([
+        { value: 1, count: 2 },
+        { value: 3, count: 2 },
+      ]),
+    ).toBe(2);
+    expect(
+      medianOfHistogram([
+        { value: 0, count: 0 },
+        { value: 4, count: 1 },
+      ]),
+    ).toBe(4);
   });
 
   it('when riders have several rides, then the bias is the two-stage rider-level mean with the t interval R gives', () => {
     // Arrange: the rides of tests/shared/statistics/reference/rider-clustered.R, [rider, hours, bias %];
     // every rider has at least 4 capped hours, so the riders weigh the same.
     const rides: [number, number, number][] = [
-      [1, 2, 1.2], [1, 3, 2.0], [2, 2, -0.4], [2, 2, 0.3], [2, 1, 0.9], [3, 4.5, 1.6], [3, 1, 2.4], [4, 2, 0.1], [4, 2.5, 0.7],
+      [1, 2, 1.2],
+      [1, 3, 2.0],
+      [2, 2, -0.4],
+      [2, 2, 0.3],
+      [2, 1, 0.9],
+      [3, 4.5, 1.6],
+      [3, 1, 2.4],
+      [4, 2, 0.1],
+      [4, 2.5, 0.7],
     ];
     const scope = emptyRiderTerms();
     for (const rider of [1, 2, 3, 4]) {

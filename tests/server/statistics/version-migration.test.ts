@@ -4,7 +4,8 @@ import { createTestContext } from '../support/test-app';
 
 const { db } = await createTestContext();
 
-const triggerCount = async () => Number((await db.raw("select count(*) as n from pg_trigger where tgname like '%bump_statistics_version'")).rows[0].n);
+const triggerCount = async () =>
+  Number((await db.raw("select count(*) as n from pg_trigger where tgname like '%bump_statistics_version'")).rows[0].n);
 const indexExists = async (name: string) => (await db.raw('select to_regclass(?) as found', [name])).rows[0].found !== null;
 
 describe('the statistics version migration', () => {

@@ -1,7 +1,12 @@
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { decideSubmission } from '../../../server/features/moderation/moderation.service';
-import { analyseSubmission, enqueueAnalysis, MAX_ANALYSIS_ATTEMPTS, workAnalysisQueue } from '../../../server/features/submissions/analyse-submission.job';
+import {
+  analyseSubmission,
+  enqueueAnalysis,
+  MAX_ANALYSIS_ATTEMPTS,
+  workAnalysisQueue,
+} from '../../../server/features/submissions/analyse-submission.job';
 import { createLogger } from '../../../server/lib/logger';
 import { METHOD_VERSION } from '../../../shared/analysis/method';
 import { createSubmission } from '../../../server/features/submissions/submissions.service';
@@ -73,8 +78,20 @@ describe('the analysis job', () => {
 
   it("when A's firmware tag contradicts the version its file reports, then the analysis raises a severe firmware_tag_mismatch flag", async () => {
     // Issue 14: demo pair 01 tagged 2.2 while its file reports 1.2 showed "No flags" in the queue.
-    const reported = await insertFirmware(db, { modelId: catalogue.spider.id, version: '1.2', versionOrder: versionOrder('1.2'), releasedOn: '2026-01-01', status: 'approved' });
-    const tagged = await insertFirmware(db, { modelId: catalogue.spider.id, version: '2.2', versionOrder: versionOrder('2.2'), releasedOn: '2026-02-01', status: 'approved' });
+    const reported = await insertFirmware(db, {
+      modelId: catalogue.spider.id,
+      version: '1.2',
+      versionOrder: versionOrder('1.2'),
+      releasedOn: '2026-01-01',
+      status: 'approved',
+    });
+    const tagged = await insertFirmware(db, {
+      modelId: catalogue.spider.id,
+      version: '2.2',
+      versionOrder: versionOrder('2.2'),
+      releasedOn: '2026-02-01',
+      status: 'approved',
+    });
     const pair = simulatePair({
       seed: 61,
       durationSeconds: 1200,
@@ -91,7 +108,11 @@ describe('the analysis job', () => {
     await analyseSubmission(db, id);
 
     const row = await db('submissions').where({ id }).first('flags', 'flag_severity');
-    expect(row.flags).toContainEqual({ code: 'firmware_tag_mismatch', severity: 'severe', message: "Device A's power meter firmware is tagged 2.2, but its file reports 1.2." });
+    expect(row.flags).toContainEqual({
+      code: 'firmware_tag_mismatch',
+      severity: 'severe',
+      message: "Device A's power meter firmware is tagged 2.2, but its file reports 1.2.",
+    });
     expect(row.flag_severity).toBe(3);
     expect(reported.id).not.toBe(tagged.id);
   });
@@ -110,7 +131,9 @@ describe('the analysis job', () => {
 
   it('when the stored stream cannot be read, then the job is retried and the submission fails after the last attempt', async () => {
     const { id } = await storedSubmission(41);
-    await db('submission_recordings').where({ submission_id: id, side: 'b' }).update({ stream: Buffer.from('not gzip') });
+    await db('submission_recordings')
+      .where({ submission_id: id, side: 'b' })
+      .update({ stream: Buffer.from('not gzip') });
 
     await enqueueAnalysis(queue!, id);
     const res = await waitForStatus(rider.agent, id, ['failed'], 25_000);
@@ -128,7 +151,9 @@ describe('lost analysis jobs', () => {
     // The worker starts before the submission exists, so only its sweep can find it.
     await workAnalysisQueue(separate.queue!, separate.db, createLogger({ LOG_LEVEL: 'silent' }), { everyMs: 200, idleSeconds: 60 });
     const { id } = await storedSubmission(71);
-    await db('submissions').where({ id }).update({ updated_at: db.raw("now() - interval '1 hour'") });
+    await db('submissions')
+      .where({ id })
+      .update({ updated_at: db.raw("now() - interval '1 hour'") });
 
     const res = await waitForStatus(rider.agent, id, ['awaiting_review', 'failed']);
 
@@ -192,10 +217,14 @@ describe('who sees a submission once it is accepted', () => {
     expect(JSON.stringify(res.body)).not.toMatch(/serial|sha256|T\d{2}:\d{2}/i);
   });
 
-  it('when the rider asks, then the devices\' makes and software are shown but no serial number is', async () => {
+  it("when the rider asks, then the devices' makes and software are shown but no serial number is", async () => {
     const res = await rider.agent.get(`/api/submissions/${id}`);
 
-    expect(res.body.recordings[0].deviceInfo.creator).toEqual({ manufacturerId: expect.any(Number), productId: expect.any(Number), softwareVersion: expect.any(Number) });
+    expect(res.body.recordings[0].deviceInfo.creator).toEqual({
+      manufacturerId: expect.any(Number),
+      productId: expect.any(Number),
+      softwareVersion: expect.any(Number),
+    });
     expect(JSON.stringify(res.body)).not.toMatch(/serial/i);
   });
 

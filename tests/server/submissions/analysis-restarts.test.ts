@@ -66,7 +66,9 @@ describe('analysis jobs across worker restarts', () => {
     await startWorker();
 
     await waitFor(
-      async () => (await db('submissions').whereIn('id', ids).where('status', 'awaiting_review').count<{ count: string }[]>({ count: '*' }))[0]!.count === '20',
+      async () =>
+        (await db('submissions').whereIn('id', ids).where('status', 'awaiting_review').count<{ count: string }[]>({ count: '*' }))[0]!
+          .count === '20',
       { timeoutMs: 120_000, what: 'all 20 analysed' },
     );
     const jobs = await jobsOf(ids);
@@ -89,7 +91,10 @@ describe('analysis jobs across worker restarts', () => {
 
     // The bound: expiry (2 s) + maintenance (1 s) + retry delay, with room for a slow machine;
     // pg-boss's default expiry would leave the job active for 15 minutes.
-    await waitFor(() => db('submissions').where({ id, status: 'awaiting_review' }).first('id'), { timeoutMs: 60_000, what: 'the killed job retried' });
+    await waitFor(() => db('submissions').where({ id, status: 'awaiting_review' }).first('id'), {
+      timeoutMs: 60_000,
+      what: 'the killed job retried',
+    });
     const jobs = await jobsOf([id]);
     expect(jobs).toHaveLength(1);
     expect(jobs[0]).toMatchObject({ state: 'completed' });

@@ -79,7 +79,13 @@ describe('POST /api/submissions', () => {
     const meta = submissionMeta(catalogue);
     const before = await rowCounts();
 
-    const res = await upload([['fileA', asBuffer(pair.b)], ['fileB', asBuffer(pair.a)]], { ...meta, a: meta.b, b: meta.a });
+    const res = await upload(
+      [
+        ['fileA', asBuffer(pair.b)],
+        ['fileB', asBuffer(pair.a)],
+      ],
+      { ...meta, a: meta.b, b: meta.a },
+    );
 
     expect(res.status).toBe(409);
     expect(res.body.error.details).toEqual({ submissionId: first.id, url: `/submissions/${first.id}` });
@@ -100,26 +106,255 @@ describe('POST /api/submissions with bad input', () => {
   const tooShort = recordingFit({ seconds: 300 });
   const tooManyRecords = tinyRecordFile(MAX_RECORDS_PER_FILE + 1);
 
-  const cases: Array<{ when: string; send: () => ReturnType<typeof upload>; status: number; code: string; field?: string; message: RegExp }> = [
-    { when: 'file A is a PNG renamed .fit', send: () => upload([['fileA', PNG_BYTES, 'ride.fit'], ['fileB', asBuffer(other.b)]]), status: 400, code: 'not_fit', field: 'fileA', message: /not a FIT file/ },
-    { when: 'file B is truncated', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', truncated]]), status: 400, code: 'ended_early', field: 'fileB', message: /The second file ended early: its header promises/ },
-    { when: 'file B has a changed byte', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', flipped]]), status: 400, code: 'damaged_file', field: 'fileB', message: /The second file is damaged: its checksum does not match/ },
-    { when: 'file A is a settings file', send: () => upload([['fileA', asBuffer(settings)], ['fileB', asBuffer(other.b)]]), status: 400, code: 'not_activity', field: 'fileA', message: /FIT settings file, not a recorded activity/ },
-    { when: 'one record of file B is dated a year later', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(oneRecordAYearOn)]]), status: 400, code: 'implausible_timestamps', field: 'fileB', message: /spans 365 days/ },
-    { when: 'file B lasts 5 minutes', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(tooShort)]]), status: 400, code: 'too_short', field: 'fileB', message: /too short/ },
-    { when: 'file B holds more records than the cap', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(tooManyRecords)]]), status: 400, code: 'too_many_records', field: 'fileB', message: /more than 1,500,000 records/ },
-    { when: 'file B has no power', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(withoutPower)]]), status: 400, code: 'no_power', field: 'fileB', message: /no power data/ },
-    { when: 'the two recordings do not overlap', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(farApart)]]), status: 400, code: 'no_overlap', field: 'files', message: /do not overlap in time/ },
-    { when: 'file B is missing', send: () => upload([['fileA', asBuffer(other.a)]]), status: 400, code: 'validation_failed', field: 'fileB', message: /exactly two FIT files/ },
-    { when: 'a third file is attached', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)], ['fileC', asBuffer(other.b)]]), status: 400, code: 'validation_failed', message: /exactly two FIT files/ },
-    { when: 'a file is larger than the limit', send: () => upload([['fileA', Buffer.alloc(MAX_FIT_FILE_BYTES + 1024)], ['fileB', asBuffer(other.b)]]), status: 413, code: 'payload_too_large', message: /larger than 25 MB/ },
-    { when: 'both files are the same recording', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.a)]]), status: 400, code: 'identical_files', field: 'fileB', message: /same recording/ },
-    { when: 'the firmware does not belong to the model', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, firmwareId: catalogue.pedalsFirmware.id } })), status: 400, code: 'validation_failed', field: 'a.firmwareId', message: /not listed for Orbit/ },
-    { when: 'the model does not exist', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], submissionMeta(catalogue, { b: { ...submissionMeta(catalogue).b, modelId: 999_999 } })), status: 400, code: 'validation_failed', field: 'b.modelId', message: /not in the catalogue/ },
-    { when: 'a form field is out of range', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], submissionMeta(catalogue, { surface: 'ice', notes: 'x'.repeat(2001) })), status: 400, code: 'validation_failed', field: 'surface', message: /notes: at most 2000 characters/ },
-    { when: 'the recording device id is true rather than a number', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, recordingDeviceId: true } })), status: 400, code: 'validation_failed', field: 'a.recordingDeviceId', message: /choose a recording device/ },
-    { when: 'the recording device firmware carries a line break and a header', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, recordingDeviceFirmware: '4.1\r\nBcc: someone@example.test' } })), status: 400, code: 'validation_failed', field: 'a.recordingDeviceFirmware', message: /one line of plain text/ },
-    { when: 'the form data is not JSON', send: () => upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], '{not json'), status: 400, code: 'validation_failed', field: 'meta', message: /not valid JSON/ },
+  const cases: Array<{
+    when: string;
+    send: () => ReturnType<typeof upload>;
+    status: number;
+    code: string;
+    field?: string;
+    message: RegExp;
+  }> = [
+    {
+      when: 'file A is a PNG renamed .fit',
+      send: () =>
+        upload([
+          ['fileA', PNG_BYTES, 'ride.fit'],
+          ['fileB', asBuffer(other.b)],
+        ]),
+      status: 400,
+      code: 'not_fit',
+      field: 'fileA',
+      message: /not a FIT file/,
+    },
+    {
+      when: 'file B is truncated',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', truncated],
+        ]),
+      status: 400,
+      code: 'ended_early',
+      field: 'fileB',
+      message: /The second file ended early: its header promises/,
+    },
+    {
+      when: 'file B has a changed byte',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', flipped],
+        ]),
+      status: 400,
+      code: 'damaged_file',
+      field: 'fileB',
+      message: /The second file is damaged: its checksum does not match/,
+    },
+    {
+      when: 'file A is a settings file',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(settings)],
+          ['fileB', asBuffer(other.b)],
+        ]),
+      status: 400,
+      code: 'not_activity',
+      field: 'fileA',
+      message: /FIT settings file, not a recorded activity/,
+    },
+    {
+      when: 'one record of file B is dated a year later',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(oneRecordAYearOn)],
+        ]),
+      status: 400,
+      code: 'implausible_timestamps',
+      field: 'fileB',
+      message: /spans 365 days/,
+    },
+    {
+      when: 'file B lasts 5 minutes',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(tooShort)],
+        ]),
+      status: 400,
+      code: 'too_short',
+      field: 'fileB',
+      message: /too short/,
+    },
+    {
+      when: 'file B holds more records than the cap',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(tooManyRecords)],
+        ]),
+      status: 400,
+      code: 'too_many_records',
+      field: 'fileB',
+      message: /more than 1,500,000 records/,
+    },
+    {
+      when: 'file B has no power',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(withoutPower)],
+        ]),
+      status: 400,
+      code: 'no_power',
+      field: 'fileB',
+      message: /no power data/,
+    },
+    {
+      when: 'the two recordings do not overlap',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(farApart)],
+        ]),
+      status: 400,
+      code: 'no_overlap',
+      field: 'files',
+      message: /do not overlap in time/,
+    },
+    {
+      when: 'file B is missing',
+      send: () => upload([['fileA', asBuffer(other.a)]]),
+      status: 400,
+      code: 'validation_failed',
+      field: 'fileB',
+      message: /exactly two FIT files/,
+    },
+    {
+      when: 'a third file is attached',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(other.b)],
+          ['fileC', asBuffer(other.b)],
+        ]),
+      status: 400,
+      code: 'validation_failed',
+      message: /exactly two FIT files/,
+    },
+    {
+      when: 'a file is larger than the limit',
+      send: () =>
+        upload([
+          ['fileA', Buffer.alloc(MAX_FIT_FILE_BYTES + 1024)],
+          ['fileB', asBuffer(other.b)],
+        ]),
+      status: 413,
+      code: 'payload_too_large',
+      message: /larger than 25 MB/,
+    },
+    {
+      when: 'both files are the same recording',
+      send: () =>
+        upload([
+          ['fileA', asBuffer(other.a)],
+          ['fileB', asBuffer(other.a)],
+        ]),
+      status: 400,
+      code: 'identical_files',
+      field: 'fileB',
+      message: /same recording/,
+    },
+    {
+      when: 'the firmware does not belong to the model',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, firmwareId: catalogue.pedalsFirmware.id } }),
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'a.firmwareId',
+      message: /not listed for Orbit/,
+    },
+    {
+      when: 'the model does not exist',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          submissionMeta(catalogue, { b: { ...submissionMeta(catalogue).b, modelId: 999_999 } }),
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'b.modelId',
+      message: /not in the catalogue/,
+    },
+    {
+      when: 'a form field is out of range',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          submissionMeta(catalogue, { surface: 'ice', notes: 'x'.repeat(2001) }),
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'surface',
+      message: /notes: at most 2000 characters/,
+    },
+    {
+      when: 'the recording device id is true rather than a number',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, recordingDeviceId: true } }),
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'a.recordingDeviceId',
+      message: /choose a recording device/,
+    },
+    {
+      when: 'the recording device firmware carries a line break and a header',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          submissionMeta(catalogue, { a: { ...submissionMeta(catalogue).a, recordingDeviceFirmware: '4.1\r\nBcc: someone@example.test' } }),
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'a.recordingDeviceFirmware',
+      message: /one line of plain text/,
+    },
+    {
+      when: 'the form data is not JSON',
+      send: () =>
+        upload(
+          [
+            ['fileA', asBuffer(other.a)],
+            ['fileB', asBuffer(other.b)],
+          ],
+          '{not json',
+        ),
+      status: 400,
+      code: 'validation_failed',
+      field: 'meta',
+      message: /not valid JSON/,
+    },
   ];
 
   it.each(cases)('when $when, then the answer is $status $code and nothing is stored', async ({ send, status, code, field, message }) => {
@@ -137,7 +372,14 @@ describe('POST /api/submissions with bad input', () => {
   it('when the request has no CSRF token, then it is refused with 403 and nothing is stored', async () => {
     const before = await rowCounts();
 
-    const res = await upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]], undefined, { csrf: false });
+    const res = await upload(
+      [
+        ['fileA', asBuffer(other.a)],
+        ['fileB', asBuffer(other.b)],
+      ],
+      undefined,
+      { csrf: false },
+    );
 
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('csrf_invalid');
@@ -167,7 +409,10 @@ describe('POST /api/submissions with bad input', () => {
       begin if new.side = 'b' then raise exception 'disk full (test)'; end if; return new; end $$`);
     await db.raw('create trigger refuse_b before insert on submission_recordings for each row execute function refuse_b()');
     try {
-      const res = await upload([['fileA', asBuffer(other.a)], ['fileB', asBuffer(other.b)]]);
+      const res = await upload([
+        ['fileA', asBuffer(other.a)],
+        ['fileB', asBuffer(other.b)],
+      ]);
 
       expect(res.status).toBe(500);
       expect(res.body.error.message).toMatch(/Something went wrong/);

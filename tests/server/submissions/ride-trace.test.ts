@@ -23,10 +23,15 @@ beforeAll(async () => {
 
 async function analysedSubmission(seed: number) {
   const pair = cleanPair(seed);
-  const { id } = await createSubmission({ db, store: testObjectStore() }, rider.user.id, createSubmissionInput.parse(submissionMeta(catalogue)), {
-    a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
-    b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
-  });
+  const { id } = await createSubmission(
+    { db, store: testObjectStore() },
+    rider.user.id,
+    createSubmissionInput.parse(submissionMeta(catalogue)),
+    {
+      a: { buffer: asBuffer(pair.a), originalName: 'a.fit' },
+      b: { buffer: asBuffer(pair.b), originalName: 'b.fit' },
+    },
+  );
   await analyseSubmission(db, id);
   return id;
 }

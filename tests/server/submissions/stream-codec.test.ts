@@ -9,7 +9,12 @@ describe('stored streams', () => {
     const { a } = simulatePair({
       seed: 21,
       durationSeconds: 1200,
-      a: { position: 'total', temperature: { startCelsius: 4, changePerHour: 6 }, sensor: { productId: 2, serialNumber: 77, softwareVersion: 1.1 }, sensorBattery: [{ atFraction: 0.5, status: 3, volts: 2.8 }] },
+      a: {
+        position: 'total',
+        temperature: { startCelsius: 4, changePerHour: 6 },
+        sensor: { productId: 2, serialNumber: 77, softwareVersion: 1.1 },
+        sensorBattery: [{ atFraction: 0.5, status: 3, volts: 2.8 }],
+      },
       b: { position: 'total' },
     });
     const stream = decodeFit(a);
@@ -23,7 +28,9 @@ describe('stored streams', () => {
   });
 
   it('when a stream stored before temperature was kept (layout 1) is read, then it decodes without temperature', () => {
-    const header = Buffer.from(JSON.stringify({ v: 1, count: 2, device: { creator: {}, powerMeter: null }, recording: { recordCount: 2 } }));
+    const header = Buffer.from(
+      JSON.stringify({ v: 1, count: 2, device: { creator: {}, powerMeter: null }, recording: { recordCount: 2 } }),
+    );
     const body = Buffer.alloc(4 + header.length + 2 * (8 + 12));
     body.writeUInt32LE(header.length, 0);
     header.copy(body, 4);

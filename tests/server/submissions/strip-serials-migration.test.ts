@@ -9,7 +9,10 @@ import { createTestContext } from '../support/test-app';
 
 const { db } = await createTestContext();
 
-const OLD_DEVICE = { creator: { manufacturerId: 255, productId: 7, serialNumber: 300_417, softwareVersion: 3.1 }, powerMeter: { manufacturerId: 255, productId: 9, serialNumber: 700_912, softwareVersion: 1.2 } };
+const OLD_DEVICE = {
+  creator: { manufacturerId: 255, productId: 7, serialNumber: 300_417, softwareVersion: 3.1 },
+  powerMeter: { manufacturerId: 255, productId: 9, serialNumber: 700_912, softwareVersion: 1.2 },
+};
 
 /** Writes a row as the code before the migration stored it: serials and clock times everywhere. */
 async function storeTheOldWay(submissionId: number) {
@@ -18,10 +21,15 @@ async function storeTheOldWay(submissionId: number) {
   const oldResult = {
     ...result,
     devices: { a: OLD_DEVICE, b: OLD_DEVICE },
-    recordings: { a: { recordCount: 3600, startTime: start, endTime: start + 3600 }, b: { recordCount: 3600, startTime: start, endTime: start + 3600 } },
+    recordings: {
+      a: { recordCount: 3600, startTime: start, endTime: start + 3600 },
+      b: { recordCount: 3600, startTime: start, endTime: start + 3600 },
+    },
     alignment: { ...result.alignment, startTime: start, endTime: start + 3600 },
   };
-  await db('submissions').where({ id: submissionId }).update({ result: JSON.stringify(oldResult) });
+  await db('submissions')
+    .where({ id: submissionId })
+    .update({ result: JSON.stringify(oldResult) });
   const recordings = await db('submission_recordings').where({ submission_id: submissionId }).select('id', 'stream');
   for (const r of recordings) {
     const body = gunzipSync(r.stream);
@@ -34,7 +42,14 @@ async function storeTheOldWay(submissionId: number) {
       .where({ id: r.id })
       .update({
         device_info: JSON.stringify(OLD_DEVICE),
-        recording_stats: JSON.stringify({ recordCount: 3600, startTime: start, endTime: start + 3600, medianIntervalSeconds: 1, longGapCount: 0, longGapSeconds: 0 }),
+        recording_stats: JSON.stringify({
+          recordCount: 3600,
+          startTime: start,
+          endTime: start + 3600,
+          medianIntervalSeconds: 1,
+          longGapCount: 0,
+          longGapSeconds: 0,
+        }),
         stream: gzipSync(Buffer.concat([length, newHeader, body.subarray(4 + headerLength)])),
       });
   }
@@ -55,11 +70,20 @@ describe('the migration that strips serial numbers and clock times', () => {
     expect(result).not.toHaveProperty('recordings');
     expect(result.alignment).not.toHaveProperty('startTime');
     expect(result.alignment.overlapSeconds).toBeGreaterThan(0);
-    const recordings = await db('submission_recordings').where({ submission_id: id }).orderBy('side').select('device_info', 'recording_stats', 'stream');
+    const recordings = await db('submission_recordings')
+      .where({ submission_id: id })
+      .orderBy('side')
+      .select('device_info', 'recording_stats', 'stream');
     for (const [i, r] of recordings.entries()) {
       expect(r.device_info.creator).toEqual({ manufacturerId: 255, productId: 7, serialNumber: null, softwareVersion: 3.1 });
       expect(r.device_info.powerMeter.serialNumber).toBeNull();
-      expect(r.recording_stats).toEqual({ recordCount: 3600, durationSeconds: 3600, medianIntervalSeconds: 1, longGapCount: 0, longGapSeconds: 0 });
+      expect(r.recording_stats).toEqual({
+        recordCount: 3600,
+        durationSeconds: 3600,
+        medianIntervalSeconds: 1,
+        longGapCount: 0,
+        longGapSeconds: 0,
+      });
       const after = decodeStream(r.stream);
       expect(after.device.powerMeter?.serialNumber).toBeNull();
       expect(after.powerWatts).toEqual(decodeStream(before[i].stream).powerWatts);

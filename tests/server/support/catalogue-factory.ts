@@ -16,7 +16,12 @@ export async function createCatalogue(db: Db) {
     insertFirmware(db, { modelId, version, versionOrder: versionOrder(version), releasedOn: '2026-03-01', status: 'approved' });
   const spiderFirmware = await firmware(spider.id, '2.1.0');
   const pedalsFirmware = await firmware(pedals.id, '4.0.2');
-  const headUnit = await insertRecordingDevice(db, { slug: `pathfinder-${tag}`, name: `Pathfinder ${tag}`, kind: 'head_unit', status: 'approved' });
+  const headUnit = await insertRecordingDevice(db, {
+    slug: `pathfinder-${tag}`,
+    name: `Pathfinder ${tag}`,
+    kind: 'head_unit',
+    status: 'approved',
+  });
   return { maker, spider, pedals, spiderFirmware, pedalsFirmware, headUnit };
 }
 

@@ -57,8 +57,7 @@ export function findPrivateData(body: unknown, secrets: KnownSecrets, path = '$'
   const walk = (value: unknown, at: string) => {
     if (Array.isArray(value)) {
       for (const [i, item] of value.entries()) walk(item, `${at}[${i}]`);
-    }
-    else if (value && typeof value === 'object') {
+    } else if (value && typeof value === 'object') {
       for (const [key, item] of Object.entries(value)) {
         checkKey(key, `${at}.${key}`, out);
         walk(item, `${at}.${key}`);
@@ -97,15 +96,13 @@ export function parseCsv(text: string): string[][] {
       if (ch === '"' && text[i + 1] === '"') {
         cell += '"';
         i++;
-      }
-      else if (ch === '"') quoted = false;
+      } else if (ch === '"') quoted = false;
       else cell += ch;
     } else if (ch === '"') quoted = true;
     else if (ch === ',') {
       row.push(cell);
       cell = '';
-    }
-    else if (ch === '\n' || ch === '\r') {
+    } else if (ch === '\n' || ch === '\r') {
       if (ch === '\r' && text[i + 1] === '\n') i++;
       row.push(cell);
       rows.push(row);

@@ -137,7 +137,8 @@ export function expectSameFigures(actual: unknown, expected: unknown, path = '')
     expect(actual, path).toBeCloseTo(expected, 9);
   } else if (expected && typeof expected === 'object') {
     expect(Object.keys(actual as object).length, path).toBe(Object.keys(expected).length);
-    for (const [key, value] of Object.entries(expected)) expectSameFigures((actual as Record<string, unknown>)[key], value, `${path}.${key}`);
+    for (const [key, value] of Object.entries(expected))
+      expectSameFigures((actual as Record<string, unknown>)[key], value, `${path}.${key}`);
   } else {
     expect(actual, path).toEqual(expected);
   }

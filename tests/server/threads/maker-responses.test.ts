@@ -108,12 +108,17 @@ describe('the thread status', () => {
   it("when the maker's staff mark a thread fixed in a firmware version, then the thread and the model's summary show it", async () => {
     const { threadId } = await threadWithReplies();
 
-    const res = await write(staff, 'put', `/api/threads/${threadId}/status`, { status: 'fixed', fixedInFirmwareId: catalogue.spiderFirmware.id });
+    const res = await write(staff, 'put', `/api/threads/${threadId}/status`, {
+      status: 'fixed',
+      fixedInFirmwareId: catalogue.spiderFirmware.id,
+    });
 
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ status: 'fixed', fixedIn: { id: catalogue.spiderFirmware.id, version: '2.1.0' } });
     const summary = await request(app).get(`/api/models/${catalogue.spider.slug}/thread-summary`);
-    expect(summary.body.threads).toContainEqual(expect.objectContaining({ id: threadId, status: 'fixed', fixedIn: { id: catalogue.spiderFirmware.id, version: '2.1.0' } }));
+    expect(summary.body.threads).toContainEqual(
+      expect.objectContaining({ id: threadId, status: 'fixed', fixedIn: { id: catalogue.spiderFirmware.id, version: '2.1.0' } }),
+    );
   });
 
   it('when staff set investigating, then the open count still counts the thread', async () => {
@@ -143,7 +148,10 @@ describe('the thread status', () => {
   it('when fixed names firmware of another model, then the answer is 400', async () => {
     const { threadId } = await threadWithReplies();
 
-    const res = await write(staff, 'put', `/api/threads/${threadId}/status`, { status: 'fixed', fixedInFirmwareId: catalogue.pedalsFirmware.id });
+    const res = await write(staff, 'put', `/api/threads/${threadId}/status`, {
+      status: 'fixed',
+      fixedInFirmwareId: catalogue.pedalsFirmware.id,
+    });
 
     expect(res.status).toBe(400);
   });

@@ -24,7 +24,9 @@ beforeAll(async () => {
 });
 
 async function auditOf(subjectType: string, subjectId: number) {
-  return db('audit_log').where({ subject_type: subjectType, subject_id: String(subjectId) }).orderBy('id');
+  return db('audit_log')
+    .where({ subject_type: subjectType, subject_id: String(subjectId) })
+    .orderBy('id');
 }
 
 describe('hiding a post', () => {
@@ -52,7 +54,10 @@ describe('hiding a post', () => {
 
     expect(res.status).toBe(200);
     const seen = await request(app).get(`/api/threads/${thread.id}`);
-    expect(seen.body.posts.find((p: { id: number }) => p.id === postId)).toMatchObject({ hidden: null, bodyHtml: '<p>A borderline remark</p>' });
+    expect(seen.body.posts.find((p: { id: number }) => p.id === postId)).toMatchObject({
+      hidden: null,
+      bodyHtml: '<p>A borderline remark</p>',
+    });
     expect((await auditOf('post', postId)).map((e) => e.action)).toEqual(['post.hidden', 'post.unhidden']);
   });
 
@@ -133,7 +138,10 @@ describe('moving a thread', () => {
     await write(staff, 'put', `/api/threads/${thread.id}/official-response`, { postId: staffReply });
     await write(staff, 'put', `/api/threads/${thread.id}/status`, { status: 'investigating' });
 
-    const res = await write(moderator, 'post', `/api/threads/${thread.id}/move`, { modelSlug: otherCatalogue.spider.slug, reason: 'About the other spider' });
+    const res = await write(moderator, 'post', `/api/threads/${thread.id}/move`, {
+      modelSlug: otherCatalogue.spider.slug,
+      reason: 'About the other spider',
+    });
 
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({

@@ -22,7 +22,10 @@ beforeAll(async () => {
 async function notificationsOf(person: Person) {
   const res = await person.agent.get('/api/notifications');
   expect(res.status).toBe(200);
-  return res.body as { unreadCount: number; notifications: Array<{ id: number; kind: string; thread: { id: number }; postId: number | null; read: boolean; url: string }> };
+  return res.body as {
+    unreadCount: number;
+    notifications: Array<{ id: number; kind: string; thread: { id: number }; postId: number | null; read: boolean; url: string }>;
+  };
 }
 
 async function mailTo(person: Person, threadId: number) {
@@ -36,7 +39,13 @@ describe('following and notifications', () => {
     const { body: post } = await reply(follower, thread.id, 'Mine too, about **3 %** high until it warms up.');
 
     const forAuthor = await notificationsOf(author);
-    expect(forAuthor.notifications[0]).toMatchObject({ kind: 'reply', thread: { id: thread.id }, postId: post.id, read: false, url: `/threads/${thread.id}#post-${post.id}` });
+    expect(forAuthor.notifications[0]).toMatchObject({
+      kind: 'reply',
+      thread: { id: thread.id },
+      postId: post.id,
+      read: false,
+      url: `/threads/${thread.id}#post-${post.id}`,
+    });
     expect(forAuthor.unreadCount).toBeGreaterThanOrEqual(1);
     expect((await notificationsOf(follower)).notifications.filter((n) => n.thread.id === thread.id)).toEqual([]);
     const [mail] = await mailTo(author, thread.id);
@@ -63,7 +72,9 @@ describe('following and notifications', () => {
       expect(official.text_body).toContain(`maker-answers (${catalogue.maker.name} staff)`);
       expect(official.text_body).toContain('temperature compensation');
     }
-    expect((await notificationsOf(staff)).notifications.filter((n) => n.thread.id === thread.id && n.kind === 'official_response')).toEqual([]);
+    expect((await notificationsOf(staff)).notifications.filter((n) => n.thread.id === thread.id && n.kind === 'official_response')).toEqual(
+      [],
+    );
   });
 
   it('when a follower has switched off reply e-mails, then they still get the notification but no e-mail', async () => {

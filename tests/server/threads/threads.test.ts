@@ -38,7 +38,11 @@ describe('starting a thread and replying', () => {
       viewer: { signedIn: false, canReply: false },
     });
     expect(thread.body.posts).toHaveLength(1);
-    expect(thread.body.posts[0]).toMatchObject({ isOpening: true, staffOf: null, bodyHtml: '<p>Cadence drops to <strong>zero</strong> on gravel.</p>' });
+    expect(thread.body.posts[0]).toMatchObject({
+      isOpening: true,
+      staffOf: null,
+      bodyHtml: '<p>Cadence drops to <strong>zero</strong> on gravel.</p>',
+    });
   });
 
   it('when a rider replies, then the reply follows the opening post and the thread counts it', async () => {
@@ -57,7 +61,10 @@ describe('starting a thread and replying', () => {
     const anonymous = request.agent(app);
     const token = (await anonymous.get('/api/csrf-token')).body.token;
 
-    const res = await anonymous.post(`/api/models/${catalogue.spider.slug}/threads`).set('X-CSRF-Token', token).send({ title: 'Anonymous report', body: 'text' });
+    const res = await anonymous
+      .post(`/api/models/${catalogue.spider.slug}/threads`)
+      .set('X-CSRF-Token', token)
+      .send({ title: 'Anonymous report', body: 'text' });
 
     expect(res.status).toBe(401);
     expect(res.body.error.message).toMatch(/sign in/i);
@@ -110,7 +117,15 @@ describe('linking submissions as evidence', () => {
     expect(res.status).toBe(201);
     const thread = await request(app).get(`/api/threads/${res.body.id}`);
     expect(thread.body.posts[0].linkedSubmissions).toEqual([
-      expect.objectContaining({ id: submissionId, side: 'a', biasPercent: 2.4, loaLowerPercent: -2.1, loaUpperPercent: 5.7, powerDropouts: 3, firmware: '2.1.0' }),
+      expect.objectContaining({
+        id: submissionId,
+        side: 'a',
+        biasPercent: 2.4,
+        loaLowerPercent: -2.1,
+        loaUpperPercent: 5.7,
+        powerDropouts: 3,
+        firmware: '2.1.0',
+      }),
     ]);
   });
 
@@ -146,13 +161,19 @@ describe('editing own posts', () => {
 
     expect(res.status).toBe(200);
     const after = await request(app).get(`/api/threads/${created.id}`);
-    expect(after.body.posts[0]).toMatchObject({ bodyHtml: '<p>Update: only below 60 rpm.</p>', editedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/), bodySource: null });
+    expect(after.body.posts[0]).toMatchObject({
+      bodyHtml: '<p>Update: only below 60 rpm.</p>',
+      editedOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/),
+      bodySource: null,
+    });
   });
 
   it('when the window has passed, then the edit is refused with edit_window_closed', async () => {
     const { body: created } = await startThread(rider, catalogue.spider.slug);
     const [post] = await db('posts').where({ thread_id: created.id });
-    await db('posts').where({ id: post.id }).update({ created_at: db.raw("now() - interval '31 minutes'") });
+    await db('posts')
+      .where({ id: post.id })
+      .update({ created_at: db.raw("now() - interval '31 minutes'") });
 
     const res = await write(rider, 'patch', `/api/posts/${post.id}`, { body: 'Too late to change this.' });
 
@@ -177,7 +198,8 @@ describe('thread lists', () => {
   it('when threads are listed, then the latest activity comes first and the filters narrow the list', async () => {
     const slug = catalogue.pedals.slug;
     const quiet = (await startThread(otherRider, slug, { title: 'Left pedal reads low when cold' })).body.id;
-    const busy = (await startThread(otherRider, slug, { title: 'Dropouts on firmware 4.0.2', firmwareId: catalogue.pedalsFirmware.id })).body.id;
+    const busy = (await startThread(otherRider, slug, { title: 'Dropouts on firmware 4.0.2', firmwareId: catalogue.pedalsFirmware.id }))
+      .body.id;
     const answered = (await startThread(otherRider, slug, { title: 'Right pedal spikes at sprints' })).body.id;
     await reply(staff, answered, 'Thanks, we are looking into the sprint spikes.');
     await reply(rider, busy, 'Same on my pair.');

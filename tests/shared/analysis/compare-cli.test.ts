@@ -5,7 +5,21 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { simulatePair } from '@shared/simulator/pair';
 
-const CONTRACT_KEYS = ['methodVersion', 'alignment', 'bias', 'agreement', 'dropouts', 'cadenceLagSeconds', 'peaks', 'powerBands', 'cadenceBands', 'steadySegments', 'likeForLike', 'smoothing', 'flags'];
+const CONTRACT_KEYS = [
+  'methodVersion',
+  'alignment',
+  'bias',
+  'agreement',
+  'dropouts',
+  'cadenceLagSeconds',
+  'peaks',
+  'powerBands',
+  'cadenceBands',
+  'steadySegments',
+  'likeForLike',
+  'smoothing',
+  'flags',
+];
 
 function compare(...args: string[]) {
   const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/compare.ts', ...args], { encoding: 'utf8', cwd: process.cwd() });

@@ -79,7 +79,10 @@ describe('compareRecordings on per-second arrays', () => {
   it('when a left-only meter meets a dual meter without balance, then the comparison is mixed and flagged', () => {
     const ride = effort(HOUR, 5);
 
-    const result = compareRecordings(rideStream({ power: ride.power }), rideStream({ power: ride.power }), { aPosition: 'left', bPosition: 'dual' });
+    const result = compareRecordings(rideStream({ power: ride.power }), rideStream({ power: ride.power }), {
+      aPosition: 'left',
+      bPosition: 'dual',
+    });
 
     expect(result.likeForLike.mode).toBe('mixed');
     expect(result.flags).toContainEqual(expect.objectContaining({ code: 'mixed_comparison', severity: 'warning' }));
@@ -143,10 +146,31 @@ describe('compareRecordings on per-second arrays', () => {
   it('when the result is serialised, then the contract keys are all there and nothing is NaN', () => {
     const ride = effort(HOUR);
 
-    const result = compareRecordings(rideStream({ power: scaled(ride.power, 1.01), cadence: ride.cadence }), rideStream({ power: ride.power, cadence: ride.cadence }), DIRECT);
+    const result = compareRecordings(
+      rideStream({ power: scaled(ride.power, 1.01), cadence: ride.cadence }),
+      rideStream({ power: ride.power, cadence: ride.cadence }),
+      DIRECT,
+    );
     const json = JSON.parse(JSON.stringify(result));
 
-    for (const key of ['methodVersion', 'alignment', 'bias', 'agreement', 'dropouts', 'cadenceLagSeconds', 'peaks', 'powerBands', 'cadenceBands', 'steadySegments', 'likeForLike', 'smoothing', 'flags', 'sums', 'pedallingSeconds', 'series']) {
+    for (const key of [
+      'methodVersion',
+      'alignment',
+      'bias',
+      'agreement',
+      'dropouts',
+      'cadenceLagSeconds',
+      'peaks',
+      'powerBands',
+      'cadenceBands',
+      'steadySegments',
+      'likeForLike',
+      'smoothing',
+      'flags',
+      'sums',
+      'pedallingSeconds',
+      'series',
+    ]) {
       expect(json).toHaveProperty(key);
     }
     expect(JSON.stringify(result)).not.toContain('NaN');
@@ -168,7 +192,10 @@ describe('compareRecordings errors', () => {
   it('when a recording lasts 5 minutes, then the error is too_short', () => {
     const ride = effort(HOUR);
 
-    expectAnalysisError(() => compareRecordings(rideStream({ power: ride.power.subarray(0, 300) }), rideStream({ power: ride.power }), DIRECT), 'too_short');
+    expectAnalysisError(
+      () => compareRecordings(rideStream({ power: ride.power.subarray(0, 300) }), rideStream({ power: ride.power }), DIRECT),
+      'too_short',
+    );
   });
 
   it('when the recordings are hours apart, then the error is no_overlap', () => {
@@ -206,8 +233,14 @@ describe('compareRecordings recording-quality flags', () => {
     const ride = effort(HOUR);
     const cadence = Float64Array.from(ride.cadence, (rpm, i) => (i === 2000 ? 255 : rpm));
 
-    const result = compareRecordings(rideStream({ power: ride.power, cadence: ride.cadence }), rideStream({ power: ride.power, cadence }), DIRECT);
+    const result = compareRecordings(
+      rideStream({ power: ride.power, cadence: ride.cadence }),
+      rideStream({ power: ride.power, cadence }),
+      DIRECT,
+    );
 
-    expect(result.flags).toContainEqual(expect.objectContaining({ code: 'implausible_cadence', message: expect.stringMatching(/^Device B/) }));
+    expect(result.flags).toContainEqual(
+      expect.objectContaining({ code: 'implausible_cadence', message: expect.stringMatching(/^Device B/) }),
+    );
   });
 });

@@ -30,7 +30,10 @@ describe('decodeFit refusals', () => {
   });
 
   it('when the file is a FIT file with no file_id and no records, then it is refused as not_activity', () => {
-    const bytes = new FitBytes().define(0, MESG.deviceInfo, [[0, BASE.uint8]]).data(0, [1]).toFile();
+    const bytes = new FitBytes()
+      .define(0, MESG.deviceInfo, [[0, BASE.uint8]])
+      .data(0, [1])
+      .toFile();
 
     expect(refusal(bytes).code).toBe('not_activity');
   });
@@ -48,9 +51,17 @@ describe('decodeFit refusals', () => {
     const fit = new FitBytes()
       .define(0, MESG.fileId, [[0, BASE.enum]])
       .data(0, [FILE_TYPE.activity])
-      .define(1, MESG.record, [[253, BASE.uint32], [7, BASE.uint16]]);
+      .define(1, MESG.record, [
+        [253, BASE.uint32],
+        [7, BASE.uint16],
+      ]);
     for (let i = 0; i < 1200; i++) fit.data(1, [START - FIT_EPOCH + i + (i >= 1100 ? 30 * 3600 : 0), 200]);
-    fit.define(2, MESG.session, [[253, BASE.uint32], [2, BASE.uint32]]).data(2, [START - FIT_EPOCH + 1100, START - FIT_EPOCH]);
+    fit
+      .define(2, MESG.session, [
+        [253, BASE.uint32],
+        [2, BASE.uint32],
+      ])
+      .data(2, [START - FIT_EPOCH + 1100, START - FIT_EPOCH]);
 
     const error = refusal(fit.toFile());
 

@@ -8,10 +8,9 @@ import { recordingFit, TEST_HEAD_UNIT, TEST_POWER_SENSOR } from './fit-files';
 // The FIT SDK's own test data, "fitFileShort": one file_id message. Header CRC 0xA38E
 // (bytes 12–13), file CRC 0xF25D (last two bytes, little-endian).
 const FIT_SDK_SHORT_FILE = Uint8Array.from([
-  0x0e, 0x20, 0x8b, 0x08, 0x24, 0x00, 0x00, 0x00, 0x2e, 0x46, 0x49, 0x54, 0x8e, 0xa3,
-  0x40, 0x00, 0x00, 0x00, 0x00, 0x04, 0x00, 0x01, 0x00, 0x01, 0x02, 0x84, 0x04, 0x04, 0x86, 0x08, 0x0a, 0x07,
-  0x00, 0x04, 0x01, 0x00, 0x00, 0xca, 0x9a, 0x3b, 0x61, 0x62, 0x63, 0x64, 0x65, 0x66, 0x67, 0x68, 0x69, 0x00,
-  0x5d, 0xf2,
+  0x0e, 0x20, 0x8b, 0x08, 0x24, 0x00, 0x00, 0x00, 0x2e, 0x46, 0x49, 0x54, 0x8e, 0xa3, 0x40, 0x00, 0x00, 0x00, 0x00, 0x04, 0x00, 0x01, 0x00,
+  0x01, 0x02, 0x84, 0x04, 0x04, 0x86, 0x08, 0x0a, 0x07, 0x00, 0x04, 0x01, 0x00, 0x00, 0xca, 0x9a, 0x3b, 0x61, 0x62, 0x63, 0x64, 0x65, 0x66,
+  0x67, 0x68, 0x69, 0x00, 0x5d, 0xf2,
 ]);
 
 interface ReferenceRecord {
@@ -82,21 +81,46 @@ describe('decodeFit against the FIT SDK reference decoder', () => {
 
 describe('decodeFit privacy and device info', () => {
   it('when the file carries a GPS track, then no location leaves the decoder', () => {
-    const { a } = simulatePair({ seed: 5, durationSeconds: 900, a: { position: 'total', includeLocation: true }, b: { position: 'total' } });
+    const { a } = simulatePair({
+      seed: 5,
+      durationSeconds: 900,
+      a: { position: 'total', includeLocation: true },
+      b: { position: 'total' },
+    });
     const withTrack = referenceRecords(a).filter((record) => record.positionLat !== undefined);
     expect(withTrack.length).toBeGreaterThan(0);
 
     const stream = decodeFit(a);
 
-    expect(Object.keys(stream).sort()).toEqual(['cadenceRpm', 'device', 'powerMeterReports', 'powerWatts', 'recording', 'rightBalancePercent', 'timestamps']);
-    expect(JSON.stringify({ ...stream, timestamps: [], powerWatts: [], cadenceRpm: [], rightBalancePercent: [] })).not.toMatch(/position|latitude|longitude|"lat"|"long"/i);
+    expect(Object.keys(stream).sort()).toEqual([
+      'cadenceRpm',
+      'device',
+      'powerMeterReports',
+      'powerWatts',
+      'recording',
+      'rightBalancePercent',
+      'timestamps',
+    ]);
+    expect(JSON.stringify({ ...stream, timestamps: [], powerWatts: [], cadenceRpm: [], rightBalancePercent: [] })).not.toMatch(
+      /position|latitude|longitude|"lat"|"long"/i,
+    );
   });
 
   it('when the file names its head unit and power sensor, then both identities are decoded', () => {
     const stream = decodeFit(recordingFit({ seconds: 700 }));
 
-    expect(stream.device.creator).toEqual({ manufacturerId: 255, productId: TEST_HEAD_UNIT.productId, serialNumber: TEST_HEAD_UNIT.serialNumber, softwareVersion: TEST_HEAD_UNIT.softwareVersion });
-    expect(stream.device.powerMeter).toEqual({ manufacturerId: 255, productId: TEST_POWER_SENSOR.productId, serialNumber: TEST_POWER_SENSOR.serialNumber, softwareVersion: TEST_POWER_SENSOR.softwareVersion });
+    expect(stream.device.creator).toEqual({
+      manufacturerId: 255,
+      productId: TEST_HEAD_UNIT.productId,
+      serialNumber: TEST_HEAD_UNIT.serialNumber,
+      softwareVersion: TEST_HEAD_UNIT.softwareVersion,
+    });
+    expect(stream.device.powerMeter).toEqual({
+      manufacturerId: 255,
+      productId: TEST_POWER_SENSOR.productId,
+      serialNumber: TEST_POWER_SENSOR.serialNumber,
+      softwareVersion: TEST_POWER_SENSOR.softwareVersion,
+    });
   });
 
   it('when balance bytes lack the right-leg bit or are invalid, then the balance is unknown', () => {
@@ -111,7 +135,12 @@ describe('decodeFit privacy and device info', () => {
   });
 
   it('when a head unit records only on change, then the statistics show its median interval and no long gaps', () => {
-    const { a } = simulatePair({ seed: 8, durationSeconds: 1800, a: { position: 'total', recordingMode: 'change-only' }, b: { position: 'total' } });
+    const { a } = simulatePair({
+      seed: 8,
+      durationSeconds: 1800,
+      a: { position: 'total', recordingMode: 'change-only' },
+      b: { position: 'total' },
+    });
 
     const { recording } = decodeFit(a);
 

@@ -53,15 +53,43 @@ export function outOfOrderFile(): Uint8Array {
 export function deviceDescribedTwiceFile(): Uint8Array {
   return sdkFile((mesg) => {
     mesg(M.FILE_ID, { type: 'activity', manufacturer: 'development', product: 3, serialNumber: 33, timeCreated: START });
-    mesg(M.DEVICE_INFO, { timestamp: START, deviceIndex: 0, manufacturer: 'development', product: 3, serialNumber: 33, softwareVersion: 5.1 });
+    mesg(M.DEVICE_INFO, {
+      timestamp: START,
+      deviceIndex: 0,
+      manufacturer: 'development',
+      product: 3,
+      serialNumber: 33,
+      softwareVersion: 5.1,
+    });
     mesg(M.DEVICE_INFO, { timestamp: START, deviceIndex: 1, deviceType: 11, sourceType: 1, antDeviceNumber: 4711 });
     for (let i = 0; i < 1200; i++) {
       mesg(M.RECORD, { timestamp: START + i, power: 200 + (i % 30), cadence: 90, temperature: 18 + Math.floor(i / 600) });
       if (i === 60) {
-        mesg(M.DEVICE_INFO, { timestamp: START + i, deviceIndex: 1, deviceType: 11, sourceType: 1, antDeviceNumber: 4711, manufacturer: 'development', product: 9, serialNumber: 515151, softwareVersion: 1.05, batteryVoltage: 3.0, batteryStatus: 'good', cumOperatingTime: 36000 });
+        mesg(M.DEVICE_INFO, {
+          timestamp: START + i,
+          deviceIndex: 1,
+          deviceType: 11,
+          sourceType: 1,
+          antDeviceNumber: 4711,
+          manufacturer: 'development',
+          product: 9,
+          serialNumber: 515151,
+          softwareVersion: 1.05,
+          batteryVoltage: 3.0,
+          batteryStatus: 'good',
+          cumOperatingTime: 36000,
+        });
       }
     }
-    mesg(M.DEVICE_INFO, { timestamp: START + 1200, deviceIndex: 1, deviceType: 11, sourceType: 1, batteryVoltage: 2.5, batteryStatus: 'low', cumOperatingTime: 37200 });
+    mesg(M.DEVICE_INFO, {
+      timestamp: START + 1200,
+      deviceIndex: 1,
+      deviceType: 11,
+      sourceType: 1,
+      batteryVoltage: 2.5,
+      batteryStatus: 'low',
+      cumOperatingTime: 37200,
+    });
     mesg(M.SESSION, { timestamp: START + 1200, startTime: START, sport: 'cycling', totalElapsedTime: 1200 });
   });
 }
@@ -69,12 +97,49 @@ export function deviceDescribedTwiceFile(): Uint8Array {
 /** Big-endian definitions throughout (the protocol allows either byte order per message). */
 export function bigEndianFile(seconds = 1200): Uint8Array {
   const fit = new FitBytes()
-    .define(0, MESG.fileId, [[0, BASE.enum], [1, BASE.uint16], [2, BASE.uint16], [3, BASE.uint32z], [4, BASE.uint32]], { bigEndian: true })
+    .define(
+      0,
+      MESG.fileId,
+      [
+        [0, BASE.enum],
+        [1, BASE.uint16],
+        [2, BASE.uint16],
+        [3, BASE.uint32z],
+        [4, BASE.uint32],
+      ],
+      { bigEndian: true },
+    )
     .data(0, [FILE_TYPE.activity, 255, 2, 4343, START])
-    .define(1, MESG.deviceInfo, [[253, BASE.uint32], [0, BASE.uint8], [1, BASE.uint8], [2, BASE.uint16], [3, BASE.uint32z], [4, BASE.uint16], [5, BASE.uint16], [25, BASE.enum]], { bigEndian: true })
+    .define(
+      1,
+      MESG.deviceInfo,
+      [
+        [253, BASE.uint32],
+        [0, BASE.uint8],
+        [1, BASE.uint8],
+        [2, BASE.uint16],
+        [3, BASE.uint32z],
+        [4, BASE.uint16],
+        [5, BASE.uint16],
+        [25, BASE.enum],
+      ],
+      { bigEndian: true },
+    )
     .data(1, [START, 1, 11, 255, 626262, 12, 207, 1])
-    .define(2, MESG.record, [[253, BASE.uint32], [7, BASE.uint16], [4, BASE.uint8], [30, BASE.uint8], [13, BASE.sint8]], { bigEndian: true });
-  for (let i = 0; i < seconds; i++) fit.data(2, [START + i, i % 300 === 7 ? null : 180 + (i % 61), 80 + (i % 9), 0x80 | (48 + (i % 5)), -3 + (i % 4)]);
+    .define(
+      2,
+      MESG.record,
+      [
+        [253, BASE.uint32],
+        [7, BASE.uint16],
+        [4, BASE.uint8],
+        [30, BASE.uint8],
+        [13, BASE.sint8],
+      ],
+      { bigEndian: true },
+    );
+  for (let i = 0; i < seconds; i++)
+    fit.data(2, [START + i, i % 300 === 7 ? null : 180 + (i % 61), 80 + (i % 9), 0x80 | (48 + (i % 5)), -3 + (i % 4)]);
   return fit.toFile();
 }
 
@@ -90,11 +155,20 @@ export function developerFieldFile(): Uint8Array {
  */
 export function compressedTimestampFile(seconds = 1200): { bytes: Uint8Array; times: number[]; power: number[] } {
   const fit = new FitBytes()
-    .define(0, MESG.fileId, [[0, BASE.enum], [4, BASE.uint32]])
+    .define(0, MESG.fileId, [
+      [0, BASE.enum],
+      [4, BASE.uint32],
+    ])
     .data(0, [FILE_TYPE.activity, START])
-    .define(1, MESG.record, [[253, BASE.uint32], [7, BASE.uint16]])
+    .define(1, MESG.record, [
+      [253, BASE.uint32],
+      [7, BASE.uint16],
+    ])
     .data(1, [START, 100])
-    .define(3, MESG.record, [[7, BASE.uint16], [4, BASE.uint8]]);
+    .define(3, MESG.record, [
+      [7, BASE.uint16],
+      [4, BASE.uint8],
+    ]);
   const times = [START];
   const power = [100];
   // Steps of 1 to 3 s cross the 32-second rollover of the five bits many times.
@@ -117,13 +191,22 @@ export function sdkReadableCorpus(): CorpusFile[] {
     a: { position: 'total', recordingMode: 'change-only', powerDropoutsPerHour: 4, includeLocation: true },
     b: { position: 'dual', clockOffsetSeconds: 9 },
   });
-  const later = simulatePair({ seed: 42, durationSeconds: 900, startTime: START + FIT_EPOCH + 1800, a: { position: 'total' }, b: { position: 'total' } });
+  const later = simulatePair({
+    seed: 42,
+    durationSeconds: 900,
+    startTime: START + FIT_EPOCH + 1800,
+    a: { position: 'total' },
+    b: { position: 'total' },
+  });
   return [
     { name: "the simulator's file A (SDK Encoder, change-only recording, GPS)", bytes: pair.a },
     { name: "the simulator's file B (SDK Encoder, dual meter with balance)", bytes: pair.b },
     { name: '12-byte header', bytes: withShortHeader(pair.b) },
     { name: '14-byte header with CRC 0', bytes: withZeroHeaderCrc(pair.b) },
-    ...[0x10, 0x20, 0x21, 0x23].map((version) => ({ name: `protocol version byte 0x${version.toString(16)}`, bytes: withProtocolVersion(pair.b, version) })),
+    ...[0x10, 0x20, 0x21, 0x23].map((version) => ({
+      name: `protocol version byte 0x${version.toString(16)}`,
+      bytes: withProtocolVersion(pair.b, version),
+    })),
     { name: 'developer fields', bytes: developerFieldFile() },
     { name: 'big-endian definitions', bytes: bigEndianFile() },
     { name: 'two files chained', bytes: chain(pair.a, later.a) },

@@ -56,7 +56,10 @@ describe('compressed timestamp headers, against the protocol definition', () => 
   });
 
   it('when the SDK meets the same file, then it refuses it (it does not support compressed timestamps), so the protocol is the reference', () => {
-    expect(readWithFitSdk(compressedTimestampFile().bytes)).toMatchObject({ readable: false, reason: expect.stringMatching(/compressed timestamp/) });
+    expect(readWithFitSdk(compressedTimestampFile().bytes)).toMatchObject({
+      readable: false,
+      reason: expect.stringMatching(/compressed timestamp/),
+    });
   });
 });
 
@@ -68,7 +71,7 @@ describe('device identity and battery reports', () => {
     expect(stream.device.creator).toEqual({ manufacturerId: 255, productId: 3, serialNumber: 33, softwareVersion: 5.1 });
   });
 
-  it("when the power meter reports its battery, then every one of its device messages is kept with volts (scale 256) and operating time", () => {
+  it('when the power meter reports its battery, then every one of its device messages is kept with volts (scale 256) and operating time', () => {
     const stream = decodeFit(deviceDescribedTwiceFile());
 
     // FIT SDK profile, battery_status: 2 good, 4 low.
@@ -93,7 +96,9 @@ describe('files that ended early', () => {
     const error = refusal(bytes);
 
     expect(error.code).toBe('ended_early');
-    expect(error.message).toMatch(/^This file ended early: its header promises \d+ bytes of data but only \d+ follow, and the final checksum is missing/);
+    expect(error.message).toMatch(
+      /^This file ended early: its header promises \d+ bytes of data but only \d+ follow, and the final checksum is missing/,
+    );
   });
 
   it('when the header still says the file holds no data (a unit that never closed it), then it is refused as ended_early', () => {
@@ -112,13 +117,20 @@ describe('files that ended early', () => {
 
 describe('damaged files say which part is wrong', () => {
   // file_id definition (header 1 + fixed 5 + one field 3 = 9 bytes), then its data message at byte 9 of the data.
-  const data = () => new FitBytes().define(0, MESG.fileId, [[0, BASE.enum]]).data(0, [FILE_TYPE.activity]).toFile().slice(14, -2);
+  const data = () =>
+    new FitBytes()
+      .define(0, MESG.fileId, [[0, BASE.enum]])
+      .data(0, [FILE_TYPE.activity])
+      .toFile()
+      .slice(14, -2);
 
   it('when a record uses a message type that was never defined, then the message says so', () => {
     const broken = data();
     broken[9] = 0x05;
 
-    expect(refusal(fitFile(broken)).message).toMatch(/^This file is damaged: a record at byte \d+ uses a message type the file never defined/);
+    expect(refusal(fitFile(broken)).message).toMatch(
+      /^This file is damaged: a record at byte \d+ uses a message type the file never defined/,
+    );
   });
 
   it('when a definition names a base type that does not exist, then the message says so', () => {

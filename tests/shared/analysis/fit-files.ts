@@ -7,7 +7,12 @@ export const TEST_HEAD_UNIT = { productId: 7, serialNumber: 424242, softwareVers
 export const TEST_POWER_SENSOR = { productId: 9, serialNumber: 515151, softwareVersion: 1.05 };
 
 /** A plain recording: one record a second with the given power, cadence and balance bytes. */
-export function recordingFit(options: { seconds: number; power?: (i: number) => number; balance?: (i: number) => number; start?: number }): Uint8Array {
+export function recordingFit(options: {
+  seconds: number;
+  power?: (i: number) => number;
+  balance?: (i: number) => number;
+  start?: number;
+}): Uint8Array {
   const start = options.start ?? 1_717_225_200;
   const recording: MeterRecording = {
     position: 'dual',

@@ -61,39 +61,56 @@ describe('method version 2', { timeout: 60_000 }, () => {
     expect(dropoutCounts(result)).toEqual(NONE);
   });
 
-  it.each([3, 4, 5])("when A's cadence is %i s late on a 2 h endurance ride recorded every second, then no cadence dropout is found at stops and starts", (lag) => {
-    // Method 1 found 6 of 6 false cadence dropouts per ride at lags of 3 s and more.
-    const { result, truth } = compare({ a: { position: 'total', cadenceLagSeconds: lag }, b: { position: 'total' } });
+  it.each([3, 4, 5])(
+    "when A's cadence is %i s late on a 2 h endurance ride recorded every second, then no cadence dropout is found at stops and starts",
+    (lag) => {
+      // Method 1 found 6 of 6 false cadence dropouts per ride at lags of 3 s and more.
+      const { result, truth } = compare({ a: { position: 'total', cadenceLagSeconds: lag }, b: { position: 'total' } });
 
-    expect(result.cadenceLagSeconds).toBe(truth.cadenceLagSeconds);
-    expect(dropoutCounts(result)).toEqual(NONE);
-  });
+      expect(result.cadenceLagSeconds).toBe(truth.cadenceLagSeconds);
+      expect(dropoutCounts(result)).toEqual(NONE);
+    },
+  );
 
-  it.each([3, 5, 10])('when A reads 2 percent high through a %i s trailing average of a ride with 28 percent of seconds at zero, then the bias is still +2 percent and the smoothing is flagged', (seconds) => {
-    // Method 1 on a real ride like this: +0.04 % at 3 s, −1.97 % at 5 s, −5.70 % at 10 s, no smoothing flag at 3 s.
-    const { power, cadence } = coastingRide(2 * HOUR);
-    const zeroShare = power.filter((watts) => watts === 0).length / power.length;
-    expect(zeroShare).toBeGreaterThan(0.25);
-    const a = rideStream({ power: scaled(trailing(power, seconds), 1.02), cadence });
-    const b = rideStream({ power, cadence });
+  it.each([3, 5, 10])(
+    'when A reads 2 percent high through a %i s trailing average of a ride with 28 percent of seconds at zero, then the bias is still +2 percent and the smoothing is flagged',
+    (seconds) => {
+      // Method 1 on a real ride like this: +0.04 % at 3 s, −1.97 % at 5 s, −5.70 % at 10 s, no smoothing flag at 3 s.
+      const { power, cadence } = coastingRide(2 * HOUR);
+      const zeroShare = power.filter((watts) => watts === 0).length / power.length;
+      expect(zeroShare).toBeGreaterThan(0.25);
+      const a = rideStream({ power: scaled(trailing(power, seconds), 1.02), cadence });
+      const b = rideStream({ power, cadence });
 
-    const result = compareRecordings(a, b, DIRECT);
+      const result = compareRecordings(a, b, DIRECT);
 
-    expect(Math.abs(result.bias.percent! - 2)).toBeLessThan(BIAS_GOAL_PP);
-    expect(result.smoothing.windowSeconds).toEqual({ a: seconds, b: 1 });
-    expect(result.flags.map((flag) => flag.code)).toContain('smoothing_mismatch');
-  });
+      expect(Math.abs(result.bias.percent! - 2)).toBeLessThan(BIAS_GOAL_PP);
+      expect(result.smoothing.windowSeconds).toEqual({ a: seconds, b: 1 });
+      expect(result.flags.map((flag) => flag.code)).toContain('smoothing_mismatch');
+    },
+  );
 
   it('when a 32-min indoor ride recorded change-only on both sides has many dropouts, then the clock offset and bias are still right', () => {
     // Method 1: offset 84 s (truth 94), bias −4.34 % (truth −4.92), cadence lag −10 s on its bound, no flags.
     const both = { position: 'total', recordingMode: 'change-only', powerDropoutsPerHour: 11, cadenceDropoutsPerHour: 17 } as const;
-    const { result, truth } = compare({ seed: 94, profile: 'indoor', durationSeconds: 32 * 60, a: { ...both, scale: 0.9508, clockOffsetSeconds: 94 }, b: both });
+    const { result, truth } = compare({
+      seed: 94,
+      profile: 'indoor',
+      durationSeconds: 32 * 60,
+      a: { ...both, scale: 0.9508, clockOffsetSeconds: 94 },
+      b: both,
+    });
     expect(truth.dropouts.a.power + truth.dropouts.b.power).toBeGreaterThan(6);
 
     expect(result.alignment.clockOffsetSeconds).toBe(94);
     expect(Math.abs(result.bias.percent! - truth.biasPercent)).toBeLessThan(BIAS_GOAL_PP);
     expect(result.cadenceLagSeconds).toBe(0);
-    expect(dropoutCounts(result)).toEqual({ aPower: truth.dropouts.a.power, bPower: truth.dropouts.b.power, aCadence: truth.dropouts.a.cadence, bCadence: truth.dropouts.b.cadence });
+    expect(dropoutCounts(result)).toEqual({
+      aPower: truth.dropouts.a.power,
+      bPower: truth.dropouts.b.power,
+      aCadence: truth.dropouts.a.cadence,
+      bCadence: truth.dropouts.b.cadence,
+    });
   });
 
   it("when A's copy is shifted by +150 s, beyond the search window, then a severe estimate_on_bound flag says so", () => {
@@ -113,7 +130,10 @@ describe('method version 2', { timeout: 60_000 }, () => {
 
   it("when B averages power over 10 s and A's cadence is 3 s late, then the cadence lag is 3 s, not the smoothing's delay added to it", () => {
     // Method 1: apparent cadence lag 9.5 s with B smoothed 10 s.
-    const { result, truth } = compare({ a: { position: 'total', cadenceLagSeconds: 3, clockOffsetSeconds: 40 }, b: { position: 'total', smoothingSeconds: 10 } });
+    const { result, truth } = compare({
+      a: { position: 'total', cadenceLagSeconds: 3, clockOffsetSeconds: 40 },
+      b: { position: 'total', smoothingSeconds: 10 },
+    });
 
     expect(result.alignment.clockOffsetSeconds).toBe(truth.clockOffsetSeconds);
     expect(result.cadenceLagSeconds).toBe(3);

@@ -7,7 +7,13 @@ const DIRECT = { aPosition: 'total', bPosition: 'total' } as const;
 const SENSOR = { productId: 7, serialNumber: 4242, softwareVersion: 2.1 };
 
 function ride(a: Partial<MeterSpec>) {
-  const pair = simulatePair({ seed: 1818, durationSeconds: 2 * HOUR, profile: 'endurance', a: { position: 'total', ...a }, b: { position: 'total' } });
+  const pair = simulatePair({
+    seed: 1818,
+    durationSeconds: 2 * HOUR,
+    profile: 'endurance',
+    a: { position: 'total', ...a },
+    b: { position: 'total' },
+  });
   return compareFitFiles(pair.a, pair.b, DIRECT);
 }
 

@@ -153,7 +153,13 @@ describe('cadence steps', () => {
   });
 
   it("when the simulator lags A's cadence by 3 s, then the steps' median lag is the lag the engine should find", () => {
-    const { a, b, truth } = simulatePair({ seed: 41, durationSeconds: 5400, profile: 'intervals', a: { position: 'total', cadenceLagSeconds: 3 }, b: { position: 'total' } });
+    const { a, b, truth } = simulatePair({
+      seed: 41,
+      durationSeconds: 5400,
+      profile: 'intervals',
+      a: { position: 'total', cadenceLagSeconds: 3 },
+      b: { position: 'total' },
+    });
     const result = compareFitFiles(a, b, DIRECT);
     const trace = rideTrace(decodeFit(a), decodeFit(b), DIRECT, result.alignment.clockOffsetSeconds);
 

@@ -75,7 +75,10 @@ describe('synthetic pairs: what the engine recovers', () => {
   });
 
   it('when a head unit records only on change, then its gaps are not dropouts', () => {
-    const { a, b, truth } = pair({ a: { position: 'total', recordingMode: 'change-only', scale: 0.98 }, b: { position: 'total', recordingMode: 'change-only' } });
+    const { a, b, truth } = pair({
+      a: { position: 'total', recordingMode: 'change-only', scale: 0.98 },
+      b: { position: 'total', recordingMode: 'change-only' },
+    });
 
     const result = compareFitFiles(a, b, DIRECT);
 
@@ -158,7 +161,11 @@ describe('synthetic pairs: errors', () => {
   });
 
   it('when the recordings share 8 minutes, then the error is short_overlap', () => {
-    const { a, b } = pair({ durationSeconds: HOUR, a: { position: 'total', endOffsetSeconds: HOUR - 1200 }, b: { position: 'total', startOffsetSeconds: 720 } });
+    const { a, b } = pair({
+      durationSeconds: HOUR,
+      a: { position: 'total', endOffsetSeconds: HOUR - 1200 },
+      b: { position: 'total', startOffsetSeconds: 720 },
+    });
 
     expect(codeOf(() => compareFitFiles(a, b, DIRECT))).toBe('short_overlap');
   });

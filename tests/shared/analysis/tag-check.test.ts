@@ -32,7 +32,12 @@ describe('tag check', () => {
 
     // Assert
     expect(check.disagreements).toEqual([{ field: 'firmware', tagged: '2.2', inFile: '1.2' }]);
-    expect(check.suggestions).toMatchObject({ firmwareId: 11, firmwareVersion: '1.2', recordingDeviceId: 21, recordingDeviceFirmware: '3.1' });
+    expect(check.suggestions).toMatchObject({
+      firmwareId: 11,
+      firmwareVersion: '1.2',
+      recordingDeviceId: 21,
+      recordingDeviceFirmware: '3.1',
+    });
   });
 
   it('when the tags match the file, then there is no disagreement', () => {
@@ -42,7 +47,11 @@ describe('tag check', () => {
   });
 
   it('when the file names another recording device with another firmware, then both disagree and the catalogue entry is suggested', () => {
-    const check = checkTags(device(1.2, identity(5.02, 'orrin loop')), { firmwareId: 11, recordingDeviceId: 21, recordingDeviceFirmware: '3.1' }, catalogue);
+    const check = checkTags(
+      device(1.2, identity(5.02, 'orrin loop')),
+      { firmwareId: 11, recordingDeviceId: 21, recordingDeviceFirmware: '3.1' },
+      catalogue,
+    );
 
     expect(check.disagreements.map((d) => d.field)).toEqual(['recording_device', 'recording_device_firmware']);
     expect(check.suggestions.recordingDeviceId).toBe(22);
@@ -68,7 +77,13 @@ describe('tag check', () => {
 
     const flags = tagMismatchFlags('a', check);
 
-    expect(flags).toEqual([{ code: 'firmware_tag_mismatch', severity: 'severe', message: "Device A's power meter firmware is tagged 2.2, but its file reports 1.2." }]);
+    expect(flags).toEqual([
+      {
+        code: 'firmware_tag_mismatch',
+        severity: 'severe',
+        message: "Device A's power meter firmware is tagged 2.2, but its file reports 1.2.",
+      },
+    ]);
   });
 
   it('when versions are written differently, then they compare at the FIT resolution of 0.01', () => {

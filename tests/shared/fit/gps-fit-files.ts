@@ -35,7 +35,10 @@ export function encodeActivityWithGps(options: { seconds?: number; seed?: number
   const seed = options.seed ?? 1;
   const developerDataIdMesg = { developerDataIndex: 0, applicationVersion: 3 };
   const fieldDescriptions = Object.fromEntries(
-    DEVELOPER_FIELDS.map((field, key) => [key, { developerDataIdMesg, fieldDescriptionMesg: { developerDataIndex: 0, fieldDefinitionNumber: key, ...field } }]),
+    DEVELOPER_FIELDS.map((field, key) => [
+      key,
+      { developerDataIdMesg, fieldDescriptionMesg: { developerDataIndex: 0, fieldDefinitionNumber: key, ...field } },
+    ]),
   );
   const encoder = new Encoder({ fieldDescriptions } as ConstructorParameters<typeof Encoder>[0]);
   // Messages as plain objects: the SDK's message types do not list every field by name.
@@ -44,12 +47,32 @@ export function encodeActivityWithGps(options: { seconds?: number; seed?: number
   write(M.DEVELOPER_DATA_ID, developerDataIdMesg);
   // The SDK encodes developer fields with these descriptions; the file must carry them too.
   for (const { fieldDescriptionMesg } of Object.values(fieldDescriptions)) write(M.FIELD_DESCRIPTION, fieldDescriptionMesg);
-  write(M.DEVICE_INFO, { timestamp: START, deviceIndex: 0, manufacturer: 'development', product: 7, serialNumber: 4242, softwareVersion: 4.1 });
+  write(M.DEVICE_INFO, {
+    timestamp: START,
+    deviceIndex: 0,
+    manufacturer: 'development',
+    product: 7,
+    serialNumber: 4242,
+    softwareVersion: 4.1,
+  });
   write(M.EVENT, { timestamp: START, event: 'timer', eventType: 'start' });
   write(M.COURSE_POINT, { timestamp: START + 60, positionLat: LAT + 500, positionLong: LONG - 500, type: 'summit', name: 'Col' });
   write(M.SEGMENT_POINT, { messageIndex: 0, positionLat: LAT + 700, positionLong: LONG + 700, distance: 120 });
-  write(M.GPS_METADATA, { timestamp: START + 1, positionLat: LAT, positionLong: LONG, enhancedAltitude: 512, enhancedSpeed: 7.5, heading: 90 });
-  write(M.WEATHER_CONDITIONS, { timestamp: START, observedLocationLat: LAT, observedLocationLong: LONG, temperature: 18, location: 'Alpbach' });
+  write(M.GPS_METADATA, {
+    timestamp: START + 1,
+    positionLat: LAT,
+    positionLong: LONG,
+    enhancedAltitude: 512,
+    enhancedSpeed: 7.5,
+    heading: 90,
+  });
+  write(M.WEATHER_CONDITIONS, {
+    timestamp: START,
+    observedLocationLat: LAT,
+    observedLocationLong: LONG,
+    temperature: 18,
+    location: 'Alpbach',
+  });
   for (let i = 0; i < seconds; i++) {
     write(M.RECORD, {
       timestamp: START + i,
@@ -66,12 +89,36 @@ export function encodeActivityWithGps(options: { seconds?: number; seed?: number
   const box = { necLat: LAT + 9000, necLong: LONG + 9000, swcLat: LAT - 9000, swcLong: LONG - 9000 };
   const ends = { startPositionLat: LAT, startPositionLong: LONG, endPositionLat: LAT + 1, endPositionLong: LONG + 1 };
   write(M.EVENT, { timestamp: START + seconds, event: 'timer', eventType: 'stopAll' });
-  write(M.SEGMENT_LAP, { messageIndex: 0, timestamp: START + seconds, startTime: START, ...ends, ...box, totalElapsedTime: seconds, name: 'Climb' });
-  write(M.LAP, { messageIndex: 0, timestamp: START + seconds, startTime: START, ...ends, ...box, totalElapsedTime: seconds, avgPower: 190 });
-  write(M.SESSION, { messageIndex: 0, timestamp: START + seconds, startTime: START, ...ends, ...box, sport: 'cycling', totalElapsedTime: seconds, avgPower: 190 });
+  write(M.SEGMENT_LAP, {
+    messageIndex: 0,
+    timestamp: START + seconds,
+    startTime: START,
+    ...ends,
+    ...box,
+    totalElapsedTime: seconds,
+    name: 'Climb',
+  });
+  write(M.LAP, {
+    messageIndex: 0,
+    timestamp: START + seconds,
+    startTime: START,
+    ...ends,
+    ...box,
+    totalElapsedTime: seconds,
+    avgPower: 190,
+  });
+  write(M.SESSION, {
+    messageIndex: 0,
+    timestamp: START + seconds,
+    startTime: START,
+    ...ends,
+    ...box,
+    sport: 'cycling',
+    totalElapsedTime: seconds,
+    avgPower: 190,
+  });
   write(M.ACTIVITY, { timestamp: START + seconds, numSessions: 1, type: 'manual', event: 'activity', eventType: 'stop' });
   return encoder.close();
-
 }
 
 /** The same file with a 12-byte header (no header CRC), as older devices write. */

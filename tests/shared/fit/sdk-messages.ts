@@ -12,7 +12,9 @@ export type ProfileMessage = { num: number; name: string; fields: Record<string,
 // Names of every coordinate field in the SDK's profile, as its Decoder spells them.
 const POSITION_NAMES = new Set(
   (Object.values(Profile.messages) as ProfileMessage[]).flatMap((m) =>
-    Object.values(m.fields).filter((f) => f.units === 'semicircles').map((f) => f.name),
+    Object.values(m.fields)
+      .filter((f) => f.units === 'semicircles')
+      .map((f) => f.name),
   ),
 );
 

@@ -55,7 +55,10 @@ describe('stripping location from a FIT file', () => {
   });
 
   it('when two files are chained, then both are stripped and each keeps a valid CRC', () => {
-    const original = chained(encodeActivityWithGps({ seconds: 60, seed: 1 }), withShortHeader(encodeActivityWithGps({ seconds: 90, seed: 2 })));
+    const original = chained(
+      encodeActivityWithGps({ seconds: 60, seed: 1 }),
+      withShortHeader(encodeActivityWithGps({ seconds: 90, seed: 2 })),
+    );
 
     const stripped = stripFitLocation(original);
 
@@ -75,7 +78,9 @@ describe('stripping location from a FIT file', () => {
     for (const offset of original.positionOffsets) {
       expect([...stripped.bytes.subarray(offset, offset + 4)]).toEqual([0x7f, 0xff, 0xff, 0xff]); // sint32 invalid, big-endian
     }
-    const changedElsewhere = [...original.bytes.keys()].filter((i) => i < crcStart && !positionBytes.has(i) && original.bytes[i] !== stripped.bytes[i]);
+    const changedElsewhere = [...original.bytes.keys()].filter(
+      (i) => i < crcStart && !positionBytes.has(i) && original.bytes[i] !== stripped.bytes[i],
+    );
     expect(changedElsewhere).toEqual([]);
     const view = new DataView(stripped.bytes.buffer, stripped.bytes.byteOffset);
     expect(view.getUint16(crcStart, true)).toBe(crc16Arc(stripped.bytes, 0, crcStart));

@@ -22,7 +22,10 @@ describe('names', () => {
 
   it.each([
     ['a maker proposal', () => proposeCatalogueEntryInput.safeParse({ type: 'maker', name: injected })],
-    ['a recording device proposal', () => proposeCatalogueEntryInput.safeParse({ type: 'recording_device', name: 'Unit\u0007Bell', kind: 'head_unit' })],
+    [
+      'a recording device proposal',
+      () => proposeCatalogueEntryInput.safeParse({ type: 'recording_device', name: 'Unit\u0007Bell', kind: 'head_unit' }),
+    ],
     ['a rename in curation', () => curateEntryInput.safeParse({ action: 'rename', name: injected })],
     ['a thread title', () => createThreadInput.safeParse({ title: 'Cadence drops\u0000 every minute', body: 'It drops.' })],
     ['a name with a DEL character', () => singleLineText().safeParse('Quill\u007fon')],

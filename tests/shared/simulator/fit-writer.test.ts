@@ -43,7 +43,12 @@ describe('encodeActivityFit', () => {
 
     const { messages } = decodeWithSdk(encodeActivityFit(recording, headUnit, { sensor }));
 
-    expect(messages.fileIdMesgs[0]).toMatchObject({ type: 4, manufacturer: DEVELOPMENT_MANUFACTURER_ID, product: 12, serialNumber: 40_001 });
+    expect(messages.fileIdMesgs[0]).toMatchObject({
+      type: 4,
+      manufacturer: DEVELOPMENT_MANUFACTURER_ID,
+      product: 12,
+      serialNumber: 40_001,
+    });
     expect(messages.deviceInfoMesgs).toHaveLength(2);
     expect(messages.deviceInfoMesgs[0]).toMatchObject({ deviceIndex: 0, softwareVersion: 4.25, productName: 'Test head unit' });
     expect(messages.deviceInfoMesgs[1]).toMatchObject({ deviceIndex: 1, antplusDeviceType: 11, product: 7, softwareVersion: 2.1 });

@@ -87,8 +87,23 @@ describe('simulatePair', () => {
       durationSeconds: 3600,
       startTime: START,
       profile: 'race',
-      a: { position: 'total', clockOffsetSeconds: 14, cadenceLagSeconds: 3, smoothingSeconds: 3, startOffsetSeconds: 120, powerDropoutsPerHour: 5, cadenceDropoutsPerHour: 3 },
-      b: { position: 'dual', clockOffsetSeconds: -2, cadenceLagSeconds: 1, endOffsetSeconds: 300, powerDropoutsPerHour: 3, recordingMode: 'change-only' },
+      a: {
+        position: 'total',
+        clockOffsetSeconds: 14,
+        cadenceLagSeconds: 3,
+        smoothingSeconds: 3,
+        startOffsetSeconds: 120,
+        powerDropoutsPerHour: 5,
+        cadenceDropoutsPerHour: 3,
+      },
+      b: {
+        position: 'dual',
+        clockOffsetSeconds: -2,
+        cadenceLagSeconds: 1,
+        endOffsetSeconds: 300,
+        powerDropoutsPerHour: 3,
+        recordingMode: 'change-only',
+      },
     };
 
     const pair = simulatePair(options);
@@ -123,7 +138,13 @@ describe('simulatePair', () => {
     let events = 0;
     let hours = 0;
     for (let seed = 1; seed <= 20; seed += 1) {
-      const pair = simulatePair({ seed, durationSeconds: 3600, startTime: START, a: { position: 'total', powerDropoutsPerHour: 6 }, b: { position: 'total' } });
+      const pair = simulatePair({
+        seed,
+        durationSeconds: 3600,
+        startTime: START,
+        a: { position: 'total', powerDropoutsPerHour: 6 },
+        b: { position: 'total' },
+      });
       events += pair.truth.dropouts.a.power;
       hours += pair.truth.pedallingSeconds / 3600;
     }

@@ -1,20 +1,50 @@
 import { describe, expect, it } from 'vitest';
-import { batteryLife, batteryLifeByFirmware, batteryPeriods, biasByTemperature, MIN_BATTERIES, type BatterySpan } from '@shared/statistics/battery-life';
+import { batteryLife, batteryLifeByFirmware, batteryPeriods, biasByTemperature, MIN_BATTERIES } from '@shared/statistics/battery-life';
 import { holmAdjust } from '@shared/statistics/multiple-comparisons';
 import { clusteredLogRankTest, type ClusteredObservation } from '@shared/statistics/survival';
 import { simulateBatteryCrowd, type BatteryCrowdOptions } from '@shared/simulator/battery-crowd';
 
 // survival::rats, the female rats (Mantel, Bohidar & Ciminera, Cancer Research 1977): litter is the
 // cluster. Printed by tests/shared/statistics/reference/clustered-logrank-rats.R.
-const litter = [1,1,1,3,3,3,5,5,5,7,7,7,9,9,9,11,11,11,13,13,13,15,15,15,17,17,17,19,19,19,21,21,21,23,23,23,25,25,25,27,27,27,29,29,29,31,31,31,33,33,33,35,35,35,37,37,37,39,39,39,41,41,41,43,43,43,45,45,45,47,47,47,49,49,49,51,51,51,53,53,53,55,55,55,57,57,57,59,59,59,61,61,61,63,63,63,65,65,65,67,67,67,69,69,69,71,71,71,73,73,73,75,75,75,77,77,77,79,79,79,81,81,81,83,83,83,85,85,85,87,87,87,89,89,89,91,91,91,93,93,93,95,95,95,97,97,97,99,99,99];
-const rx = [1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0,1,0,0];
-const time = [101,49,104,104,102,104,104,104,104,77,97,79,89,104,104,88,96,104,104,94,77,96,104,104,82,77,104,70,104,77,89,91,90,91,70,92,39,45,50,103,69,91,93,104,103,85,72,104,104,63,104,104,104,74,81,104,69,67,104,68,104,104,104,104,104,104,104,83,40,87,104,104,104,104,104,89,104,104,78,104,104,104,81,64,86,55,94,34,104,54,76,87,74,103,73,84,102,104,80,80,104,73,45,79,104,94,104,104,104,104,104,104,101,94,76,84,78,80,81,76,72,95,104,73,104,66,92,104,102,104,98,73,55,104,104,49,83,77,89,104,104,88,79,99,103,91,104,104,104,79];
-const status = [0,1,0,0,0,0,0,0,0,0,0,0,0,0,0,1,1,0,1,0,1,1,0,0,0,0,0,1,0,0,1,0,0,0,0,0,1,0,1,1,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,1,0,1,0,0,0,0,0,0,0,0,1,0,0,0,0,0,0,0,0,0,0,0,0,0,1,1,1,1,0,1,0,1,0,0,0,1,1,1,1,0,0,1,0,0,1,0,0,1,0,0,0,0,0,0,1,0,0,1,1,1,1,0,1,0,0,1,0,1,1,0,1,0,0,0,0,0,0,0,0,0,1,0,0,0,0,0,1,0,0,0,0,1];
+const litter = [
+  1, 1, 1, 3, 3, 3, 5, 5, 5, 7, 7, 7, 9, 9, 9, 11, 11, 11, 13, 13, 13, 15, 15, 15, 17, 17, 17, 19, 19, 19, 21, 21, 21, 23, 23, 23, 25, 25,
+  25, 27, 27, 27, 29, 29, 29, 31, 31, 31, 33, 33, 33, 35, 35, 35, 37, 37, 37, 39, 39, 39, 41, 41, 41, 43, 43, 43, 45, 45, 45, 47, 47, 47,
+  49, 49, 49, 51, 51, 51, 53, 53, 53, 55, 55, 55, 57, 57, 57, 59, 59, 59, 61, 61, 61, 63, 63, 63, 65, 65, 65, 67, 67, 67, 69, 69, 69, 71,
+  71, 71, 73, 73, 73, 75, 75, 75, 77, 77, 77, 79, 79, 79, 81, 81, 81, 83, 83, 83, 85, 85, 85, 87, 87, 87, 89, 89, 89, 91, 91, 91, 93, 93,
+  93, 95, 95, 95, 97, 97, 97, 99, 99, 99,
+];
+const rx = [
+  1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1,
+  0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0,
+  0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0,
+  1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0,
+];
+const time = [
+  101, 49, 104, 104, 102, 104, 104, 104, 104, 77, 97, 79, 89, 104, 104, 88, 96, 104, 104, 94, 77, 96, 104, 104, 82, 77, 104, 70, 104, 77,
+  89, 91, 90, 91, 70, 92, 39, 45, 50, 103, 69, 91, 93, 104, 103, 85, 72, 104, 104, 63, 104, 104, 104, 74, 81, 104, 69, 67, 104, 68, 104,
+  104, 104, 104, 104, 104, 104, 83, 40, 87, 104, 104, 104, 104, 104, 89, 104, 104, 78, 104, 104, 104, 81, 64, 86, 55, 94, 34, 104, 54, 76,
+  87, 74, 103, 73, 84, 102, 104, 80, 80, 104, 73, 45, 79, 104, 94, 104, 104, 104, 104, 104, 104, 101, 94, 76, 84, 78, 80, 81, 76, 72, 95,
+  104, 73, 104, 66, 92, 104, 102, 104, 98, 73, 55, 104, 104, 49, 83, 77, 89, 104, 104, 88, 79, 99, 103, 91, 104, 104, 104, 79,
+];
+const status = [
+  0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 1, 0, 1, 0, 1, 1, 0, 0, 0, 0, 0, 1, 0, 0, 1, 0, 0, 0, 0, 0, 1, 0, 1, 1, 0, 0, 0, 0, 0, 0,
+  0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 1, 1, 1, 0, 1, 0, 1, 0, 0,
+  0, 1, 1, 1, 1, 0, 0, 1, 0, 0, 1, 0, 0, 1, 0, 0, 0, 0, 0, 0, 1, 0, 0, 1, 1, 1, 1, 0, 1, 0, 0, 1, 0, 1, 1, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0,
+  1, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1,
+];
 
 describe('clusteredLogRankTest', () => {
   it('when litters are the clusters, then it matches R coxph(... + cluster(litter), ties = "breslow")$robscore', () => {
-    const rats: (ClusteredObservation & { rx: number })[] = time.map((t, i) => ({ time: t, event: status[i] === 1, cluster: litter[i]!, rx: rx[i]! }));
-    const test = clusteredLogRankTest(rats.filter((r) => r.rx === 0), rats.filter((r) => r.rx === 1));
+    const rats: (ClusteredObservation & { rx: number })[] = time.map((t, i) => ({
+      time: t,
+      event: status[i] === 1,
+      cluster: litter[i]!,
+      rx: rx[i]!,
+    }));
+    const test = clusteredLogRankTest(
+      rats.filter((r) => r.rx === 0),
+      rats.filter((r) => r.rx === 1),
+    );
     // Values from clustered-logrank-rats.R (R 4.x, survival package).
     expect(test.score).toBeCloseTo(8.5482627712, 8);
     expect(test.robustVariance).toBeCloseTo(9.5530012098, 8);
@@ -52,7 +82,8 @@ describe('batteryPeriods', () => {
   });
 });
 
-const crowd = (seed: number, options: Omit<BatteryCrowdOptions, 'shape'>) => simulateBatteryCrowd(seed, { ...options, medianHours: options.medianHours, shape: 1 });
+const crowd = (seed: number, options: Omit<BatteryCrowdOptions, 'shape'>) =>
+  simulateBatteryCrowd(seed, { ...options, medianHours: options.medianHours, shape: 1 });
 
 describe('batteryLife', () => {
   it('when fewer than the minimum batteries or riders are logged, then there is no median, only the counts', () => {
@@ -78,7 +109,12 @@ describe('batteryLife', () => {
 
   it('when fewer than half of the batteries have run flat, then the median is null and the longest time followed is given', () => {
     // Six riders, two batteries each: only the first rider's two have run flat (at 100 and 150 h), the rest still run at 200–300 h.
-    const spans = Array.from({ length: 12 }, (_, i) => ({ riderId: Math.floor(i / 2), firmwareId: 1, hours: i < 2 ? 100 + 50 * i : 200 + 10 * i, ended: i < 2 }));
+    const spans = Array.from({ length: 12 }, (_, i) => ({
+      riderId: Math.floor(i / 2),
+      firmwareId: 1,
+      hours: i < 2 ? 100 + 50 * i : 200 + 10 * i,
+      ended: i < 2,
+    }));
     const life = batteryLife(spans);
     expect(life.medianHours).toBeNull();
     expect(life.upperHours).toBeNull();
@@ -87,7 +123,11 @@ describe('batteryLife', () => {
 });
 
 describe('batteryLifeByFirmware', () => {
-  const firmware = [{ id: 1, version: '3.0' }, { id: 2, version: '3.1' }, { id: 3, version: '3.2' }];
+  const firmware = [
+    { id: 1, version: '3.0' },
+    { id: 2, version: '3.1' },
+    { id: 3, version: '3.2' },
+  ];
 
   it('when battery life halves with one version, then that step reads "run flat sooner" and the unchanged step reads "no clear difference"', () => {
     const spans = [
@@ -108,7 +148,9 @@ describe('batteryLifeByFirmware', () => {
     let falseVerdicts = 0;
     const histories = 60;
     for (let h = 0; h < histories; h++) {
-      const spans = firmware.flatMap((f) => crowd(100 + h * 10 + f.id, { riders: 8, batteriesPerRider: 3, medianHours: 300, firmwareId: f.id }));
+      const spans = firmware.flatMap((f) =>
+        crowd(100 + h * 10 + f.id, { riders: 8, batteriesPerRider: 3, medianHours: 300, firmwareId: f.id }),
+      );
       const steps = batteryLifeByFirmware(spans, firmware).slice(1);
       if (steps.some((s) => s.againstPredecessor!.verdict === 'better' || s.againstPredecessor!.verdict === 'worse')) falseVerdicts++;
     }

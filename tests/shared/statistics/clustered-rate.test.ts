@@ -4,10 +4,23 @@ import { poissonRate } from '../../../shared/statistics/poisson';
 
 // The rides of tests/shared/statistics/reference/rider-clustered.R: [rider, hours, dropouts].
 const firmwareA: [number, number, number][] = [
-  [1, 2, 3], [1, 1.5, 1], [2, 3, 0], [3, 1, 2], [3, 2, 6], [3, 1, 1], [4, 2.5, 1], [5, 1, 0], [5, 2, 2],
+  [1, 2, 3],
+  [1, 1.5, 1],
+  [2, 3, 0],
+  [3, 1, 2],
+  [3, 2, 6],
+  [3, 1, 1],
+  [4, 2.5, 1],
+  [5, 1, 0],
+  [5, 2, 2],
 ];
 const firmwareB: [number, number, number][] = [
-  [6, 2, 0], [6, 2, 1], [7, 3, 1], [8, 1.5, 0], [9, 2, 2], [9, 1, 0],
+  [6, 2, 0],
+  [6, 2, 1],
+  [7, 3, 1],
+  [8, 1.5, 0],
+  [9, 2, 2],
+  [9, 1, 0],
 ];
 
 /** The running sums a scope keeps, from the rides grouped by rider. */
@@ -19,7 +32,15 @@ function sumsOf(rides: [number, number, number][]): ClusteredRateSums {
     r.events += events;
     riders.set(rider, r);
   }
-  const sums = { events: 0, exposure: 0, clusters: riders.size, sumEventsSquared: 0, sumEventsExposure: 0, sumExposureSquared: 0, sumEventsSquaredPerExposure: 0 };
+  const sums = {
+    events: 0,
+    exposure: 0,
+    clusters: riders.size,
+    sumEventsSquared: 0,
+    sumEventsExposure: 0,
+    sumExposureSquared: 0,
+    sumEventsSquaredPerExposure: 0,
+  };
   for (const { hours, events } of riders.values()) {
     sums.events += events;
     sums.exposure += hours;
@@ -54,7 +75,11 @@ describe('rider-clustered dropout rates', () => {
 
   it('when every rider has the same rate, then the exact Poisson interval is shown and says so', () => {
     // Arrange: 2 dropouts per hour for each of three riders: no residuals at all.
-    const sums = sumsOf([[1, 1, 2], [2, 2, 4], [3, 1.5, 3]]);
+    const sums = sumsOf([
+      [1, 1, 2],
+      [2, 2, 4],
+      [3, 1.5, 3],
+    ]);
     // Act
     const rate = clusteredRate(sums);
     // Assert
@@ -63,8 +88,22 @@ describe('rider-clustered dropout rates', () => {
   });
 
   it('when there are no dropouts or one rider, then the exact interval is shown', () => {
-    expect(clusteredRate(sumsOf([[1, 2, 0], [2, 3, 0]])).method).toBe('poisson_exact');
-    expect(clusteredRate(sumsOf([[1, 2, 5], [1, 3, 0]])).method).toBe('poisson_exact');
+    expect(
+      clusteredRate(
+        sumsOf([
+          [1, 2, 0],
+          [2, 3, 0],
+        ]),
+      ).method,
+    ).toBe('poisson_exact');
+    expect(
+      clusteredRate(
+        sumsOf([
+          [1, 2, 5],
+          [1, 3, 0],
+        ]),
+      ).method,
+    ).toBe('poisson_exact');
   });
 
   it('when two firmware versions are compared, then the ratio takes the wider of the clustered and exact intervals and the larger p-value', () => {

@@ -66,7 +66,10 @@ describe('consensus offsets', () => {
 
     const fit = fitConsensusOffsets(edges);
 
-    expect(fit.components.map((c) => [c.comboCount, c.edgeCount])).toEqual([[3, 5], [4, 7]]);
+    expect(fit.components.map((c) => [c.comboCount, c.edgeCount])).toEqual([
+      [3, 5],
+      [4, 7],
+    ]);
     for (const offset of fit.offsets) {
       expect(offset.component).toBe(offset.comboId in first ? 0 : 1);
       expect(offset.offsetLog).toBeCloseTo(expected[offset.comboId as keyof typeof expected], 12);

@@ -57,7 +57,12 @@ describe('quantiles', () => {
       for (const shape of [0.3, 1, 5.5, 200, 1e5]) {
         expect(relativeError(regularizedGammaP(shape, gammaQuantile(p, shape)), p)).toBeLessThan(1e-9);
       }
-      for (const [a, b] of [[0.5, 0.5], [1, 40], [11, 22], [500, 3]]) {
+      for (const [a, b] of [
+        [0.5, 0.5],
+        [1, 40],
+        [11, 22],
+        [500, 3],
+      ]) {
         expect(relativeError(regularizedBeta(betaQuantile(p, a, b), a, b), p)).toBeLessThan(1e-9);
       }
       for (const df of [1, 3.7, 30, 5000]) {

@@ -63,6 +63,11 @@ describe('pooled limits of agreement', () => {
 
   it('when there is a single submission or no within-submission spread to estimate, then there are no pooled limits', () => {
     expect(pooledAgreement([{ meanDifference: 1, sd: 2, blockCount: 20 }])).toBeNull();
-    expect(pooledAgreement([{ meanDifference: 1, sd: null, blockCount: 1 }, { meanDifference: 2, sd: null, blockCount: 1 }])).toBeNull();
+    expect(
+      pooledAgreement([
+        { meanDifference: 1, sd: null, blockCount: 1 },
+        { meanDifference: 2, sd: null, blockCount: 1 },
+      ]),
+    ).toBeNull();
   });
 });

@@ -18,9 +18,7 @@ const record = (biasPercent: number, pedallingHours: number, riderId: string): B
 
 function randomRecords(seed: number, count: number): BiasRecord[] {
   const random = createRandom(seed);
-  return Array.from({ length: count }, () =>
-    record(1.5 + 0.8 * random.normal(), random.uniform(0.3, 7), `rider-${random.integer(1, 6)}`),
-  );
+  return Array.from({ length: count }, () => record(1.5 + 0.8 * random.normal(), random.uniform(0.3, 7), `rider-${random.integer(1, 6)}`));
 }
 
 function enough(summary: BiasSummary): Extract<BiasSummary, { enough: true }> {

@@ -37,7 +37,11 @@ export function AccountSettingsForm({ me }: { me: CurrentUser }) {
       <fieldset className="space-y-2">
         <legend className="mb-1 font-medium">E-mail me when…</legend>
         <label className="flex items-center gap-2">
-          <input type="checkbox" checked={prefs.emailOnDecision} onChange={(e) => setPrefs({ ...prefs, emailOnDecision: e.target.checked })} />
+          <input
+            type="checkbox"
+            checked={prefs.emailOnDecision}
+            onChange={(e) => setPrefs({ ...prefs, emailOnDecision: e.target.checked })}
+          />
           a moderator accepts or rejects one of my submissions
         </label>
         <label className="flex items-center gap-2">
@@ -51,7 +55,11 @@ export function AccountSettingsForm({ me }: { me: CurrentUser }) {
         </p>
       )}
       <div className="flex items-center gap-3">
-        <button type="submit" disabled={update.isPending} className="rounded-full bg-fjord-700 px-5 py-2 font-medium text-paper hover:bg-fjord-900 disabled:opacity-60">
+        <button
+          type="submit"
+          disabled={update.isPending}
+          className="rounded-full bg-fjord-700 px-5 py-2 font-medium text-paper hover:bg-fjord-900 disabled:opacity-60"
+        >
           Save
         </button>
         {update.isSuccess && !problem && (

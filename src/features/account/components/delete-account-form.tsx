@@ -16,8 +16,8 @@ export function DeleteAccountForm({ handle }: { handle: string }) {
   return (
     <form onSubmit={submit} className="space-y-3">
       <p className="text-ink-soft">
-        Your name, handle and e-mail address are removed and you are signed out. The statistics from your submissions stay
-        in the pooled figures, no longer linked to you, and your posts show “deleted rider”. This cannot be undone.
+        Your name, handle and e-mail address are removed and you are signed out. The statistics from your submissions stay in the pooled
+        figures, no longer linked to you, and your posts show “deleted rider”. This cannot be undone.
       </p>
       <label htmlFor="confirm-handle" className="block font-medium">
         Type your handle, <span className="font-semibold">{handle}</span>, to confirm

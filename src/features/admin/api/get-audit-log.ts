@@ -7,7 +7,12 @@ export function getAuditLog(page: number): Promise<AuditLog> {
 }
 
 export function getAuditLogQueryOptions(page = 1) {
-  return queryOptions({ queryKey: ['admin', 'audit-log', page], queryFn: () => getAuditLog(page), placeholderData: keepPreviousData, staleTime: 0 });
+  return queryOptions({
+    queryKey: ['admin', 'audit-log', page],
+    queryFn: () => getAuditLog(page),
+    placeholderData: keepPreviousData,
+    staleTime: 0,
+  });
 }
 
 export function useAuditLog(page: number) {

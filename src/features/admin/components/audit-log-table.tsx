@@ -13,8 +13,18 @@ function describeChange(entry: AuditEntry): string {
 export function AuditLogTable() {
   const [page, setPage] = useState(1);
   const log = useAuditLog(page);
-  if (log.isPending) return <p role="status" className="text-ink-soft">Loading the audit log…</p>;
-  if (log.isError) return <p role="alert" className="text-alert-800">Could not load the audit log: {log.error.message}</p>;
+  if (log.isPending)
+    return (
+      <p role="status" className="text-ink-soft">
+        Loading the audit log…
+      </p>
+    );
+  if (log.isError)
+    return (
+      <p role="alert" className="text-alert-800">
+        Could not load the audit log: {log.error.message}
+      </p>
+    );
   const pages = Math.max(1, Math.ceil(log.data.total / log.data.pageSize));
   return (
     <div className="space-y-4">
@@ -22,12 +32,24 @@ export function AuditLogTable() {
         <table className="w-full text-left text-caption">
           <thead className="bg-paper-deep text-ink-soft">
             <tr>
-              <th scope="col" className="px-4 py-2 font-semibold">When</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Who</th>
-              <th scope="col" className="px-4 py-2 font-semibold">What</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Subject</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Change</th>
-              <th scope="col" className="px-4 py-2 font-semibold">Reason</th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                When
+              </th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                Who
+              </th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                What
+              </th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                Subject
+              </th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                Change
+              </th>
+              <th scope="col" className="px-4 py-2 font-semibold">
+                Reason
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -47,11 +69,23 @@ export function AuditLogTable() {
         </table>
       </div>
       <nav aria-label="Pages of the audit log" className="flex items-center gap-3">
-        <button type="button" disabled={page <= 1} onClick={() => setPage(page - 1)} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+        <button
+          type="button"
+          disabled={page <= 1}
+          onClick={() => setPage(page - 1)}
+          className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+        >
           Newer
         </button>
-        <span className="text-caption text-ink-soft">Page {page} of {pages}</span>
-        <button type="button" disabled={page >= pages} onClick={() => setPage(page + 1)} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+        <span className="text-caption text-ink-soft">
+          Page {page} of {pages}
+        </span>
+        <button
+          type="button"
+          disabled={page >= pages}
+          onClick={() => setPage(page + 1)}
+          className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+        >
           Older
         </button>
       </nav>

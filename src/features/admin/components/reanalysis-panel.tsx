@@ -14,8 +14,18 @@ export function ReanalysisPanel() {
   const [fromOriginals, setFromOriginals] = useState(false);
   const confirmId = useId();
 
-  if (overview.isPending) return <p className="text-ink-soft" role="status">Loading the re-analysis runs…</p>;
-  if (overview.isError) return <p className="text-alert-800" role="alert">Could not load the re-analysis runs: {overview.error.message}</p>;
+  if (overview.isPending)
+    return (
+      <p className="text-ink-soft" role="status">
+        Loading the re-analysis runs…
+      </p>
+    );
+  if (overview.isError)
+    return (
+      <p className="text-alert-800" role="alert">
+        Could not load the re-analysis runs: {overview.error.message}
+      </p>
+    );
   const { currentMethodVersion, outdatedSubmissions, runs } = overview.data;
   const latest = runs[0];
   const running = latest?.status === 'running';
@@ -50,7 +60,11 @@ export function ReanalysisPanel() {
           </button>
         )}
         {confirming && (
-          <div role="alertdialog" aria-labelledby={`${confirmId}-confirm`} className="max-w-2xl space-y-3 rounded-card border border-caution-600 bg-caution-100 p-4">
+          <div
+            role="alertdialog"
+            aria-labelledby={`${confirmId}-confirm`}
+            className="max-w-2xl space-y-3 rounded-card border border-caution-600 bg-caution-100 p-4"
+          >
             <p id={`${confirmId}-confirm`} className="font-semibold text-ink">
               Re-analyse {outdatedSubmissions} {outdatedSubmissions === 1 ? 'ride' : 'rides'} with method {currentMethodVersion}?
             </p>
@@ -61,14 +75,28 @@ export function ReanalysisPanel() {
             </ul>
             <label className="flex items-start gap-2 text-ink">
               <input type="checkbox" className="mt-1" checked={fromOriginals} onChange={(e) => setFromOriginals(e.target.checked)} />
-              <span>Also decode the kept original files again where an older decoder read them (rides uploaded before originals were kept keep their streams).</span>
+              <span>
+                Also decode the kept original files again where an older decoder read them (rides uploaded before originals were kept keep
+                their streams).
+              </span>
             </label>
             <div className="flex flex-wrap gap-2">
-              {/* biome-ignore lint/a11y/noAutofocus: the confirmation step replaces the button just pressed, so focus moves to its first action */}
-              <button type="button" autoFocus disabled={start.isPending} onClick={confirm} className="rounded-full bg-alert-600 px-4 py-2 font-semibold text-white hover:bg-alert-800 disabled:opacity-60">
+              <button
+                type="button"
+                // biome-ignore lint/a11y/noAutofocus: the confirmation step replaces the button just pressed, so focus moves to its first action
+                autoFocus
+                disabled={start.isPending}
+                onClick={confirm}
+                className="rounded-full bg-alert-600 px-4 py-2 font-semibold text-white hover:bg-alert-800 disabled:opacity-60"
+              >
                 {start.isPending ? 'Starting…' : 'Start the re-analysis'}
               </button>
-              <button type="button" disabled={start.isPending} onClick={() => setConfirming(false)} className="rounded-full px-4 py-2 font-medium text-fjord-700 hover:bg-paper-deep">
+              <button
+                type="button"
+                disabled={start.isPending}
+                onClick={() => setConfirming(false)}
+                className="rounded-full px-4 py-2 font-medium text-fjord-700 hover:bg-paper-deep"
+              >
                 Cancel
               </button>
             </div>
@@ -139,8 +167,9 @@ function EarlierRuns({ runs }: { runs: ReanalysisRunView[] }) {
       <ul className="space-y-1 text-caption text-ink-soft">
         {runs.map((run) => (
           <li key={run.id}>
-            Run {run.id}, method {run.methodVersion}: {STATUS_WORDS[run.status].toLowerCase()} {formatDayAndTime(run.finishedAt ?? run.startedAt)} — {run.done} of {run.total} re-analysed,{' '}
-            {run.failed} failed, {run.sentBack} sent back
+            Run {run.id}, method {run.methodVersion}: {STATUS_WORDS[run.status].toLowerCase()}{' '}
+            {formatDayAndTime(run.finishedAt ?? run.startedAt)} — {run.done} of {run.total} re-analysed, {run.failed} failed, {run.sentBack}{' '}
+            sent back
           </li>
         ))}
       </ul>

@@ -27,24 +27,33 @@ export function UsersTable() {
   return (
     <div className="space-y-4">
       <search>
-    <form onSubmit={search} className="flex flex-wrap items-end gap-2">
-        <div>
-          <label htmlFor="user-search" className="mb-1 block text-caption font-medium text-ink-soft">
-            Search by name, handle or e-mail
-          </label>
-          <input id="user-search" value={draft} onChange={(e) => setDraft(e.target.value)} className="w-72 rounded-lg border border-paper-line bg-white px-3 py-2" />
-        </div>
-        <button type="submit" className="rounded-full bg-fjord-700 px-4 py-2 font-medium text-paper hover:bg-fjord-900">
-          Search
-        </button>
-      </form>
-    </search>
+        <form onSubmit={search} className="flex flex-wrap items-end gap-2">
+          <div>
+            <label htmlFor="user-search" className="mb-1 block text-caption font-medium text-ink-soft">
+              Search by name, handle or e-mail
+            </label>
+            <input
+              id="user-search"
+              value={draft}
+              onChange={(e) => setDraft(e.target.value)}
+              className="w-72 rounded-lg border border-paper-line bg-white px-3 py-2"
+            />
+          </div>
+          <button type="submit" className="rounded-full bg-fjord-700 px-4 py-2 font-medium text-paper hover:bg-fjord-900">
+            Search
+          </button>
+        </form>
+      </search>
       {problem && (
         <p role="alert" className="rounded-lg bg-alert-100 px-3 py-2 text-caption font-medium text-alert-800">
           {problem}
         </p>
       )}
-      {users.isError && <p role="alert" className="text-alert-800">Could not load people: {users.error.message}</p>}
+      {users.isError && (
+        <p role="alert" className="text-alert-800">
+          Could not load people: {users.error.message}
+        </p>
+      )}
       {users.data && (
         <>
           <p className="text-caption text-ink-soft" role="status">
@@ -55,12 +64,20 @@ export function UsersTable() {
             <table className="w-full text-left text-caption">
               <thead className="bg-paper-deep text-ink-soft">
                 <tr>
-                  <th scope="col" className="px-4 py-2 font-semibold">Person</th>
+                  <th scope="col" className="px-4 py-2 font-semibold">
+                    Person
+                  </th>
                   {GRANTABLE_ROLES.map((role) => (
-                    <th key={role} scope="col" className="px-4 py-2 font-semibold capitalize">{role}</th>
+                    <th key={role} scope="col" className="px-4 py-2 font-semibold capitalize">
+                      {role}
+                    </th>
                   ))}
-                  <th scope="col" className="px-4 py-2 font-semibold">Verified staff of</th>
-                  <th scope="col" className="px-4 py-2 font-semibold">Joined</th>
+                  <th scope="col" className="px-4 py-2 font-semibold">
+                    Verified staff of
+                  </th>
+                  <th scope="col" className="px-4 py-2 font-semibold">
+                    Joined
+                  </th>
                 </tr>
               </thead>
               <tbody>
@@ -78,11 +95,23 @@ export function UsersTable() {
             </table>
           </div>
           <nav aria-label="Pages of people" className="flex items-center gap-3">
-            <button type="button" disabled={query.page <= 1} onClick={() => setQuery({ ...query, page: query.page - 1 })} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+            <button
+              type="button"
+              disabled={query.page <= 1}
+              onClick={() => setQuery({ ...query, page: query.page - 1 })}
+              className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+            >
               Previous
             </button>
-            <span className="text-caption text-ink-soft">Page {query.page} of {pages}</span>
-            <button type="button" disabled={query.page >= pages} onClick={() => setQuery({ ...query, page: query.page + 1 })} className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40">
+            <span className="text-caption text-ink-soft">
+              Page {query.page} of {pages}
+            </span>
+            <button
+              type="button"
+              disabled={query.page >= pages}
+              onClick={() => setQuery({ ...query, page: query.page + 1 })}
+              className="rounded-full border border-paper-line px-3 py-1 disabled:opacity-40"
+            >
               Next
             </button>
           </nav>
@@ -109,7 +138,9 @@ function UserRow({
   return (
     <tr className="border-t border-paper-line align-middle">
       <th scope="row" className="px-4 py-2 font-normal">
-        <span className={`block font-medium ${user.deleted ? 'italic text-ink-faint' : 'text-ink'}`}>{user.deleted ? 'deleted rider' : user.name}</span>
+        <span className={`block font-medium ${user.deleted ? 'italic text-ink-faint' : 'text-ink'}`}>
+          {user.deleted ? 'deleted rider' : user.name}
+        </span>
         {!user.deleted && (
           <span className="text-ink-faint">
             @{user.handle}

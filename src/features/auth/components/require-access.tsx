@@ -11,8 +11,18 @@ import { SignInPrompt } from './sign-in-prompt';
  */
 export function RequireAccess({ roles, children }: { roles?: Role[]; children: (me: CurrentUser) => ReactNode }) {
   const me = useMe();
-  if (me.isPending) return <p className="py-10 text-ink-soft" role="status">Checking who you are…</p>;
-  if (me.isError) return <p className="py-10 text-alert-800" role="alert">We could not check your account: {me.error.message}</p>;
+  if (me.isPending)
+    return (
+      <p className="py-10 text-ink-soft" role="status">
+        Checking who you are…
+      </p>
+    );
+  if (me.isError)
+    return (
+      <p className="py-10 text-alert-800" role="alert">
+        We could not check your account: {me.error.message}
+      </p>
+    );
   if (!me.data) return <SignInPrompt />;
   if (roles && !roles.some((role) => me.data!.roles.includes(role))) {
     return <NotAllowed message={`This page is for ${roles.join(' or ')}s.`} />;

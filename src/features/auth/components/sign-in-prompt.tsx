@@ -7,7 +7,9 @@ export function SignInPrompt({ reason = 'You need to be signed in to see this pa
   return (
     <section aria-labelledby="sign-in-needed" className="max-w-xl space-y-4 py-10">
       <p className="text-caption font-semibold uppercase tracking-widest text-ember-700">Sign-in needed</p>
-      <h1 id="sign-in-needed" className="text-title font-semibold">Sign in to continue</h1>
+      <h1 id="sign-in-needed" className="text-title font-semibold">
+        Sign in to continue
+      </h1>
       <p className="text-ink-soft">{reason} Browsing the figures never needs an account.</p>
       <a
         href={signInUrl(location.pathname + location.search)}

@@ -10,21 +10,35 @@ export function DropoutBreakdown({ rows }: { rows: DropoutBreakdownRow[] }) {
         <caption className="sr-only">Power dropouts split by the rides' tags, each against all other rides</caption>
         <thead className="border-b border-paper-line bg-paper-deep/60 text-caption uppercase tracking-wide text-ink-soft">
           <tr>
-            <th scope="col" className="px-4 py-3">Rides tagged</th>
-            <th scope="col" className="px-4 py-3">Rides · hours</th>
-            <th scope="col" className="px-4 py-3">Power dropouts (95 %)</th>
-            <th scope="col" className="px-4 py-3">Rate ratio vs the rest</th>
+            <th scope="col" className="px-4 py-3">
+              Rides tagged
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Rides · hours
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Power dropouts (95 %)
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Rate ratio vs the rest
+            </th>
           </tr>
         </thead>
         <tbody>
           {rows.map((row) => (
             <tr key={`${row.tag}:${row.value}`} className="border-b border-paper-line/70 last:border-0">
-              <th scope="row" className="px-4 py-2 font-normal">{row.label}</th>
+              <th scope="row" className="px-4 py-2 font-normal">
+                {row.label}
+              </th>
               <td className="px-4 py-2 tabular-nums">
                 {row.submissionCount} · {hours(row.pedallingHours)}
               </td>
               <td className="px-4 py-2 tabular-nums">
-                {row.powerDropouts ? `${perHour(row.powerDropouts.perHour)} (${row.powerDropouts.lower.toFixed(2)} to ${row.powerDropouts.upper.toFixed(2)})` : <NotEnoughData />}
+                {row.powerDropouts ? (
+                  `${perHour(row.powerDropouts.perHour)} (${row.powerDropouts.lower.toFixed(2)} to ${row.powerDropouts.upper.toFixed(2)})`
+                ) : (
+                  <NotEnoughData />
+                )}
               </td>
               <td className="px-4 py-2 tabular-nums">
                 {row.againstRest ? (

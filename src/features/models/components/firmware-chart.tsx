@@ -14,7 +14,23 @@ interface Point {
   upper: number;
 }
 
-function Panel({ title, unit, points, labels, top, zeroLine, tone }: { title: string; unit: string; points: (Point | null)[]; labels: string[]; top: number; zeroLine: boolean; tone: 'ember' | 'fjord' }) {
+function Panel({
+  title,
+  unit,
+  points,
+  labels,
+  top,
+  zeroLine,
+  tone,
+}: {
+  title: string;
+  unit: string;
+  points: (Point | null)[];
+  labels: string[];
+  top: number;
+  zeroLine: boolean;
+  tone: 'ember' | 'fjord';
+}) {
   const known = points.filter((p): p is Point => p !== null);
   let min = Math.min(zeroLine ? 0 : 0, ...known.map((p) => p.lower));
   let max = Math.max(zeroLine ? 0 : 0.1, ...known.map((p) => p.upper));
@@ -41,11 +57,22 @@ function Panel({ title, unit, points, labels, top, zeroLine, tone }: { title: st
           </text>
         </g>
       ))}
-      {zeroLine && <line x1={LEFT} x2={WIDTH - RIGHT} y1={y(0)} y2={y(0)} className="stroke-ink-faint" strokeDasharray="3 3" strokeWidth="1" />}
+      {zeroLine && (
+        <line x1={LEFT} x2={WIDTH - RIGHT} y1={y(0)} y2={y(0)} className="stroke-ink-faint" strokeDasharray="3 3" strokeWidth="1" />
+      )}
       {points.map((point, i) =>
         point ? (
           <g key={labels[i]}>
-            <line x1={x(i)} x2={x(i)} y1={y(point.lower)} y2={y(point.upper)} className={stroke} strokeWidth="6" strokeLinecap="round" opacity="0.35" />
+            <line
+              x1={x(i)}
+              x2={x(i)}
+              y1={y(point.lower)}
+              y2={y(point.upper)}
+              className={stroke}
+              strokeWidth="6"
+              strokeLinecap="round"
+              opacity="0.35"
+            />
             <circle cx={x(i)} cy={y(point.value)} r="4.5" className={fill} />
           </g>
         ) : (
@@ -60,8 +87,11 @@ function Panel({ title, unit, points, labels, top, zeroLine, tone }: { title: st
 
 export function FirmwareChart({ firmware }: { firmware: FirmwareSummary[] }) {
   const labels = firmware.map((f) => f.version);
-  const bias = firmware.map((f) => (f.figures.bias ? { value: f.figures.bias.meanPercent, lower: f.figures.bias.lowerPercent, upper: f.figures.bias.upperPercent } : null));
-  const rate = (figure: FirmwareSummary['figures']['powerDropouts']) => (figure ? { value: figure.perHour, lower: figure.lower, upper: figure.upper } : null);
+  const bias = firmware.map((f) =>
+    f.figures.bias ? { value: f.figures.bias.meanPercent, lower: f.figures.bias.lowerPercent, upper: f.figures.bias.upperPercent } : null,
+  );
+  const rate = (figure: FirmwareSummary['figures']['powerDropouts']) =>
+    figure ? { value: figure.perHour, lower: figure.lower, upper: figure.upper } : null;
   const powerDropouts = firmware.map((f) => rate(f.figures.powerDropouts));
   const cadenceDropouts = firmware.map((f) => rate(f.figures.cadenceDropouts));
   const step = (WIDTH - LEFT - RIGHT) / Math.max(1, labels.length);
@@ -71,17 +101,40 @@ export function FirmwareChart({ firmware }: { firmware: FirmwareSummary[] }) {
     .join('; ');
   return (
     <figure className="rounded-card border border-paper-line bg-white p-4 shadow-card">
-      <svg viewBox={`0 0 ${WIDTH} ${height}`} className="w-full" role="img" aria-label={`Bias, power and cadence dropouts by firmware version. ${summary}`}>
+      <svg
+        viewBox={`0 0 ${WIDTH} ${height}`}
+        className="w-full"
+        role="img"
+        aria-label={`Bias, power and cadence dropouts by firmware version. ${summary}`}
+      >
         <Panel title="Bias against partners" unit=" %" points={bias} labels={labels} top={0} zeroLine tone="ember" />
-        <Panel title="Power dropouts per hour" unit="" points={powerDropouts} labels={labels} top={PANEL + 10} zeroLine={false} tone="fjord" />
-        <Panel title="Cadence dropouts per hour" unit="" points={cadenceDropouts} labels={labels} top={2 * (PANEL + 10)} zeroLine={false} tone="fjord" />
+        <Panel
+          title="Power dropouts per hour"
+          unit=""
+          points={powerDropouts}
+          labels={labels}
+          top={PANEL + 10}
+          zeroLine={false}
+          tone="fjord"
+        />
+        <Panel
+          title="Cadence dropouts per hour"
+          unit=""
+          points={cadenceDropouts}
+          labels={labels}
+          top={2 * (PANEL + 10)}
+          zeroLine={false}
+          tone="fjord"
+        />
         {labels.map((label, i) => (
           <text key={label} x={LEFT + step * (i + 0.5)} y={height - 6} textAnchor="middle" className="fill-ink-soft text-[11px]">
             {label}
           </text>
         ))}
       </svg>
-      <figcaption className="mt-2 text-caption text-ink-soft">Dots are the estimates, bars their 95 % intervals. Firmware in release order.</figcaption>
+      <figcaption className="mt-2 text-caption text-ink-soft">
+        Dots are the estimates, bars their 95 % intervals. Firmware in release order.
+      </figcaption>
     </figure>
   );
 }

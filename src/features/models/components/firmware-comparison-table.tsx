@@ -10,13 +10,27 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
         <caption className="sr-only">Each firmware version against its predecessor</caption>
         <thead className="border-b border-paper-line bg-paper-deep/60 text-caption uppercase tracking-wide text-ink-soft">
           <tr>
-            <th scope="col" className="px-4 py-3">Firmware</th>
-            <th scope="col" className="px-4 py-3">Rides</th>
-            <th scope="col" className="px-4 py-3">Bias (95 %)</th>
-            <th scope="col" className="px-4 py-3">Power dropouts</th>
-            <th scope="col" className="px-4 py-3">Dropouts vs previous</th>
-            <th scope="col" className="px-4 py-3">Bias change vs previous</th>
-            <th scope="col" className="px-4 py-3">Verdict</th>
+            <th scope="col" className="px-4 py-3">
+              Firmware
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Rides
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Bias (95 %)
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Power dropouts
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Dropouts vs previous
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Bias change vs previous
+            </th>
+            <th scope="col" className="px-4 py-3">
+              Verdict
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -32,10 +46,20 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
                   {f.releasedOn && <div className="text-caption text-ink-faint">released {f.releasedOn}</div>}
                 </th>
                 <td className="px-4 py-3 tabular-nums">{f.figures.evidence.submissionCount}</td>
-                <td className="px-4 py-3 tabular-nums">{f.figures.bias ? percentPlusMinus(f.figures.bias.meanPercent, f.figures.bias.lowerPercent, f.figures.bias.upperPercent) : <NotEnoughData riders />}</td>
-                <td className="px-4 py-3 tabular-nums">{f.figures.powerDropouts ? perHour(f.figures.powerDropouts.perHour) : <NotEnoughData riders />}</td>
                 <td className="px-4 py-3 tabular-nums">
-                  {!c ? '—' : c.powerDropoutRatio ? (
+                  {f.figures.bias ? (
+                    percentPlusMinus(f.figures.bias.meanPercent, f.figures.bias.lowerPercent, f.figures.bias.upperPercent)
+                  ) : (
+                    <NotEnoughData riders />
+                  )}
+                </td>
+                <td className="px-4 py-3 tabular-nums">
+                  {f.figures.powerDropouts ? perHour(f.figures.powerDropouts.perHour) : <NotEnoughData riders />}
+                </td>
+                <td className="px-4 py-3 tabular-nums">
+                  {!c ? (
+                    '—'
+                  ) : c.powerDropoutRatio ? (
                     <>
                       {ratio(c.powerDropoutRatio.ratio, c.powerDropoutRatio.lower, c.powerDropoutRatio.upper)}
                       <div className="text-caption text-ink-faint">
@@ -48,9 +72,12 @@ export function FirmwareComparisonTable({ modelSlug, firmware }: { modelSlug: st
                   )}
                 </td>
                 <td className="px-4 py-3 tabular-nums">
-                  {!c ? '—' : c.biasDifference ? (
+                  {!c ? (
+                    '—'
+                  ) : c.biasDifference ? (
                     <>
-                      {signedPercent(c.biasDifference.differencePercent)} ({plain(c.biasDifference.lowerPercent, 1)} to {plain(c.biasDifference.upperPercent, 1)})
+                      {signedPercent(c.biasDifference.differencePercent)} ({plain(c.biasDifference.lowerPercent, 1)} to{' '}
+                      {plain(c.biasDifference.upperPercent, 1)})
                       <div className="text-caption text-ink-faint">
                         vs {c.from}, Welch {pValue(c.biasDifference.pValue)}
                         {c.biasDifference.adjustedPValue !== null && <>, adjusted {pValue(c.biasDifference.adjustedPValue)}</>}

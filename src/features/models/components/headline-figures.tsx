@@ -33,7 +33,14 @@ export function HeadlineFigures({
       <Figure label="Evidence" note={`${Math.round(evidence.likeForLikeShare * 100)} % like-for-like comparisons`}>
         {evidence.submissionCount} rides · {evidence.distinctRiders} riders · {hours(evidence.pedallingHours)}
       </Figure>
-      <Figure label="Bias against partners" note={bias ? `95 % interval over ${bias.riders} riders ${percentRange(bias.lowerPercent, bias.upperPercent)}; median ${bias.medianPercent === null ? '—' : signedPercent(bias.medianPercent)}` : undefined}>
+      <Figure
+        label="Bias against partners"
+        note={
+          bias
+            ? `95 % interval over ${bias.riders} riders ${percentRange(bias.lowerPercent, bias.upperPercent)}; median ${bias.medianPercent === null ? '—' : signedPercent(bias.medianPercent)}`
+            : undefined
+        }
+      >
         {bias ? (
           <span className="flex flex-col gap-1.5">
             <span className="whitespace-nowrap">{percentPlusMinus(bias.meanPercent, bias.lowerPercent, bias.upperPercent)}</span>
@@ -43,13 +50,32 @@ export function HeadlineFigures({
           <NotEnoughData riders />
         )}
       </Figure>
-      <Figure label="Ride-to-ride scatter" note={agreement ? `Pooled limits of agreement ${percentRange(agreement.lowerPercent, agreement.upperPercent)} (30 s blocks)` : undefined}>
+      <Figure
+        label="Ride-to-ride scatter"
+        note={
+          agreement ? `Pooled limits of agreement ${percentRange(agreement.lowerPercent, agreement.upperPercent)} (30 s blocks)` : undefined
+        }
+      >
         {bias ? `${bias.scatterPercent.toFixed(1)} % SD` : <NotEnoughData riders />}
       </Figure>
-      <Figure label="Power dropouts" note={powerDropouts ? `${powerDropouts.events} events; 95 % interval ${powerDropouts.lower.toFixed(2)} to ${powerDropouts.upper.toFixed(2)} /h${rateMethodNote(powerDropouts.method)}` : undefined}>
+      <Figure
+        label="Power dropouts"
+        note={
+          powerDropouts
+            ? `${powerDropouts.events} events; 95 % interval ${powerDropouts.lower.toFixed(2)} to ${powerDropouts.upper.toFixed(2)} /h${rateMethodNote(powerDropouts.method)}`
+            : undefined
+        }
+      >
         {powerDropouts ? perHour(powerDropouts.perHour) : <NotEnoughData riders />}
       </Figure>
-      <Figure label="Cadence dropouts" note={cadenceDropouts ? `95 % interval ${cadenceDropouts.lower.toFixed(2)} to ${cadenceDropouts.upper.toFixed(2)} /h${rateMethodNote(cadenceDropouts.method)}` : undefined}>
+      <Figure
+        label="Cadence dropouts"
+        note={
+          cadenceDropouts
+            ? `95 % interval ${cadenceDropouts.lower.toFixed(2)} to ${cadenceDropouts.upper.toFixed(2)} /h${rateMethodNote(cadenceDropouts.method)}`
+            : undefined
+        }
+      >
         {cadenceDropouts ? perHour(cadenceDropouts.perHour) : <NotEnoughData riders />}
       </Figure>
       <Figure label="Cadence lag (median)" note="Positive: this meter's cadence arrives later than its partner's.">
@@ -57,9 +83,17 @@ export function HeadlineFigures({
       </Figure>
       <Figure
         label="Sprints against partners"
-        note={sprints?.meanRiseSecondsVsPartner != null ? `Reaches 80 % of its peak ${seconds(sprints.meanRiseSecondsVsPartner)} relative to the partner` : undefined}
+        note={
+          sprints?.meanRiseSecondsVsPartner != null
+            ? `Reaches 80 % of its peak ${seconds(sprints.meanRiseSecondsVsPartner)} relative to the partner`
+            : undefined
+        }
       >
-        {sprints?.meanPeakPercent != null ? `${signedPercent(sprints.meanPeakPercent)} peak over ${sprints.count} sprints` : <NotEnoughData />}
+        {sprints?.meanPeakPercent != null ? (
+          `${signedPercent(sprints.meanPeakPercent)} peak over ${sprints.count} sprints`
+        ) : (
+          <NotEnoughData />
+        )}
       </Figure>
       {consensus !== undefined && (
         <Figure
@@ -82,4 +116,5 @@ export function HeadlineFigures({
 }
 
 /** Says which interval a rate shows (see the methodology page). */
-const rateMethodNote = (method: 'rider_clustered' | 'poisson_exact') => (method === 'rider_clustered' ? ', widened because riders differ' : ', exact Poisson');
+const rateMethodNote = (method: 'rider_clustered' | 'poisson_exact') =>
+  method === 'rider_clustered' ? ', widened because riders differ' : ', exact Poisson';

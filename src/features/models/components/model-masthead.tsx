@@ -2,15 +2,28 @@ import { Link } from 'react-router-dom';
 import { MODEL_KIND_LABELS } from '@shared/schemas/catalogue';
 import type { ModelHeader } from '@shared/schemas/statistics';
 
-export function ModelMasthead({ model, note, firmware }: { model: ModelHeader; note: { body: string; pinnedAt: string } | null; firmware?: string }) {
+export function ModelMasthead({
+  model,
+  note,
+  firmware,
+}: {
+  model: ModelHeader;
+  note: { body: string; pinnedAt: string } | null;
+  firmware?: string;
+}) {
   return (
     <header>
       <p className="text-caption text-ink-soft">
-        <Link to="/scoreboard" className="hover:underline">Scoreboard</Link> / {model.maker.name}
+        <Link to="/scoreboard" className="hover:underline">
+          Scoreboard
+        </Link>{' '}
+        / {model.maker.name}
         {firmware && (
           <>
             {' / '}
-            <Link to={`/models/${model.slug}`} className="hover:underline">{model.name}</Link>
+            <Link to={`/models/${model.slug}`} className="hover:underline">
+              {model.name}
+            </Link>
           </>
         )}
       </p>
@@ -20,7 +33,9 @@ export function ModelMasthead({ model, note, firmware }: { model: ModelHeader; n
       </h1>
       <p className="mt-1 text-ink-soft">
         {MODEL_KIND_LABELS[model.kind]}, measures {model.position} ·{' '}
-        <Link to={model.threadsPath} className="text-fjord-700 underline">Discussion threads about this model</Link>
+        <Link to={model.threadsPath} className="text-fjord-700 underline">
+          Discussion threads about this model
+        </Link>
       </p>
       {model.hiddenReason && (
         <p role="status" className="mt-4 rounded-card bg-caution-100 px-4 py-3 text-caution-600">

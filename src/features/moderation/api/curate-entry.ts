@@ -23,10 +23,12 @@ export function useCurateEntry({ affects = [] }: { affects?: QueryKey[] } = {}) 
   return useMutation({
     mutationFn: curateEntry,
     onSuccess: (_result, action) => {
-      for (const queryKey of [getPendingEntriesQueryOptions().queryKey, getCurationCatalogueQueryOptions().queryKey]) void queryClient.invalidateQueries({ queryKey });
+      for (const queryKey of [getPendingEntriesQueryOptions().queryKey, getCurationCatalogueQueryOptions().queryKey])
+        void queryClient.invalidateQueries({ queryKey });
       // After a merge the merged entry's page is gone (the page moves on to the kept
       // one): mark the pages stale without refetching the one still on screen.
-      for (const queryKey of affects) void queryClient.invalidateQueries({ queryKey, refetchType: action.kind === 'merge' ? 'none' : 'active' });
+      for (const queryKey of affects)
+        void queryClient.invalidateQueries({ queryKey, refetchType: action.kind === 'merge' ? 'none' : 'active' });
     },
   });
 }

@@ -13,7 +13,12 @@ export function getReviewQueue(filters: QueueFilters): Promise<ReviewQueue> {
 export const reviewQueueKey = ['moderation', 'queue'] as const;
 
 export function getReviewQueueQueryOptions(filters: QueueFilters) {
-  return queryOptions({ queryKey: [...reviewQueueKey, filters], queryFn: () => getReviewQueue(filters), placeholderData: keepPreviousData, staleTime: 0 });
+  return queryOptions({
+    queryKey: [...reviewQueueKey, filters],
+    queryFn: () => getReviewQueue(filters),
+    placeholderData: keepPreviousData,
+    staleTime: 0,
+  });
 }
 
 export function useReviewQueue(filters: QueueFilters) {

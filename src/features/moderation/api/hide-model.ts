@@ -2,7 +2,13 @@ import { type QueryKey, useMutation, useQueryClient } from '@tanstack/react-quer
 import { api } from '@/lib/api-client';
 
 /** Leaves a model off the scoreboard with a reason everyone sees; `reason: null` shows it again. */
-export function hideModel({ modelId, reason }: { modelId: number; reason: string | null }): Promise<{ id: number; hiddenReason: string | null }> {
+export function hideModel({
+  modelId,
+  reason,
+}: {
+  modelId: number;
+  reason: string | null;
+}): Promise<{ id: number; hiddenReason: string | null }> {
   const path = `/api/moderation/catalogue/model/${modelId}/hidden`;
   return reason === null ? api.delete(path) : api.put(path, { reason });
 }

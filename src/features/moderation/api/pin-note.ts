@@ -4,7 +4,15 @@ import { api } from '@/lib/api-client';
 export type NoteSubject = 'model' | 'firmware';
 
 /** Pins (or replaces) the note on a model or firmware page; `body: null` takes it down. */
-export function pinNote({ subject, id, body }: { subject: NoteSubject; id: number; body: string | null }): Promise<{ subject: NoteSubject; id: number; note: string | null }> {
+export function pinNote({
+  subject,
+  id,
+  body,
+}: {
+  subject: NoteSubject;
+  id: number;
+  body: string | null;
+}): Promise<{ subject: NoteSubject; id: number; note: string | null }> {
   const path = `/api/moderation/catalogue/${subject}/${id}/note`;
   return body === null ? api.delete(path) : api.put(path, { body });
 }

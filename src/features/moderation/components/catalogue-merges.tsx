@@ -10,8 +10,18 @@ import { RenameForm } from './rename-form';
 /** Rename or merge approved makers and recording devices (models and firmware are curated on their own pages). */
 export function CatalogueMerges({ affects }: { affects: QueryKey[] }) {
   const catalogue = useCurationCatalogue();
-  if (catalogue.isPending) return <p className="text-ink-soft" role="status">Loading the catalogue…</p>;
-  if (catalogue.isError) return <p className="text-alert-800" role="alert">The catalogue could not be loaded: {catalogue.error.message}</p>;
+  if (catalogue.isPending)
+    return (
+      <p className="text-ink-soft" role="status">
+        Loading the catalogue…
+      </p>
+    );
+  if (catalogue.isError)
+    return (
+      <p className="text-alert-800" role="alert">
+        The catalogue could not be loaded: {catalogue.error.message}
+      </p>
+    );
   const modelsOf = (makerId: number) => catalogue.data.models.filter((m) => m.makerId === makerId).length;
   return (
     <div className="grid gap-6 lg:grid-cols-2">
@@ -31,7 +41,17 @@ export function CatalogueMerges({ affects }: { affects: QueryKey[] }) {
   );
 }
 
-function EntryCuration({ type, title, entries, affects }: { type: CatalogueEntryType; title: string; entries: PickableEntry[]; affects: QueryKey[] }) {
+function EntryCuration({
+  type,
+  title,
+  entries,
+  affects,
+}: {
+  type: CatalogueEntryType;
+  title: string;
+  entries: PickableEntry[];
+  affects: QueryKey[];
+}) {
   const [chosenId, setChosenId] = useState<number | null>(null);
   const [merged, setMerged] = useState<string | null>(null);
   const chosen = entries.find((e) => e.id === chosenId);
@@ -40,10 +60,15 @@ function EntryCuration({ type, title, entries, affects }: { type: CatalogueEntry
     <section aria-label={title} className="space-y-4 rounded-card border border-paper-line bg-white p-5 shadow-card">
       <h3 className="text-lead font-semibold text-ink">{title}</h3>
       {merged && <ActionDone>{merged}</ActionDone>}
-      <EntryPicker label={`The ${noun} to rename or merge away`} entries={entries} value={chosenId} onChange={(id) => {
-        setChosenId(id);
-        setMerged(null);
-      }} />
+      <EntryPicker
+        label={`The ${noun} to rename or merge away`}
+        entries={entries}
+        value={chosenId}
+        onChange={(id) => {
+          setChosenId(id);
+          setMerged(null);
+        }}
+      />
       {chosen ? (
         <div key={chosen.id}>
           <ToolSection title={`Rename “${chosen.name}”`}>
@@ -57,7 +82,9 @@ function EntryCuration({ type, title, entries, affects }: { type: CatalogueEntry
               targetLabel={`The ${noun} to keep`}
               affects={affects}
               onMerged={(into, result) => {
-                setMerged(`Merged “${chosen.name}” into “${into.name}”: ${result.movedRecordings} recordings moved; the old name stays as an alias.`);
+                setMerged(
+                  `Merged “${chosen.name}” into “${into.name}”: ${result.movedRecordings} recordings moved; the old name stays as an alias.`,
+                );
                 setChosenId(null);
               }}
             />

@@ -1,10 +1,14 @@
 import type { ReactNode } from 'react';
 import { useLocation } from 'react-router-dom';
 
-export const inputClass = 'rounded-lg border border-paper-line bg-white px-3 py-1.5 text-body text-ink focus:border-fjord-500 focus:outline-none focus:ring-2 focus:ring-fjord-300';
-export const primaryButton = 'rounded-full bg-fjord-700 px-4 py-1.5 text-caption font-semibold text-paper hover:bg-fjord-900 disabled:opacity-60';
-export const quietButton = 'rounded-full border border-paper-line bg-white px-4 py-1.5 text-caption font-semibold text-ink hover:border-fjord-500 disabled:opacity-60';
-export const dangerButton = 'rounded-full bg-alert-600 px-4 py-1.5 text-caption font-semibold text-white hover:bg-alert-800 disabled:opacity-60';
+export const inputClass =
+  'rounded-lg border border-paper-line bg-white px-3 py-1.5 text-body text-ink focus:border-fjord-500 focus:outline-none focus:ring-2 focus:ring-fjord-300';
+export const primaryButton =
+  'rounded-full bg-fjord-700 px-4 py-1.5 text-caption font-semibold text-paper hover:bg-fjord-900 disabled:opacity-60';
+export const quietButton =
+  'rounded-full border border-paper-line bg-white px-4 py-1.5 text-caption font-semibold text-ink hover:border-fjord-500 disabled:opacity-60';
+export const dangerButton =
+  'rounded-full bg-alert-600 px-4 py-1.5 text-caption font-semibold text-white hover:bg-alert-800 disabled:opacity-60';
 
 /** The server's own message when an action fails (a conflict, a validation error). */
 export function ActionError({ error }: { error: Error | null }) {
@@ -29,7 +33,9 @@ export function ToolSection({ title, summary, children }: { title: string; summa
   return (
     <details className="group border-t border-paper-line py-3 first:border-t-0">
       <summary className="flex cursor-pointer list-none items-baseline gap-3 rounded-lg px-1 focus:outline-none focus-visible:ring-2 focus-visible:ring-fjord-300">
-        <span aria-hidden="true" className="text-fjord-700 transition-transform group-open:rotate-90">▸</span>
+        <span aria-hidden="true" className="text-fjord-700 transition-transform group-open:rotate-90">
+          ▸
+        </span>
         <span className="font-semibold text-ink">{title}</span>
         {summary && <span className="truncate text-caption text-ink-soft">{summary}</span>}
       </summary>

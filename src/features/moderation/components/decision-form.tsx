@@ -11,9 +11,26 @@ const CHOICES: Record<Decision, { label: string; hint: string }> = {
 };
 
 /** The moderator's decision, carrying the version they looked at so a parallel decision is a clear conflict. */
-export function DecisionForm({ submissionId, status, version, suggestedReason }: { submissionId: number; status: string; version: number; suggestedReason?: RejectReason | null }) {
+export function DecisionForm({
+  submissionId,
+  status,
+  version,
+  suggestedReason,
+}: {
+  submissionId: number;
+  status: string;
+  version: number;
+  suggestedReason?: RejectReason | null;
+}) {
   const decide = useDecideSubmission(submissionId);
-  const available: Decision[] = status === 'awaiting_review' ? ['accept', 'reject', 'send_back'] : status === 'accepted' ? ['withdraw'] : status === 'sent_back' ? ['reject'] : [];
+  const available: Decision[] =
+    status === 'awaiting_review'
+      ? ['accept', 'reject', 'send_back']
+      : status === 'accepted'
+        ? ['withdraw']
+        : status === 'sent_back'
+          ? ['reject']
+          : [];
   const [picked, setDecision] = useState<Decision | undefined>(undefined);
   // After a decision the choices change (an accepted one can only be withdrawn): forget a choice that no longer applies.
   const decision = picked && available.includes(picked) ? picked : available.length === 1 ? available[0] : undefined;
@@ -33,7 +50,7 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
       </div>
     );
   }
-  const fields = decide.error instanceof ApiError ? decide.error.details?.fields ?? {} : {};
+  const fields = decide.error instanceof ApiError ? (decide.error.details?.fields ?? {}) : {};
 
   function submit(event: React.FormEvent) {
     event.preventDefault();
@@ -46,14 +63,21 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
   }
 
   return (
-    <form onSubmit={submit} className="space-y-4 rounded-card border border-fjord-300 bg-fjord-50 p-5 shadow-card" aria-labelledby="decision-title">
+    <form
+      onSubmit={submit}
+      className="space-y-4 rounded-card border border-fjord-300 bg-fjord-50 p-5 shadow-card"
+      aria-labelledby="decision-title"
+    >
       <h2 id="decision-title" className="text-lead font-semibold">
         Your decision
       </h2>
       <fieldset className="flex flex-wrap gap-3">
         <legend className="sr-only">Decision</legend>
         {available.map((choice) => (
-          <label key={choice} className={`flex cursor-pointer flex-col rounded-lg border px-4 py-2.5 ${decision === choice ? 'border-fjord-700 bg-white' : 'border-paper-line bg-paper'}`}>
+          <label
+            key={choice}
+            className={`flex cursor-pointer flex-col rounded-lg border px-4 py-2.5 ${decision === choice ? 'border-fjord-700 bg-white' : 'border-paper-line bg-paper'}`}
+          >
             <span className="flex items-center gap-2 font-semibold">
               <input type="radio" name="decision" value={choice} checked={decision === choice} onChange={() => setDecision(choice)} />
               {CHOICES[choice].label}
@@ -65,7 +89,13 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
       {decision === 'reject' && (
         <label className="flex flex-col gap-1 font-medium">
           Reason
-          <select required value={reason} onChange={(e) => setReason(e.target.value)} className="rounded-lg border border-paper-line bg-white px-3 py-2" aria-invalid={!!fields.reason}>
+          <select
+            required
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            className="rounded-lg border border-paper-line bg-white px-3 py-2"
+            aria-invalid={!!fields.reason}
+          >
             <option value="">Choose a reason…</option>
             {REJECT_REASONS.map((r) => (
               <option key={r} value={r}>
@@ -78,7 +108,11 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
       )}
       {decision && (
         <label className="flex flex-col gap-1 font-medium">
-          {decision === 'send_back' ? 'What should the rider correct?' : decision === 'withdraw' ? 'Why does it leave the statistics?' : 'Note to the rider (optional)'}
+          {decision === 'send_back'
+            ? 'What should the rider correct?'
+            : decision === 'withdraw'
+              ? 'Why does it leave the statistics?'
+              : 'Note to the rider (optional)'}
           <textarea
             value={note}
             onChange={(e) => setNote(e.target.value)}
@@ -88,7 +122,9 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
             className="rounded-lg border border-paper-line bg-white px-3 py-2 font-normal"
             aria-invalid={!!(fields.note || fields.reason)}
           />
-          {(fields.note || (decision === 'withdraw' && fields.reason)) && <span className="text-caption text-alert-800">{fields.note ?? fields.reason}</span>}
+          {(fields.note || (decision === 'withdraw' && fields.reason)) && (
+            <span className="text-caption text-alert-800">{fields.note ?? fields.reason}</span>
+          )}
         </label>
       )}
       {decide.isError && (
@@ -97,7 +133,11 @@ export function DecisionForm({ submissionId, status, version, suggestedReason }:
         </p>
       )}
       {done}
-      <button type="submit" disabled={!decision || decide.isPending} className="rounded-full bg-fjord-700 px-5 py-2 font-semibold text-paper hover:bg-fjord-900 disabled:opacity-50">
+      <button
+        type="submit"
+        disabled={!decision || decide.isPending}
+        className="rounded-full bg-fjord-700 px-5 py-2 font-semibold text-paper hover:bg-fjord-900 disabled:opacity-50"
+      >
         {decide.isPending ? 'Saving…' : 'Record the decision'}
       </button>
     </form>

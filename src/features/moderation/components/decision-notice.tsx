@@ -18,21 +18,42 @@ interface TaggedRecording {
  * plain text; for a rider whose submission was sent back, the form to correct the
  * firmware tags, after which it returns to the review queue.
  */
-export function DecisionNotice({ submissionId, status, isOwn, recordings }: { submissionId: number; status: SubmissionStatus; isOwn: boolean; recordings: TaggedRecording[] }) {
+export function DecisionNotice({
+  submissionId,
+  status,
+  isOwn,
+  recordings,
+}: {
+  submissionId: number;
+  status: SubmissionStatus;
+  isOwn: boolean;
+  recordings: TaggedRecording[];
+}) {
   const shown = status === 'rejected' || status === 'sent_back' || status === 'withdrawn';
   const decision = useSubmissionDecision(submissionId, status);
   if (!shown || !decision.data?.decision) return null;
   const { reasonLabel, note } = decision.data.decision;
-  const title = status === 'rejected' ? 'Why it was not accepted' : status === 'sent_back' ? 'A moderator asks for a correction' : 'Why it was withdrawn';
+  const title =
+    status === 'rejected'
+      ? 'Why it was not accepted'
+      : status === 'sent_back'
+        ? 'A moderator asks for a correction'
+        : 'Why it was withdrawn';
   return (
-    <section aria-labelledby="decision-notice-title" data-testid="decision-notice" className="space-y-3 rounded-card border border-alert-600/30 bg-alert-100/60 p-5 sm:p-6">
+    <section
+      aria-labelledby="decision-notice-title"
+      data-testid="decision-notice"
+      className="space-y-3 rounded-card border border-alert-600/30 bg-alert-100/60 p-5 sm:p-6"
+    >
       <h2 id="decision-notice-title" className="text-lead font-semibold text-alert-800">
         {title}
       </h2>
       {status === 'rejected' && reasonLabel && <p className="font-semibold">{reasonLabel}</p>}
       {status === 'withdrawn' && decision.data.decision.reason && <p className="whitespace-pre-line">{decision.data.decision.reason}</p>}
       {note && <p className="whitespace-pre-line rounded-lg bg-white/70 p-3 text-ink-soft">“{note}”</p>}
-      {status === 'sent_back' && isOwn && <CorrectTagsForm submissionId={submissionId} version={decision.data.version} recordings={recordings} />}
+      {status === 'sent_back' && isOwn && (
+        <CorrectTagsForm submissionId={submissionId} version={decision.data.version} recordings={recordings} />
+      )}
     </section>
   );
 }
@@ -75,7 +96,11 @@ function CorrectTagsForm({ submissionId, version, recordings }: { submissionId: 
           {resubmit.error instanceof ApiError ? resubmit.error.message : 'The correction could not be saved.'}
         </p>
       )}
-      <button type="submit" disabled={resubmit.isPending} className="rounded-full bg-fjord-700 px-5 py-2 font-semibold text-paper hover:bg-fjord-900 disabled:opacity-50">
+      <button
+        type="submit"
+        disabled={resubmit.isPending}
+        className="rounded-full bg-fjord-700 px-5 py-2 font-semibold text-paper hover:bg-fjord-900 disabled:opacity-50"
+      >
         Send the corrected tags for review
       </button>
     </form>

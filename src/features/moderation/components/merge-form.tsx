@@ -6,7 +6,6 @@ import { useCurateEntry } from '../api/curate-entry';
 import { ActionError, dangerButton, inputClass, primaryButton, quietButton } from './curation-parts';
 import { EntryPicker, type PickableEntry } from './entry-picker';
 
-
 const WHAT_MOVES: Record<CatalogueEntryType, (from: string) => string> = {
   maker: (from) => `the models of “${from}” (same-named models are merged too), their submissions and statistics, and its staff`,
   model: (from) => `the firmware versions of “${from}” (same versions are merged too), all its submissions and their statistics`,
@@ -63,22 +62,35 @@ export function MergeForm({
   if (merged) {
     return (
       <p role="status" className="rounded-lg bg-moss-100 px-3 py-2 text-caption font-medium text-moss-700">
-        Merged “{from.name}” into “{merged.into.name}”: {merged.result.movedRecordings} recordings moved, {merged.result.movedAcceptedSubmissions} accepted submissions counted
-        again. The old name stays as an alias.
+        Merged “{from.name}” into “{merged.into.name}”: {merged.result.movedRecordings} recordings moved,{' '}
+        {merged.result.movedAcceptedSubmissions} accepted submissions counted again. The old name stays as an alias.
       </p>
     );
   }
   return (
     <form onSubmit={review} className="space-y-3">
-      <EntryPicker label={targetLabel} entries={targets.filter((t) => t.id !== from.id)} value={intoId} onChange={(id) => {
-        setIntoId(id);
-        setConfirming(false);
-      }} />
+      <EntryPicker
+        label={targetLabel}
+        entries={targets.filter((t) => t.id !== from.id)}
+        value={intoId}
+        onChange={(id) => {
+          setIntoId(id);
+          setConfirming(false);
+        }}
+      />
       <span className="flex flex-col gap-1">
         <label htmlFor={reasonId} className="text-caption font-medium text-ink">
           Why they are the same (kept in the audit log)
         </label>
-        <input id={reasonId} required minLength={3} maxLength={1000} value={reason} onChange={(e) => setReason(e.target.value)} className={`${inputClass} w-full max-w-2xl`} />
+        <input
+          id={reasonId}
+          required
+          minLength={3}
+          maxLength={1000}
+          value={reason}
+          onChange={(e) => setReason(e.target.value)}
+          className={`${inputClass} w-full max-w-2xl`}
+        />
       </span>
       {!confirming && (
         <button type="submit" disabled={!into} className={primaryButton}>
@@ -86,7 +98,11 @@ export function MergeForm({
         </button>
       )}
       {confirming && into && (
-        <div role="alertdialog" aria-labelledby={`${reasonId}-confirm`} className="max-w-2xl space-y-3 rounded-card border border-caution-600 bg-caution-100 p-4">
+        <div
+          role="alertdialog"
+          aria-labelledby={`${reasonId}-confirm`}
+          className="max-w-2xl space-y-3 rounded-card border border-caution-600 bg-caution-100 p-4"
+        >
           <p id={`${reasonId}-confirm`} className="font-semibold text-ink">
             Merge “{from.name}” into “{into.name}”?
           </p>
@@ -94,7 +110,9 @@ export function MergeForm({
             <li>
               “{into.name}” takes over {WHAT_MOVES[type](from.name)}.
             </li>
-            <li>“{from.name}” leaves the catalogue; its name stays as an alias that still finds “{into.name}”.</li>
+            <li>
+              “{from.name}” leaves the catalogue; its name stays as an alias that still finds “{into.name}”.
+            </li>
             <li>This cannot be undone here.</li>
           </ul>
           <div className="flex flex-wrap gap-2">

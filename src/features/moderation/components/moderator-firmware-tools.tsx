@@ -26,8 +26,22 @@ export function ModeratorFirmwareTools(props: FirmwareToolsProps) {
 function FirmwareTools({ modelSlug, version, note, affects }: FirmwareToolsProps) {
   const navigate = useNavigate();
   const catalogue = useCurationCatalogue();
-  if (catalogue.isPending) return <ModeratorPanel title="Curate this firmware version"><p role="status" className="text-ink-soft">Loading the catalogue…</p></ModeratorPanel>;
-  if (catalogue.isError) return <ModeratorPanel title="Curate this firmware version"><p role="alert" className="text-alert-800">The catalogue could not be loaded: {catalogue.error.message}</p></ModeratorPanel>;
+  if (catalogue.isPending)
+    return (
+      <ModeratorPanel title="Curate this firmware version">
+        <p role="status" className="text-ink-soft">
+          Loading the catalogue…
+        </p>
+      </ModeratorPanel>
+    );
+  if (catalogue.isError)
+    return (
+      <ModeratorPanel title="Curate this firmware version">
+        <p role="alert" className="text-alert-800">
+          The catalogue could not be loaded: {catalogue.error.message}
+        </p>
+      </ModeratorPanel>
+    );
   const model = catalogue.data.models.find((m) => m.slug === modelSlug);
   const versions = catalogue.data.firmware.filter((f) => f.modelId === model?.id);
   const firmware = versions.find((f) => f.version === version);
@@ -41,11 +55,22 @@ function FirmwareTools({ modelSlug, version, note, affects }: FirmwareToolsProps
         <MergeForm
           type="firmware"
           from={{ id: firmware.id, name: firmware.version }}
-          targets={versions.filter((f) => f.id !== firmware.id).map((f) => ({ id: f.id, name: f.version, hint: [f.beta && 'beta', f.releasedOn && `released ${f.releasedOn}`].filter(Boolean).join(', ') }))}
+          targets={versions
+            .filter((f) => f.id !== firmware.id)
+            .map((f) => ({
+              id: f.id,
+              name: f.version,
+              hint: [f.beta && 'beta', f.releasedOn && `released ${f.releasedOn}`].filter(Boolean).join(', '),
+            }))}
           targetLabel={`The ${model.name} version to keep`}
           affects={affects}
           onMerged={(into, result) =>
-            navigate(`/models/${model.slug}/firmware/${encodeURIComponent(into.name)}`, mergedNotice(`Firmware ${firmware.version} was merged into this version: ${result.movedRecordings} recordings moved. The old version stays as an alias.`))
+            navigate(
+              `/models/${model.slug}/firmware/${encodeURIComponent(into.name)}`,
+              mergedNotice(
+                `Firmware ${firmware.version} was merged into this version: ${result.movedRecordings} recordings moved. The old version stays as an alias.`,
+              ),
+            )
           }
         />
       </ToolSection>

@@ -33,8 +33,22 @@ export function ModeratorModelTools(props: ModelToolsProps) {
 function ModelTools({ modelSlug, note, hiddenReason, affects, batteryClaim, batteryAffects }: ModelToolsProps) {
   const navigate = useNavigate();
   const catalogue = useCurationCatalogue();
-  if (catalogue.isPending) return <ModeratorPanel title="Curate this model"><p role="status" className="text-ink-soft">Loading the catalogue…</p></ModeratorPanel>;
-  if (catalogue.isError) return <ModeratorPanel title="Curate this model"><p role="alert" className="text-alert-800">The catalogue could not be loaded: {catalogue.error.message}</p></ModeratorPanel>;
+  if (catalogue.isPending)
+    return (
+      <ModeratorPanel title="Curate this model">
+        <p role="status" className="text-ink-soft">
+          Loading the catalogue…
+        </p>
+      </ModeratorPanel>
+    );
+  if (catalogue.isError)
+    return (
+      <ModeratorPanel title="Curate this model">
+        <p role="alert" className="text-alert-800">
+          The catalogue could not be loaded: {catalogue.error.message}
+        </p>
+      </ModeratorPanel>
+    );
   const model = catalogue.data.models.find((m) => m.slug === modelSlug);
   if (!model) return null;
   const maker = catalogue.data.makers.find((m) => m.id === model.makerId);
@@ -48,7 +62,12 @@ function ModelTools({ modelSlug, note, hiddenReason, affects, batteryClaim, batt
         <ScoreboardVisibilityForm modelId={model.id} hiddenReason={hiddenReason} affects={affects} />
       </ToolSection>
       <ToolSection title="Maker's battery claim" summary={batteryClaim ? `${batteryClaim.hours} h` : 'none'}>
-        <BatteryClaimForm key={batteryClaim ? `${batteryClaim.hours}|${batteryClaim.source}` : "none"} modelId={model.id} current={batteryClaim} affects={batteryAffects} />
+        <BatteryClaimForm
+          key={batteryClaim ? `${batteryClaim.hours}|${batteryClaim.source}` : 'none'}
+          modelId={model.id}
+          current={batteryClaim}
+          affects={batteryAffects}
+        />
       </ToolSection>
       <ToolSection title="Rename">
         <RenameForm type="model" entry={model} affects={affects} label="New model name" />
@@ -61,7 +80,12 @@ function ModelTools({ modelSlug, note, hiddenReason, affects, batteryClaim, batt
           targetLabel={`The ${maker?.name ?? ''} model to keep`}
           affects={affects}
           onMerged={(into, result) =>
-            navigate(`/models/${siblings.find((m) => m.id === into.id)!.slug}`, mergedNotice(`“${model.name}” was merged into this model: ${result.movedRecordings} recordings moved. The old name stays as an alias.`))
+            navigate(
+              `/models/${siblings.find((m) => m.id === into.id)!.slug}`,
+              mergedNotice(
+                `“${model.name}” was merged into this model: ${result.movedRecordings} recordings moved. The old name stays as an alias.`,
+              ),
+            )
           }
         />
       </ToolSection>

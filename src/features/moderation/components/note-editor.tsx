@@ -6,7 +6,17 @@ import { ActionDone, ActionError, dangerButton, inputClass, primaryButton } from
 const MAX_NOTE = 280;
 
 /** Pin, edit or take down the short note shown at the top of a model or firmware page. */
-export function NoteEditor({ subject, id, current, affects }: { subject: NoteSubject; id: number; current: string | null; affects: QueryKey[] }) {
+export function NoteEditor({
+  subject,
+  id,
+  current,
+  affects,
+}: {
+  subject: NoteSubject;
+  id: number;
+  current: string | null;
+  affects: QueryKey[];
+}) {
   const fieldId = useId();
   const [body, setBody] = useState(current ?? '');
   const pin = usePinNote(affects);
@@ -18,12 +28,15 @@ export function NoteEditor({ subject, id, current, affects }: { subject: NoteSub
   }
   function remove() {
     setDone(null);
-    pin.mutate({ subject, id, body: null }, {
-      onSuccess: () => {
-        setBody('');
-        setDone('The note is taken down.');
+    pin.mutate(
+      { subject, id, body: null },
+      {
+        onSuccess: () => {
+          setBody('');
+          setDone('The note is taken down.');
+        },
       },
-    });
+    );
   }
   return (
     <form onSubmit={save} className="space-y-2">

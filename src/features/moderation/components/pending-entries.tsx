@@ -15,8 +15,18 @@ const GROUPS: Array<{ key: 'makers' | 'models' | 'firmware' | 'recordingDevices'
 export function PendingEntries() {
   const pending = usePendingEntries();
   const curate = useCurateEntry();
-  if (pending.isPending) return <p className="text-ink-soft" role="status">Loading proposals…</p>;
-  if (pending.isError) return <p className="text-alert-800" role="alert">The proposals could not be loaded: {pending.error.message}</p>;
+  if (pending.isPending)
+    return (
+      <p className="text-ink-soft" role="status">
+        Loading proposals…
+      </p>
+    );
+  if (pending.isError)
+    return (
+      <p className="text-alert-800" role="alert">
+        The proposals could not be loaded: {pending.error.message}
+      </p>
+    );
   const total = GROUPS.reduce((sum, g) => sum + pending.data[g.key].length, 0);
   return (
     <div className="space-y-6">
@@ -25,13 +35,21 @@ export function PendingEntries() {
           {curate.error.message}
         </p>
       )}
-      {total === 0 && <p className="rounded-card border border-dashed border-paper-line p-8 text-center text-ink-soft">No proposals are waiting.</p>}
+      {total === 0 && (
+        <p className="rounded-card border border-dashed border-paper-line p-8 text-center text-ink-soft">No proposals are waiting.</p>
+      )}
       {GROUPS.filter((g) => pending.data[g.key].length > 0).map((group) => (
         <section key={group.key} aria-label={group.title} className="space-y-3">
           <h2 className="text-lead font-semibold">{group.title}</h2>
           <ul className="space-y-3">
             {pending.data[group.key].map((entry) => (
-              <PendingRow key={entry.id} type={group.type} entry={entry} onAction={(action) => curate.mutate(action)} busy={curate.isPending} />
+              <PendingRow
+                key={entry.id}
+                type={group.type}
+                entry={entry}
+                onAction={(action) => curate.mutate(action)}
+                busy={curate.isPending}
+              />
             ))}
           </ul>
         </section>
@@ -40,7 +58,17 @@ export function PendingEntries() {
   );
 }
 
-function PendingRow({ type, entry, onAction, busy }: { type: CatalogueEntryType; entry: PendingEntry; onAction: (a: Parameters<ReturnType<typeof useCurateEntry>['mutate']>[0]) => void; busy: boolean }) {
+function PendingRow({
+  type,
+  entry,
+  onAction,
+  busy,
+}: {
+  type: CatalogueEntryType;
+  entry: PendingEntry;
+  onAction: (a: Parameters<ReturnType<typeof useCurateEntry>['mutate']>[0]) => void;
+  busy: boolean;
+}) {
   const [mode, setMode] = useState<'rename' | 'reject' | 'merge' | null>(null);
   const [text, setText] = useState('');
   const [intoId, setIntoId] = useState('');
@@ -60,11 +88,22 @@ function PendingRow({ type, entry, onAction, busy }: { type: CatalogueEntryType;
         </span>
         <span className="text-caption text-ink-faint">proposed by {entry.proposedBy ?? 'deleted rider'}</span>
         <span className="ml-auto flex flex-wrap gap-2">
-          <button type="button" disabled={busy} className="rounded-full bg-moss-700 px-3.5 py-1 text-caption font-semibold text-white" onClick={() => onAction({ kind: 'curate', type, id: entry.id, input: { action: 'approve' } })}>
+          <button
+            type="button"
+            disabled={busy}
+            className="rounded-full bg-moss-700 px-3.5 py-1 text-caption font-semibold text-white"
+            onClick={() => onAction({ kind: 'curate', type, id: entry.id, input: { action: 'approve' } })}
+          >
             Approve
           </button>
           {(['rename', 'merge', 'reject'] as const).map((m) => (
-            <button key={m} type="button" aria-pressed={mode === m} className="rounded-full border border-paper-line px-3.5 py-1 text-caption font-semibold capitalize" onClick={() => setMode(mode === m ? null : m)}>
+            <button
+              key={m}
+              type="button"
+              aria-pressed={mode === m}
+              className="rounded-full border border-paper-line px-3.5 py-1 text-caption font-semibold capitalize"
+              onClick={() => setMode(mode === m ? null : m)}
+            >
               {m}
             </button>
           ))}
@@ -75,12 +114,25 @@ function PendingRow({ type, entry, onAction, busy }: { type: CatalogueEntryType;
           {mode === 'merge' && (
             <label className="flex flex-col gap-1 text-caption font-medium">
               Number of the entry to keep
-              <input required inputMode="numeric" pattern="[0-9]+" value={intoId} onChange={(e) => setIntoId(e.target.value)} className="w-40 rounded-lg border border-paper-line px-3 py-1.5" />
+              <input
+                required
+                inputMode="numeric"
+                pattern="[0-9]+"
+                value={intoId}
+                onChange={(e) => setIntoId(e.target.value)}
+                className="w-40 rounded-lg border border-paper-line px-3 py-1.5"
+              />
             </label>
           )}
           <label className="flex flex-1 flex-col gap-1 text-caption font-medium">
             {mode === 'rename' ? 'New name' : mode === 'reject' ? 'Why it is rejected' : 'Why they are the same'}
-            <input required maxLength={mode === 'rename' ? 80 : 1000} value={text} onChange={(e) => setText(e.target.value)} className="rounded-lg border border-paper-line px-3 py-1.5" />
+            <input
+              required
+              maxLength={mode === 'rename' ? 80 : 1000}
+              value={text}
+              onChange={(e) => setText(e.target.value)}
+              className="rounded-lg border border-paper-line px-3 py-1.5"
+            />
           </label>
           <button type="submit" disabled={busy} className="rounded-full bg-fjord-700 px-4 py-1.5 text-caption font-semibold text-paper">
             Save

@@ -5,7 +5,17 @@ import { useCurateEntry } from '../api/curate-entry';
 import { ActionDone, ActionError, inputClass, primaryButton } from './curation-parts';
 
 /** Renames an approved entry; the server keeps the old name as an alias that still finds it. */
-export function RenameForm({ type, entry, affects, label = 'New name' }: { type: CatalogueEntryType; entry: { id: number; name: string }; affects: QueryKey[]; label?: string }) {
+export function RenameForm({
+  type,
+  entry,
+  affects,
+  label = 'New name',
+}: {
+  type: CatalogueEntryType;
+  entry: { id: number; name: string };
+  affects: QueryKey[];
+  label?: string;
+}) {
   const fieldId = useId();
   const [name, setName] = useState(entry.name);
   const [renamedFrom, setRenamedFrom] = useState<string | null>(null);
@@ -13,7 +23,10 @@ export function RenameForm({ type, entry, affects, label = 'New name' }: { type:
   function submit(event: React.FormEvent) {
     event.preventDefault();
     setRenamedFrom(null);
-    rename.mutate({ kind: 'curate', type, id: entry.id, input: { action: 'rename', name } }, { onSuccess: () => setRenamedFrom(entry.name) });
+    rename.mutate(
+      { kind: 'curate', type, id: entry.id, input: { action: 'rename', name } },
+      { onSuccess: () => setRenamedFrom(entry.name) },
+    );
   }
   return (
     <form onSubmit={submit} className="space-y-2">
@@ -22,7 +35,14 @@ export function RenameForm({ type, entry, affects, label = 'New name' }: { type:
           <label htmlFor={fieldId} className="text-caption font-medium text-ink">
             {label}
           </label>
-          <input id={fieldId} required maxLength={80} value={name} onChange={(e) => setName(e.target.value)} className={`${inputClass} w-72`} />
+          <input
+            id={fieldId}
+            required
+            maxLength={80}
+            value={name}
+            onChange={(e) => setName(e.target.value)}
+            className={`${inputClass} w-72`}
+          />
         </span>
         <button type="submit" disabled={rename.isPending || name.trim() === entry.name} className={primaryButton}>
           Rename
@@ -30,7 +50,11 @@ export function RenameForm({ type, entry, affects, label = 'New name' }: { type:
       </div>
       <p className="text-caption text-ink-soft">The old name stays as an alias, so searches and old links still find it.</p>
       <ActionError error={rename.error} />
-      {renamedFrom && <ActionDone>Renamed: “{renamedFrom}” is now “{name.trim()}”, and the old name still finds it.</ActionDone>}
+      {renamedFrom && (
+        <ActionDone>
+          Renamed: “{renamedFrom}” is now “{name.trim()}”, and the old name still finds it.
+        </ActionDone>
+      )}
     </form>
   );
 }

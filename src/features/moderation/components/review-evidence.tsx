@@ -3,7 +3,11 @@ import { Link } from 'react-router-dom';
 import { REJECT_REASON_LABELS } from '@shared/schemas/moderation';
 import type { Review } from '@shared/schemas/moderation';
 
-const SEVERITY_STYLE = { info: 'border-fjord-100 bg-white', warning: 'border-caution-600/40 bg-caution-100', severe: 'border-alert-600/40 bg-alert-100' } as const;
+const SEVERITY_STYLE = {
+  info: 'border-fjord-100 bg-white',
+  warning: 'border-caution-600/40 bg-caution-100',
+  severe: 'border-alert-600/40 bg-alert-100',
+} as const;
 const SEVERITY_WORD = { info: 'Note', warning: 'Check', severe: 'Problem' } as const;
 
 function Panel({ title, children }: { title: string; children: React.ReactNode }) {
@@ -45,7 +49,9 @@ export function ReviewEvidence({ review }: { review: Review }) {
                   {SEVERITY_WORD[flag.severity]}: {flag.message}
                 </p>
                 {flag.check && <p className="mt-1 text-ink-soft">{flag.check}</p>}
-                {flag.likelyReason && <p className="mt-1 text-ink-soft">Usual reason if rejected: {REJECT_REASON_LABELS[flag.likelyReason].toLowerCase()}.</p>}
+                {flag.likelyReason && (
+                  <p className="mt-1 text-ink-soft">Usual reason if rejected: {REJECT_REASON_LABELS[flag.likelyReason].toLowerCase()}.</p>
+                )}
               </li>
             ))}
           </ul>
@@ -56,7 +62,10 @@ export function ReviewEvidence({ review }: { review: Review }) {
         <ul className="space-y-2 text-caption">
           {review.deviceChecks.map((check) => (
             <li key={`${check.side}-${check.what}`} className="flex gap-2">
-              <span aria-hidden="true" className={check.agrees === false ? 'text-alert-600' : check.agrees ? 'text-moss-700' : 'text-ink-faint'}>
+              <span
+                aria-hidden="true"
+                className={check.agrees === false ? 'text-alert-600' : check.agrees ? 'text-moss-700' : 'text-ink-faint'}
+              >
                 {check.agrees === false ? '✗' : check.agrees ? '✓' : '?'}
               </span>
               <span className={check.agrees === false ? 'font-semibold text-alert-800' : ''}>{check.message}</span>
@@ -80,8 +89,9 @@ export function ReviewEvidence({ review }: { review: Review }) {
                 <Link to={`/moderation/submissions/${d.id}`} className="text-fjord-700 underline underline-offset-2">
                   #{d.id}
                 </Link>{' '}
-                by {d.riderHandle ?? 'deleted rider'} ({d.status.replace(/_/g, ' ')}): {Math.round(d.overlapShare * 100)} % of the ride overlaps,{' '}
-                {Math.round(d.sameStreamShare * 100)} % of the power readings are the same{d.nearIdentical ? ' — looks like the same ride uploaded again.' : '.'}
+                by {d.riderHandle ?? 'deleted rider'} ({d.status.replace(/_/g, ' ')}): {Math.round(d.overlapShare * 100)} % of the ride
+                overlaps, {Math.round(d.sameStreamShare * 100)} % of the power readings are the same
+                {d.nearIdentical ? ' — looks like the same ride uploaded again.' : '.'}
               </li>
             ))}
           </ul>
@@ -112,7 +122,8 @@ export function ReviewEvidence({ review }: { review: Review }) {
                   `${formatDayAndTime(h.createdAt)}: ${h.reason ?? 'back to review after a re-analysis'}`
                 ) : (
                   <>
-                    {formatDayAndTime(h.createdAt)}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by {h.actorHandle ?? 'someone'}
+                    {formatDayAndTime(h.createdAt)}: {h.action.replace('submission.', '').replace(/_/g, ' ')} by{' '}
+                    {h.actorHandle ?? 'someone'}
                     {h.reason ? ` (${h.reason})` : ''}
                   </>
                 )}

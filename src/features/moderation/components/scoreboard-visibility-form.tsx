@@ -4,7 +4,15 @@ import { useHideModel } from '../api/hide-model';
 import { ActionError, dangerButton, inputClass, primaryButton } from './curation-parts';
 
 /** Hide a model from the scoreboard with a reason everyone sees on its page, or show it again. */
-export function ScoreboardVisibilityForm({ modelId, hiddenReason, affects }: { modelId: number; hiddenReason: string | null; affects: QueryKey[] }) {
+export function ScoreboardVisibilityForm({
+  modelId,
+  hiddenReason,
+  affects,
+}: {
+  modelId: number;
+  hiddenReason: string | null;
+  affects: QueryKey[];
+}) {
   const fieldId = useId();
   const [reason, setReason] = useState('');
   const visibility = useHideModel(affects);
@@ -15,7 +23,12 @@ export function ScoreboardVisibilityForm({ modelId, hiddenReason, affects }: { m
           Hidden from the scoreboard, because: <q>{hiddenReason}</q> Its page and figures stay reachable by link.
         </p>
         <ActionError error={visibility.error} />
-        <button type="button" disabled={visibility.isPending} onClick={() => visibility.mutate({ modelId, reason: null })} className={primaryButton}>
+        <button
+          type="button"
+          disabled={visibility.isPending}
+          onClick={() => visibility.mutate({ modelId, reason: null })}
+          className={primaryButton}
+        >
           Show it on the scoreboard again
         </button>
       </div>
@@ -33,7 +46,15 @@ export function ScoreboardVisibilityForm({ modelId, hiddenReason, affects }: { m
         <label htmlFor={fieldId} className="text-caption font-medium text-ink">
           Why it leaves the scoreboard (shown on its page)
         </label>
-        <input id={fieldId} required minLength={3} maxLength={280} value={reason} onChange={(e) => setReason(e.target.value)} className={`${inputClass} w-full max-w-2xl`} />
+        <input
+          id={fieldId}
+          required
+          minLength={3}
+          maxLength={280}
+          value={reason}
+          onChange={(e) => setReason(e.target.value)}
+          className={`${inputClass} w-full max-w-2xl`}
+        />
       </span>
       <ActionError error={visibility.error} />
       <button type="submit" disabled={visibility.isPending} className={dangerButton}>

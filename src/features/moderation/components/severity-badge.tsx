@@ -1,4 +1,9 @@
-const STYLE = ['bg-moss-100 text-moss-700', 'bg-fjord-100 text-fjord-900', 'bg-caution-100 text-caution-600', 'bg-alert-100 text-alert-800'];
+const STYLE = [
+  'bg-moss-100 text-moss-700',
+  'bg-fjord-100 text-fjord-900',
+  'bg-caution-100 text-caution-600',
+  'bg-alert-100 text-alert-800',
+];
 const WORDS = ['No flags', 'Notes', 'Check', 'Problem'];
 
 /** A submission's worst flag, as the queue sorts by it. */

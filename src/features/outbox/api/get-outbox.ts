@@ -7,7 +7,13 @@ export function getOutbox(page: number): Promise<Outbox> {
 }
 
 export function getOutboxQueryOptions(page = 1) {
-  return queryOptions({ queryKey: ['outbox', page], queryFn: () => getOutbox(page), placeholderData: keepPreviousData, staleTime: 0, refetchInterval: 5_000 });
+  return queryOptions({
+    queryKey: ['outbox', page],
+    queryFn: () => getOutbox(page),
+    placeholderData: keepPreviousData,
+    staleTime: 0,
+    refetchInterval: 5_000,
+  });
 }
 
 export function useOutbox(page: number) {

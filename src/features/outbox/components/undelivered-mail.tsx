@@ -6,8 +6,18 @@ import { useResendMail } from '../api/resend-mail';
 /** Mail that has not reached the mail service: retried on its own, or given up and waiting for an admin. */
 export function UndeliveredMailList() {
   const undelivered = useUndeliveredMail();
-  if (undelivered.isPending) return <p className="text-ink-soft" role="status">Loading undelivered mail…</p>;
-  if (undelivered.isError) return <p className="text-alert-800" role="alert">Undelivered mail could not be loaded: {undelivered.error.message}</p>;
+  if (undelivered.isPending)
+    return (
+      <p className="text-ink-soft" role="status">
+        Loading undelivered mail…
+      </p>
+    );
+  if (undelivered.isError)
+    return (
+      <p className="text-alert-800" role="alert">
+        Undelivered mail could not be loaded: {undelivered.error.message}
+      </p>
+    );
   const { messages } = undelivered.data;
   return (
     <section aria-labelledby="undelivered-heading" className="space-y-3">
@@ -35,12 +45,15 @@ function UndeliveredMessage({ message: m }: { message: UndeliveredMail }) {
       <div className="flex flex-wrap items-baseline gap-x-4 gap-y-1">
         <span className="font-semibold text-ink">{m.subject}</span>
         <span className="text-caption text-ink-soft">to {m.to}</span>
-        <span className={`ml-auto rounded-full px-2.5 py-0.5 text-caption ${failed ? 'bg-alert-100 text-alert-800' : 'bg-paper text-ink-soft'}`}>
+        <span
+          className={`ml-auto rounded-full px-2.5 py-0.5 text-caption ${failed ? 'bg-alert-100 text-alert-800' : 'bg-paper text-ink-soft'}`}
+        >
           {failed ? 'Given up' : `Retrying, next ${formatDayAndTime(m.nextAttemptAt)}`}
         </span>
       </div>
       <p className="mt-2 text-caption text-ink-soft">
-        {m.attempts} {m.attempts === 1 ? 'attempt' : 'attempts'} since {formatDayAndTime(m.createdAt)}. Last error: <code className="break-all">{m.lastError ?? 'none'}</code>
+        {m.attempts} {m.attempts === 1 ? 'attempt' : 'attempts'} since {formatDayAndTime(m.createdAt)}. Last error:{' '}
+        <code className="break-all">{m.lastError ?? 'none'}</code>
       </p>
       {failed && (
         <div className="mt-3 flex flex-wrap items-center gap-3">

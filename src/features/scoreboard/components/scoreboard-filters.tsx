@@ -27,54 +27,60 @@ export function ScoreboardFiltersForm({ filters, onChange }: { filters: Scoreboa
 
   return (
     <search>
-    <form className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5" onSubmit={(event) => event.preventDefault()}>
-      <label className="text-caption font-medium text-ink-soft lg:col-span-2">
-        Search models and makers
-        <input type="search" value={search} onChange={(event) => setSearch(event.target.value)} className={fieldClass} placeholder="e.g. a model name" />
-      </label>
-      <label className="text-caption font-medium text-ink-soft">
-        Maker
-        <select value={filters.maker ?? ''} onChange={set('maker')} className={fieldClass}>
-          <option value="">All makers</option>
-          {makers.data?.map((maker) => (
-            <option key={maker.slug} value={maker.slug}>
-              {maker.name}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="text-caption font-medium text-ink-soft">
-        Where it measures
-        <select value={filters.position ?? ''} onChange={set('position')} className={fieldClass}>
-          <option value="">Any position</option>
-          {MEASUREMENT_POSITIONS.map((position) => (
-            <option key={position} value={position}>
-              {position}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="text-caption font-medium text-ink-soft">
-        Kind
-        <select value={filters.kind ?? ''} onChange={set('kind')} className={fieldClass}>
-          <option value="">Any kind</option>
-          {MODEL_KINDS.map((kind) => (
-            <option key={kind} value={kind}>
-              {MODEL_KIND_LABELS[kind]}
-            </option>
-          ))}
-        </select>
-      </label>
-      <label className="flex items-center gap-2 text-caption font-medium text-ink-soft sm:col-span-2 lg:col-span-5">
-        <input
-          type="checkbox"
-          checked={filters.evidence === 'enough'}
-          onChange={(event) => onChange({ ...filters, evidence: event.target.checked ? 'enough' : undefined, page: 1 })}
-          className="h-4 w-4 accent-fjord-700"
-        />
-        Only models with enough evidence (at least {MINIMUM_SUBMISSIONS} accepted rides by {MINIMUM_RIDERS} riders)
-      </label>
-    </form>
+      <form className="grid gap-4 sm:grid-cols-2 lg:grid-cols-5" onSubmit={(event) => event.preventDefault()}>
+        <label className="text-caption font-medium text-ink-soft lg:col-span-2">
+          Search models and makers
+          <input
+            type="search"
+            value={search}
+            onChange={(event) => setSearch(event.target.value)}
+            className={fieldClass}
+            placeholder="e.g. a model name"
+          />
+        </label>
+        <label className="text-caption font-medium text-ink-soft">
+          Maker
+          <select value={filters.maker ?? ''} onChange={set('maker')} className={fieldClass}>
+            <option value="">All makers</option>
+            {makers.data?.map((maker) => (
+              <option key={maker.slug} value={maker.slug}>
+                {maker.name}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-caption font-medium text-ink-soft">
+          Where it measures
+          <select value={filters.position ?? ''} onChange={set('position')} className={fieldClass}>
+            <option value="">Any position</option>
+            {MEASUREMENT_POSITIONS.map((position) => (
+              <option key={position} value={position}>
+                {position}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="text-caption font-medium text-ink-soft">
+          Kind
+          <select value={filters.kind ?? ''} onChange={set('kind')} className={fieldClass}>
+            <option value="">Any kind</option>
+            {MODEL_KINDS.map((kind) => (
+              <option key={kind} value={kind}>
+                {MODEL_KIND_LABELS[kind]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 text-caption font-medium text-ink-soft sm:col-span-2 lg:col-span-5">
+          <input
+            type="checkbox"
+            checked={filters.evidence === 'enough'}
+            onChange={(event) => onChange({ ...filters, evidence: event.target.checked ? 'enough' : undefined, page: 1 })}
+            className="h-4 w-4 accent-fjord-700"
+          />
+          Only models with enough evidence (at least {MINIMUM_SUBMISSIONS} accepted rides by {MINIMUM_RIDERS} riders)
+        </label>
+      </form>
     </search>
   );
 }

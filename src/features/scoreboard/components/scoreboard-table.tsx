@@ -123,10 +123,17 @@ export function ScoreboardTable({
                 const id = header.column.id as ScoreboardSort;
                 const active = id === sort;
                 return (
-                  <th key={header.id} scope="col" aria-sort={active ? (order === 'asc' ? 'ascending' : 'descending') : 'none'} className="px-4 py-3 font-semibold">
+                  <th
+                    key={header.id}
+                    scope="col"
+                    aria-sort={active ? (order === 'asc' ? 'ascending' : 'descending') : 'none'}
+                    className="px-4 py-3 font-semibold"
+                  >
                     <button
                       type="button"
-                      onClick={() => onSort(id, active && order === 'desc' ? 'asc' : active ? 'desc' : id === 'name' || id === 'maker' ? 'asc' : 'desc')}
+                      onClick={() =>
+                        onSort(id, active && order === 'desc' ? 'asc' : active ? 'desc' : id === 'name' || id === 'maker' ? 'asc' : 'desc')
+                      }
                       className="inline-flex items-center gap-1 rounded hover:text-ink"
                     >
                       {flexRender(header.column.columnDef.header, header.getContext())}

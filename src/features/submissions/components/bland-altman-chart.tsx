@@ -65,8 +65,8 @@ export function BlandAltmanChart({ agreement }: { agreement: Agreement }) {
     <figure className="space-y-2">
       <UPlotChart makeOptions={makeOptions} data={data} height={280} />
       <figcaption className="text-caption text-ink-soft">
-        Each dot is one {agreement.blockSeconds} s block ({agreement.blockCount} in all). Solid line: the bias; dashed: the limits
-        of agreement, where 95 % of blocks are expected to fall.
+        Each dot is one {agreement.blockSeconds} s block ({agreement.blockCount} in all). Solid line: the bias; dashed: the limits of
+        agreement, where 95 % of blocks are expected to fall.
       </figcaption>
     </figure>
   );

@@ -47,7 +47,13 @@ export function FitFileDrop({
         onDragLeave={() => setDragging(false)}
         onDrop={onDrop}
         className={`relative flex flex-col gap-3 rounded-card border-2 border-dashed p-4 transition-colors sm:p-5 ${
-          error ? 'border-alert-600 bg-alert-100/40' : dragging ? `${style.ring} ${style.tint}` : file ? `${style.ring} bg-white` : 'border-paper-line bg-white/70'
+          error
+            ? 'border-alert-600 bg-alert-100/40'
+            : dragging
+              ? `${style.ring} ${style.tint}`
+              : file
+                ? `${style.ring} bg-white`
+                : 'border-paper-line bg-white/70'
         }`}
       >
         <div className="flex items-center gap-3">

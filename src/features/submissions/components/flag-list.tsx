@@ -19,8 +19,13 @@ export function FlagList({ flags, compact }: { flags: QualityFlag[]; compact?: b
   return (
     <ul className={compact ? 'space-y-2' : 'space-y-3'}>
       {sorted.map((flag) => (
-        <li key={`${flag.code}:${flag.message}`} className={`flex items-start gap-3 rounded-lg border p-3 text-caption ${SEVERITY_STYLE[flag.severity]}`}>
-          <span className={`shrink-0 rounded-full px-2 py-0.5 text-[0.6875rem] font-bold uppercase tracking-wide ${BADGE_STYLE[flag.severity]}`}>
+        <li
+          key={`${flag.code}:${flag.message}`}
+          className={`flex items-start gap-3 rounded-lg border p-3 text-caption ${SEVERITY_STYLE[flag.severity]}`}
+        >
+          <span
+            className={`shrink-0 rounded-full px-2 py-0.5 text-[0.6875rem] font-bold uppercase tracking-wide ${BADGE_STYLE[flag.severity]}`}
+          >
             {SEVERITY_LABELS[flag.severity]}
           </span>
           <span>{flag.message}</span>

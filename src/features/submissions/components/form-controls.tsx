@@ -47,7 +47,10 @@ export function ChoiceGroup<T extends string>({
   accent?: 'fjord' | 'ember';
 }) {
   const errorId = `${name}-error`;
-  const checked = accent === 'ember' ? 'has-[:checked]:border-ember-700 has-[:checked]:bg-ember-700' : 'has-[:checked]:border-fjord-700 has-[:checked]:bg-fjord-700';
+  const checked =
+    accent === 'ember'
+      ? 'has-[:checked]:border-ember-700 has-[:checked]:bg-ember-700'
+      : 'has-[:checked]:border-fjord-700 has-[:checked]:bg-fjord-700';
   return (
     <fieldset aria-describedby={error ? errorId : undefined} aria-invalid={error ? true : undefined}>
       <legend className="mb-1.5 text-caption font-semibold text-ink">{legend}</legend>

@@ -6,7 +6,8 @@ import { formatClock, formatSignedSeconds, formatWatts } from '../lib/format';
 
 const th = 'px-3 py-2 text-left text-caption font-semibold text-ink-soft';
 const td = 'px-3 py-2 tabular-nums';
-const jump = 'font-semibold text-fjord-700 underline underline-offset-2 hover:text-fjord-900 focus-visible:outline focus-visible:outline-2 focus-visible:outline-fjord-500';
+const jump =
+  'font-semibold text-fjord-700 underline underline-offset-2 hover:text-fjord-900 focus-visible:outline focus-visible:outline-2 focus-visible:outline-fjord-500';
 
 type Jump = (from: number, to: number) => void;
 
@@ -14,21 +15,39 @@ type Jump = (from: number, to: number) => void;
 export function DropoutTable({ rows, onJump }: { rows: DropoutRow[]; onJump: Jump }) {
   if (rows.length === 0) return <p className="text-caption text-ink-soft">Neither meter dropped out on this ride.</p>;
   return (
-    <Frame caption="Power dropouts: meter, start, length, whether cadence vanished too and what the partner read meanwhile" minWidth="min-w-[26rem]">
+    <Frame
+      caption="Power dropouts: meter, start, length, whether cadence vanished too and what the partner read meanwhile"
+      minWidth="min-w-[26rem]"
+    >
       <thead className="bg-paper-deep">
         <tr>
-          <th scope="col" className={th}>Start</th>
-          <th scope="col" className={th}>Meter</th>
-          <th scope="col" className={`${th} text-right`}>Length</th>
-          <th scope="col" className={th}>Cadence lost too</th>
-          <th scope="col" className={`${th} text-right`}>Partner read</th>
+          <th scope="col" className={th}>
+            Start
+          </th>
+          <th scope="col" className={th}>
+            Meter
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            Length
+          </th>
+          <th scope="col" className={th}>
+            Cadence lost too
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            Partner read
+          </th>
         </tr>
       </thead>
       <tbody>
         {rows.map((row) => (
           <tr key={`${row.side}-${row.startSeconds}`} className="border-t border-paper-line">
             <td className={td}>
-              <button type="button" className={jump} onClick={() => onJump(row.startSeconds, row.startSeconds + row.durationSeconds)} aria-label={`Show the dropout of ${row.side.toUpperCase()} at ${formatClock(row.startSeconds)}`}>
+              <button
+                type="button"
+                className={jump}
+                onClick={() => onJump(row.startSeconds, row.startSeconds + row.durationSeconds)}
+                aria-label={`Show the dropout of ${row.side.toUpperCase()} at ${formatClock(row.startSeconds)}`}
+              >
                 {formatClock(row.startSeconds)}
               </button>
             </td>
@@ -45,24 +64,42 @@ export function DropoutTable({ rows, onJump }: { rows: DropoutRow[]; onJump: Jum
 
 /** Hard efforts found on B, each meter's peak and how fast it got to 80 % of it. */
 export function SprintTable({ sprints, onJump }: { sprints: Sprint[]; onJump: Jump }) {
-  if (sprints.length === 0) return <p className="text-caption text-ink-soft">No sprint on this ride (B above twice its average for 5 s or more).</p>;
+  if (sprints.length === 0)
+    return <p className="text-caption text-ink-soft">No sprint on this ride (B above twice its average for 5 s or more).</p>;
   return (
     <Frame caption="Sprints: start, length, both peaks, their difference and seconds to 80 % of each peak" minWidth="min-w-[30rem]">
       <thead className="bg-paper-deep">
         <tr>
-          <th scope="col" className={th}>Start</th>
-          <th scope="col" className={`${th} text-right`}>Length</th>
-          <th scope="col" className={`${th} text-right`}>Peak A</th>
-          <th scope="col" className={`${th} text-right`}>Peak B</th>
-          <th scope="col" className={`${th} text-right`}>A vs B</th>
-          <th scope="col" className={`${th} text-right`}>To 80 %, A / B</th>
+          <th scope="col" className={th}>
+            Start
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            Length
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            Peak A
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            Peak B
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            A vs B
+          </th>
+          <th scope="col" className={`${th} text-right`}>
+            To 80 %, A / B
+          </th>
         </tr>
       </thead>
       <tbody>
         {sprints.map((s) => (
           <tr key={s.startSeconds} className="border-t border-paper-line">
             <td className={td}>
-              <button type="button" className={jump} onClick={() => onJump(s.startSeconds, s.startSeconds + s.durationSeconds)} aria-label={`Show the sprint at ${formatClock(s.startSeconds)}`}>
+              <button
+                type="button"
+                className={jump}
+                onClick={() => onJump(s.startSeconds, s.startSeconds + s.durationSeconds)}
+                aria-label={`Show the sprint at ${formatClock(s.startSeconds)}`}
+              >
                 {formatClock(s.startSeconds)}
               </button>
             </td>
@@ -87,21 +124,39 @@ export function CadenceStepTable({ steps, onJump }: { steps: CadenceStep[]; onJu
   const seconds = (v: number | null, at: number) => (v === null ? '–' : `${(v - at).toFixed(1)} s`);
   return (
     <>
-      <Frame caption="Cadence steps: when, which way, the levels, each meter's crossing after the step and A's lag" minWidth="min-w-[30rem]">
+      <Frame
+        caption="Cadence steps: when, which way, the levels, each meter's crossing after the step and A's lag"
+        minWidth="min-w-[30rem]"
+      >
         <thead className="bg-paper-deep">
           <tr>
-            <th scope="col" className={th}>At</th>
-            <th scope="col" className={th}>Step</th>
-            <th scope="col" className={`${th} text-right`}>A crossed</th>
-            <th scope="col" className={`${th} text-right`}>B crossed</th>
-            <th scope="col" className={`${th} text-right`}>Lag A − B</th>
+            <th scope="col" className={th}>
+              At
+            </th>
+            <th scope="col" className={th}>
+              Step
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              A crossed
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              B crossed
+            </th>
+            <th scope="col" className={`${th} text-right`}>
+              Lag A − B
+            </th>
           </tr>
         </thead>
         <tbody>
           {steps.slice(0, SHOWN_STEPS).map((s) => (
             <tr key={s.atSeconds} className="border-t border-paper-line">
               <td className={td}>
-                <button type="button" className={jump} onClick={() => onJump(Math.max(0, s.atSeconds - 10), s.atSeconds + 10)} aria-label={`Show the cadence step at ${formatClock(s.atSeconds)}`}>
+                <button
+                  type="button"
+                  className={jump}
+                  onClick={() => onJump(Math.max(0, s.atSeconds - 10), s.atSeconds + 10)}
+                  aria-label={`Show the cadence step at ${formatClock(s.atSeconds)}`}
+                >
                   {formatClock(s.atSeconds)}
                 </button>
               </td>
@@ -110,12 +165,20 @@ export function CadenceStepTable({ steps, onJump }: { steps: CadenceStep[]; onJu
               </td>
               <td className={`${td} text-right`}>{seconds(s.aSeconds, s.atSeconds)}</td>
               <td className={`${td} text-right`}>{seconds(s.bSeconds, s.atSeconds)}</td>
-              <td className={`${td} text-right font-semibold`}>{s.lagSeconds === null ? '–' : `${s.lagSeconds > 0 ? '+' : s.lagSeconds < 0 ? '−' : ''}${Math.abs(s.lagSeconds).toFixed(1)} s`}</td>
+              <td className={`${td} text-right font-semibold`}>
+                {s.lagSeconds === null
+                  ? '–'
+                  : `${s.lagSeconds > 0 ? '+' : s.lagSeconds < 0 ? '−' : ''}${Math.abs(s.lagSeconds).toFixed(1)} s`}
+              </td>
             </tr>
           ))}
         </tbody>
       </Frame>
-      {steps.length > SHOWN_STEPS && <p className="text-caption text-ink-soft">The first {SHOWN_STEPS} of {steps.length} steps.</p>}
+      {steps.length > SHOWN_STEPS && (
+        <p className="text-caption text-ink-soft">
+          The first {SHOWN_STEPS} of {steps.length} steps.
+        </p>
+      )}
     </>
   );
 }

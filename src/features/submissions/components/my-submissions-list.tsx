@@ -41,7 +41,9 @@ export function MySubmissionsList() {
                 </span>
               </span>
               <span className="text-lead font-semibold tabular-nums text-ink">{signedPercent(s.biasPercent)}</span>
-              <span className="rounded-full bg-fjord-100 px-3 py-0.5 text-caption font-semibold text-fjord-900">{STATUS_LABELS[s.status]}</span>
+              <span className="rounded-full bg-fjord-100 px-3 py-0.5 text-caption font-semibold text-fjord-900">
+                {STATUS_LABELS[s.status]}
+              </span>
             </Link>
           </li>
         );

@@ -12,8 +12,8 @@ export function PairPreviewPanel({ state }: { state: PairPreviewState }) {
       </h2>
       {state.status === 'idle' && (
         <p className="mt-2 text-caption text-ink-soft">
-          Add both files and your browser reads them right here, nothing is uploaded yet, so you can see at once whether
-          they belong to the same ride.
+          Add both files and your browser reads them right here, nothing is uploaded yet, so you can see at once whether they belong to the
+          same ride.
         </p>
       )}
       {state.status === 'working' && (
@@ -42,7 +42,11 @@ export function PairPreviewPanel({ state }: { state: PairPreviewState }) {
               note={`LoA ${formatLimitsOfAgreement(state.answer.preview.lowerLimitPercent, state.answer.preview.upperLimitPercent)}`}
               accent
             />
-            <PreviewFigure term="Traces move together" value={`r = ${state.answer.preview.correlation.toFixed(2)}`} note={state.answer.preview.correlation > 0.8 ? 'looks like one ride' : 'check the pairing'} />
+            <PreviewFigure
+              term="Traces move together"
+              value={`r = ${state.answer.preview.correlation.toFixed(2)}`}
+              note={state.answer.preview.correlation > 0.8 ? 'looks like one ride' : 'check the pairing'}
+            />
           </dl>
           {state.answer.preview.flags.length > 0 && (
             <div className="mt-4">

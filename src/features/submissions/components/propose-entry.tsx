@@ -1,6 +1,12 @@
 import { useId, useState } from 'react';
 import { MEASUREMENT_POSITIONS, type MeasurementPosition } from '@shared/analysis/types';
-import { MODEL_KIND_LABELS, MODEL_KINDS, type ModelKind, proposeCatalogueEntryInput, RECORDING_DEVICE_KINDS } from '@shared/schemas/catalogue';
+import {
+  MODEL_KIND_LABELS,
+  MODEL_KINDS,
+  type ModelKind,
+  proposeCatalogueEntryInput,
+  RECORDING_DEVICE_KINDS,
+} from '@shared/schemas/catalogue';
 import { ApiError } from '@/lib/api-client';
 import { useProposeCatalogueEntry } from '../api/propose-catalogue-entry';
 import { POSITION_LABELS, RECORDING_DEVICE_KIND_LABELS } from '../lib/labels';
@@ -62,7 +68,14 @@ export function ProposeEntry({
         setOpen(false);
         setName('');
       },
-      onError: (err) => setError(err instanceof ApiError ? (err.details?.fields ? Object.values(err.details.fields)[0] : err.message) : 'The proposal could not be sent.'),
+      onError: (err) =>
+        setError(
+          err instanceof ApiError
+            ? err.details?.fields
+              ? Object.values(err.details.fields)[0]
+              : err.message
+            : 'The proposal could not be sent.',
+        ),
     });
   }
 

@@ -62,7 +62,10 @@ export function RecordingFieldset({
             onChange={(makerId) => set({ makerId, modelId: '', firmwareId: '', position: '' })}
             error={error('makerId')}
           />
-          <ProposeEntry type="maker" onProposed={(makerId) => set({ makerId: String(makerId), modelId: '', firmwareId: '', position: '' })} />
+          <ProposeEntry
+            type="maker"
+            onProposed={(makerId) => set({ makerId: String(makerId), modelId: '', firmwareId: '', position: '' })}
+          />
         </div>
         <div>
           <CataloguePicker
@@ -92,7 +95,11 @@ export function RecordingFieldset({
             disabled={!draft.modelId}
             error={draft.modelId ? error('firmwareId') : undefined}
           />
-          <ProposeEntry type="firmware" modelId={Number(draft.modelId) || undefined} onProposed={(firmwareId) => set({ firmwareId: String(firmwareId) })} />
+          <ProposeEntry
+            type="firmware"
+            modelId={Number(draft.modelId) || undefined}
+            onProposed={(firmwareId) => set({ firmwareId: String(firmwareId) })}
+          />
         </div>
       </div>
 

@@ -15,7 +15,10 @@ export function RecordingSummary({ recordings }: { recordings: SubmissionRecordi
         return (
           <article key={r.side} className={`rounded-card border border-l-4 border-paper-line bg-white p-5 shadow-card ${style.bar}`}>
             <div className="flex items-center gap-3">
-              <span aria-hidden="true" className={`grid h-8 w-8 shrink-0 place-items-center rounded-full font-bold text-paper ${style.badge}`}>
+              <span
+                aria-hidden="true"
+                className={`grid h-8 w-8 shrink-0 place-items-center rounded-full font-bold text-paper ${style.badge}`}
+              >
                 {r.side.toUpperCase()}
               </span>
               <div>

@@ -61,7 +61,9 @@ export function ResultHeadline({ result }: { result: RideComparisonView }) {
 
 function Figure({ term, value, detail, wide }: { term: string; value: ReactNode; detail: ReactNode; wide?: boolean }) {
   return (
-    <div className={`rounded-card border border-paper-line bg-white p-5 shadow-card ${wide ? 'sm:col-span-2 lg:col-span-1 lg:row-span-1' : ''}`}>
+    <div
+      className={`rounded-card border border-paper-line bg-white p-5 shadow-card ${wide ? 'sm:col-span-2 lg:col-span-1 lg:row-span-1' : ''}`}
+    >
       <dt className="text-caption font-semibold uppercase tracking-wider text-ink-soft">{term}</dt>
       <dd className="mt-1 text-title font-semibold tabular-nums text-ink">{value}</dd>
       <dd className="mt-1.5 text-caption text-ink-soft">{detail}</dd>

@@ -13,7 +13,9 @@ export function PeakPowerTable({ peaks }: { peaks: Peaks }) {
         <caption className="sr-only">Peak power of A and B over standard durations</caption>
         <thead className="bg-paper-deep">
           <tr>
-            <th scope="col" className={th}>Best over</th>
+            <th scope="col" className={th}>
+              Best over
+            </th>
             <MeterColumns />
           </tr>
         </thead>
@@ -29,7 +31,9 @@ export function PeakPowerTable({ peaks }: { peaks: Peaks }) {
             </tr>
           ))}
           <tr className="border-t-2 border-paper-line">
-            <th scope="row" className={`${td} text-left font-medium`}>Average</th>
+            <th scope="row" className={`${td} text-left font-medium`}>
+              Average
+            </th>
             <td className={`${td} text-right`}>{formatWatts(peaks.averageWatts.a)}</td>
             <td className={`${td} text-right`}>{formatWatts(peaks.averageWatts.b)}</td>
             <td className={td} />
@@ -58,8 +62,12 @@ export function SteadySegmentsTable({ segments }: { segments: SteadySegment[] })
         <caption className="sr-only">Steady segments: start, length, mean power of A and B and their difference</caption>
         <thead className="bg-paper-deep">
           <tr>
-            <th scope="col" className={th}>From</th>
-            <th scope="col" className={th}>Length</th>
+            <th scope="col" className={th}>
+              From
+            </th>
+            <th scope="col" className={th}>
+              Length
+            </th>
             <MeterColumns />
           </tr>
         </thead>

@@ -17,7 +17,8 @@ export function RideConditions({ result, names }: { result: RideComparisonView; 
       <p data-testid="ride-drift">
         {drift ? (
           <>
-            Over {plain(drift.spanHours, 1)} h the difference moved by <strong className="tabular-nums">{signed(drift.percentPerHour, 1)} points per hour</strong>{' '}
+            Over {plain(drift.spanHours, 1)} h the difference moved by{' '}
+            <strong className="tabular-nums">{signed(drift.percentPerHour, 1)} points per hour</strong>{' '}
             <span className="text-ink-soft tabular-nums">
               (95 % interval {plain(drift.lower, 1)} to {plain(drift.upper, 1)})
             </span>

@@ -13,7 +13,15 @@ import { balance, SectionPanel } from './section-panel';
 const JUMP_MARGIN_SECONDS = 30;
 
 /** Both meters over the ride, a section's figures, and the events the engine found, each row jumping the chart. */
-export function RideInspector({ submissionId, result, names }: { submissionId: number; result: RideComparisonView; names: { a: string; b: string } }) {
+export function RideInspector({
+  submissionId,
+  result,
+  names,
+}: {
+  submissionId: number;
+  result: RideComparisonView;
+  names: { a: string; b: string };
+}) {
   const trace = useRideTrace(submissionId, true);
   const charts = useRef<TraceCharts>({ power: null, cadence: null });
   const [section, setSection] = useState<{ from: number; to: number } | null>(null);
@@ -25,7 +33,8 @@ export function RideInspector({ submissionId, result, names }: { submissionId: n
   const whole = useMemo(() => (data ? sectionFigures(data, 0, data.length) : null), [data]);
 
   if (trace.isPending) return <p className="text-caption text-ink-soft">Loading both recordings…</p>;
-  if (trace.isError || !data || !whole) return <p className="text-caption text-alert-800">The recordings could not be loaded: {trace.error?.message}</p>;
+  if (trace.isError || !data || !whole)
+    return <p className="text-caption text-alert-800">The recordings could not be loaded: {trace.error?.message}</p>;
 
   const chosen = section ?? { from: 0, to: data.length };
   const figures = sectionFigures(data, chosen.from, chosen.to);
@@ -33,21 +42,45 @@ export function RideInspector({ submissionId, result, names }: { submissionId: n
     const start = Math.max(0, Math.round(Math.min(from, to)));
     const end = Math.min(data.length, Math.round(Math.max(from, to)));
     setSection({ from: start, to: end });
-    showSection(charts.current, start, end, zoom ? { min: Math.max(0, start - JUMP_MARGIN_SECONDS), max: Math.min(data.length - 1, end + JUMP_MARGIN_SECONDS) } : null);
+    showSection(
+      charts.current,
+      start,
+      end,
+      zoom ? { min: Math.max(0, start - JUMP_MARGIN_SECONDS), max: Math.min(data.length - 1, end + JUMP_MARGIN_SECONDS) } : null,
+    );
   };
   const jump = (from: number, to: number) => {
     choose(from, to, true);
     panel.current?.scrollIntoView({ behavior: 'smooth', block: 'start' });
   };
   const zoom = (to: 'section' | 'ride') =>
-    showSection(charts.current, figures.fromSeconds, figures.toSeconds, to === 'ride' ? { min: 0, max: data.length - 1 } : { min: figures.fromSeconds, max: Math.max(figures.fromSeconds + 1, figures.toSeconds) });
+    showSection(
+      charts.current,
+      figures.fromSeconds,
+      figures.toSeconds,
+      to === 'ride'
+        ? { min: 0, max: data.length - 1 }
+        : { min: figures.fromSeconds, max: Math.max(figures.fromSeconds + 1, figures.toSeconds) },
+    );
 
   const hasBalance = data.aRightBalance.length > 0 || data.bRightBalance.length > 0;
   return (
     <div className="space-y-8">
       <div ref={panel} className="scroll-mt-4 space-y-4">
-        <RideTraceCharts trace={data} dropouts={result.dropouts} syncKey={`ride-${submissionId}`} charts={charts} onSelect={(from, to) => choose(from, to)} />
-        <SectionPanel figures={figures} rideSeconds={data.length} names={names} onChoose={(from, to) => choose(from, to, true)} onZoom={zoom} />
+        <RideTraceCharts
+          trace={data}
+          dropouts={result.dropouts}
+          syncKey={`ride-${submissionId}`}
+          charts={charts}
+          onSelect={(from, to) => choose(from, to)}
+        />
+        <SectionPanel
+          figures={figures}
+          rideSeconds={data.length}
+          names={names}
+          onChoose={(from, to) => choose(from, to, true)}
+          onZoom={zoom}
+        />
       </div>
 
       <div className="grid gap-8 lg:grid-cols-2">
@@ -65,13 +98,15 @@ export function RideInspector({ submissionId, result, names }: { submissionId: n
         lead="Where the cadence jumps (on/off efforts, surges), when each meter's reading crossed halfway between the two levels. A positive lag means A follows later than B."
       >
         {steps.length === 0 ? (
-          <p className="text-caption text-ink-soft">No cadence step of 25 rpm or more on this ride. Ride a few 5-s on/off efforts to see the lag.</p>
+          <p className="text-caption text-ink-soft">
+            No cadence step of 25 rpm or more on this ride. Ride a few 5-s on/off efforts to see the lag.
+          </p>
         ) : (
           <>
             <p className="text-body">
-              Median lag on steps up <strong className="tabular-nums">{formatSignedSeconds(medianStepLag(steps, 'up'))}</strong>, on steps down{' '}
-              <strong className="tabular-nums">{formatSignedSeconds(medianStepLag(steps, 'down'))}</strong> over {steps.length} steps; the whole-ride
-              estimate is {formatSignedSeconds(result.cadenceLagSeconds)}.
+              Median lag on steps up <strong className="tabular-nums">{formatSignedSeconds(medianStepLag(steps, 'up'))}</strong>, on steps
+              down <strong className="tabular-nums">{formatSignedSeconds(medianStepLag(steps, 'down'))}</strong> over {steps.length} steps;
+              the whole-ride estimate is {formatSignedSeconds(result.cadenceLagSeconds)}.
             </p>
             <CadenceStepTable steps={steps} onJump={jump} />
           </>

@@ -48,37 +48,48 @@ export function RideTraceCharts({
     readout.current.textContent = `${formatClock(i)} · A ${w(trace.aPower[i])} · B ${w(trace.bPower[i])} · cadence A ${c(trace.aCadence[i])} / B ${c(trace.bCadence[i])} rpm`;
   };
 
-  const options = (kind: 'power' | 'cadence') => (width: number, height: number): uPlot.Options => ({
-    width,
-    height,
-    legend: { show: false },
-    cursor: {
-      sync: { key: syncKey, setSeries: false },
-      drag: { x: true, y: false, setScale: false },
-      points: { size: 6 },
-    },
-    select: { show: true, left: 0, top: 0, width: 0, height: 0 },
-    scales: { x: { time: false } },
-    axes: [
-      axis({ values: (_u, ticks) => ticks.map(formatClock), ...(kind === 'cadence' && { label: 'Ride time (h:min:s)', labelSize: 22 }) }),
-      axis({ values: (_u, ticks) => ticks.map((t) => (kind === 'power' ? `${t} W` : `${t}`)), size: 56, ...(kind === 'cadence' && { label: 'rpm', labelSize: 18 }) }),
-    ],
-    series: [
-      {},
-      { label: 'A', stroke: CHART_COLOURS.a, width: 1.25, spanGaps: false, points: { show: false } },
-      { label: 'B', stroke: CHART_COLOURS.b, width: 1.25, spanGaps: false, points: { show: false } },
-    ],
-    hooks: {
-      drawClear: [(u) => (kind === 'power' ? drawDropouts(u, dropouts.a.power.events, dropouts.b.power.events) : drawDropouts(u, dropouts.a.cadence.events, dropouts.b.cadence.events))],
-      setCursor: [showReadout],
-      setSelect: [
-        (u) => {
-          if (u.select.width < 2) return;
-          onSelectRef.current(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x'));
-        },
+  const options =
+    (kind: 'power' | 'cadence') =>
+    (width: number, height: number): uPlot.Options => ({
+      width,
+      height,
+      legend: { show: false },
+      cursor: {
+        sync: { key: syncKey, setSeries: false },
+        drag: { x: true, y: false, setScale: false },
+        points: { size: 6 },
+      },
+      select: { show: true, left: 0, top: 0, width: 0, height: 0 },
+      scales: { x: { time: false } },
+      axes: [
+        axis({ values: (_u, ticks) => ticks.map(formatClock), ...(kind === 'cadence' && { label: 'Ride time (h:min:s)', labelSize: 22 }) }),
+        axis({
+          values: (_u, ticks) => ticks.map((t) => (kind === 'power' ? `${t} W` : `${t}`)),
+          size: 56,
+          ...(kind === 'cadence' && { label: 'rpm', labelSize: 18 }),
+        }),
       ],
-    },
-  });
+      series: [
+        {},
+        { label: 'A', stroke: CHART_COLOURS.a, width: 1.25, spanGaps: false, points: { show: false } },
+        { label: 'B', stroke: CHART_COLOURS.b, width: 1.25, spanGaps: false, points: { show: false } },
+      ],
+      hooks: {
+        drawClear: [
+          (u) =>
+            kind === 'power'
+              ? drawDropouts(u, dropouts.a.power.events, dropouts.b.power.events)
+              : drawDropouts(u, dropouts.a.cadence.events, dropouts.b.cadence.events),
+        ],
+        setCursor: [showReadout],
+        setSelect: [
+          (u) => {
+            if (u.select.width < 2) return;
+            onSelectRef.current(u.posToVal(u.select.left, 'x'), u.posToVal(u.select.left + u.select.width, 'x'));
+          },
+        ],
+      },
+    });
 
   return (
     <figure className="space-y-2">

@@ -58,27 +58,59 @@ export function SectionPanel({
       <form onSubmit={apply} className="flex flex-wrap items-end gap-3" aria-label="Choose a section">
         <label className="w-28 text-caption font-semibold text-ink-soft">
           From
-          <input className={`${inputClass} ${inputBorder(!!error)} mt-1`} value={from} onChange={(e) => setFrom(e.target.value)} name="section-from" inputMode="numeric" aria-describedby="section-error" />
+          <input
+            className={`${inputClass} ${inputBorder(!!error)} mt-1`}
+            value={from}
+            onChange={(e) => setFrom(e.target.value)}
+            name="section-from"
+            inputMode="numeric"
+            aria-describedby="section-error"
+          />
         </label>
         <label className="w-28 text-caption font-semibold text-ink-soft">
           To
-          <input className={`${inputClass} ${inputBorder(!!error)} mt-1`} value={to} onChange={(e) => setTo(e.target.value)} name="section-to" inputMode="numeric" aria-describedby="section-error" />
+          <input
+            className={`${inputClass} ${inputBorder(!!error)} mt-1`}
+            value={to}
+            onChange={(e) => setTo(e.target.value)}
+            name="section-to"
+            inputMode="numeric"
+            aria-describedby="section-error"
+          />
         </label>
-        <button type="submit" className={button}>Show section</button>
-        <button type="button" className={button} onClick={() => onChoose(0, rideSeconds)}>Whole ride</button>
-        <button type="button" className={button} onClick={() => onZoom('section')}>Zoom to section</button>
-        <button type="button" className={button} onClick={() => onZoom('ride')}>Zoom out</button>
+        <button type="submit" className={button}>
+          Show section
+        </button>
+        <button type="button" className={button} onClick={() => onChoose(0, rideSeconds)}>
+          Whole ride
+        </button>
+        <button type="button" className={button} onClick={() => onZoom('section')}>
+          Zoom to section
+        </button>
+        <button type="button" className={button} onClick={() => onZoom('ride')}>
+          Zoom out
+        </button>
       </form>
       <FieldError id="section-error" message={error} />
 
       <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-4" aria-live="polite">
         <Figure term={`${names.a} (A), average`} value={formatWatts(figures.aAverageWatts)} tone="text-ember-700" />
         <Figure term={`${names.b} (B), average`} value={formatWatts(figures.bAverageWatts)} tone="text-moss-700" />
-        <Figure term="A − B" value={figures.differenceWatts === null ? '–' : `${formatSignedWatts(figures.differenceWatts, 1)} · ${signedPercent(figures.differencePercent)}`} />
+        <Figure
+          term="A − B"
+          value={
+            figures.differenceWatts === null
+              ? '–'
+              : `${formatSignedWatts(figures.differenceWatts, 1)} · ${signedPercent(figures.differencePercent)}`
+          }
+        />
         <Figure term="Matched seconds" value={`${figures.matchedSeconds} of ${figures.toSeconds - figures.fromSeconds}`} />
         <Figure term="Peak A" value={formatWatts(figures.aPeakWatts)} />
         <Figure term="Peak B" value={formatWatts(figures.bPeakWatts)} />
-        <Figure term="Section" value={`${formatClock(figures.fromSeconds)}–${formatClock(figures.toSeconds)} (${formatDuration(figures.toSeconds - figures.fromSeconds)})`} />
+        <Figure
+          term="Section"
+          value={`${formatClock(figures.fromSeconds)}–${formatClock(figures.toSeconds)} (${formatDuration(figures.toSeconds - figures.fromSeconds)})`}
+        />
         {(figures.aRightBalancePercent !== null || figures.bRightBalancePercent !== null) && (
           <Figure term="L/R balance" value={`A ${balance(figures.aRightBalancePercent)} · B ${balance(figures.bRightBalancePercent)}`} />
         )}
@@ -96,8 +128,8 @@ export function SectionPanel({
         </span>
       </div>
       <p className="text-caption text-ink-faint">
-        Averages and the difference use the matched seconds only (both meters reporting, neither inside a dropout), as the ride’s
-        bias does; peaks are each meter’s highest one-second reading in the section.
+        Averages and the difference use the matched seconds only (both meters reporting, neither inside a dropout), as the ride’s bias does;
+        peaks are each meter’s highest one-second reading in the section.
       </p>
     </div>
   );

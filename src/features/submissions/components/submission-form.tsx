@@ -84,7 +84,8 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
     let next = changed;
     if (fileDevices && catalogue.data) {
       for (const side of ['a', 'b'] as const) {
-        if (next[side].modelId !== draft[side].modelId) next = { ...next, [side]: prefillFromFile(fileDevices[side], next[side], catalogue.data) };
+        if (next[side].modelId !== draft[side].modelId)
+          next = { ...next, [side]: prefillFromFile(fileDevices[side], next[side], catalogue.data) };
       }
     }
     setDraft(next);
@@ -125,9 +126,16 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
           }
           const fields = error.details?.fields ?? {};
           setErrors(fields);
-          if (error.status === 401) setFormProblem({ message: 'Your session has ended. Sign in again and send the ride; the form keeps your answers only on this page.', link: { to: signInHref, label: 'Sign in' } });
+          if (error.status === 401)
+            setFormProblem({
+              message: 'Your session has ended. Sign in again and send the ride; the form keeps your answers only on this page.',
+              link: { to: signInHref, label: 'Sign in' },
+            });
           else if (error.status === 409 && typeof error.details?.submissionId === 'number')
-            setFormProblem({ message: error.message, link: { to: `/submissions/${error.details.submissionId}`, label: 'Open the earlier submission' } });
+            setFormProblem({
+              message: error.message,
+              link: { to: `/submissions/${error.details.submissionId}`, label: 'Open the earlier submission' },
+            });
           else setFormProblem({ message: error.message });
           focusFirstError(fields);
         },
@@ -183,7 +191,9 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
             onChange={(next) => update({ ...draft, [side]: next })}
             errors={shownErrors}
           />
-          {fileDevices && <FileTagWarnings side={side} disagreements={checkDraftTags(fileDevices[side], draft[side], catalogue.data).disagreements} />}
+          {fileDevices && (
+            <FileTagWarnings side={side} disagreements={checkDraftTags(fileDevices[side], draft[side], catalogue.data).disagreements} />
+          )}
         </section>
       ))}
 
@@ -199,7 +209,9 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
             { value: 'indoor', label: 'Indoors' },
           ]}
           value={draft.indoor}
-          onChange={(indoor) => update({ ...draft, indoor, surface: indoor === 'indoor' ? 'trainer' : draft.surface === 'trainer' ? '' : draft.surface })}
+          onChange={(indoor) =>
+            update({ ...draft, indoor, surface: indoor === 'indoor' ? 'trainer' : draft.surface === 'trainer' ? '' : draft.surface })
+          }
           error={shownErrors.indoor}
         />
         <ChoiceGroup
@@ -236,7 +248,11 @@ export function SubmissionForm({ signInHref }: { signInHref: string }) {
           <div role="alert" className="rounded-lg border border-alert-600/40 bg-alert-100 p-4 text-alert-800">
             <p className="font-medium">{formProblem.message}</p>
             {formProblem.link && (
-              <Link to={formProblem.link.to} reloadDocument={formProblem.link.to.startsWith('/auth/')} className="mt-1 inline-block font-semibold underline">
+              <Link
+                to={formProblem.link.to}
+                reloadDocument={formProblem.link.to.startsWith('/auth/')}
+                className="mt-1 inline-block font-semibold underline"
+              >
                 {formProblem.link.label}
               </Link>
             )}

@@ -2,7 +2,11 @@ import type { SubmissionStatus } from '@shared/schemas/submission';
 import { STATUS_LABELS } from '../lib/labels';
 
 const STEPS: Array<{ key: string; label: string; reached: SubmissionStatus[] }> = [
-  { key: 'received', label: 'Received', reached: ['received', 'analysing', 'awaiting_review', 'sent_back', 'accepted', 'rejected', 'withdrawn', 'failed'] },
+  {
+    key: 'received',
+    label: 'Received',
+    reached: ['received', 'analysing', 'awaiting_review', 'sent_back', 'accepted', 'rejected', 'withdrawn', 'failed'],
+  },
   { key: 'analysing', label: 'Analysed', reached: ['awaiting_review', 'sent_back', 'accepted', 'rejected'] },
   { key: 'review', label: 'Reviewed by a moderator', reached: ['accepted', 'rejected', 'sent_back'] },
 ];
@@ -28,11 +32,17 @@ export function SubmissionProgress({ status, errorMessage }: { status: Submissio
           Status
         </h2>
         <p role="status" aria-live="polite" className="flex items-center gap-2">
-          {working && <span aria-hidden="true" className="h-3.5 w-3.5 animate-spin rounded-full border-2 border-fjord-300 border-t-fjord-700" />}
+          {working && (
+            <span aria-hidden="true" className="h-3.5 w-3.5 animate-spin rounded-full border-2 border-fjord-300 border-t-fjord-700" />
+          )}
           <span
             data-testid="submission-status"
             className={`rounded-full px-3 py-0.5 text-caption font-semibold ${
-              status === 'failed' || status === 'rejected' ? 'bg-alert-100 text-alert-800' : status === 'accepted' ? 'bg-moss-100 text-moss-700' : 'bg-fjord-100 text-fjord-900'
+              status === 'failed' || status === 'rejected'
+                ? 'bg-alert-100 text-alert-800'
+                : status === 'accepted'
+                  ? 'bg-moss-100 text-moss-700'
+                  : 'bg-fjord-100 text-fjord-900'
             }`}
           >
             {STATUS_LABELS[status]}
@@ -48,7 +58,11 @@ export function SubmissionProgress({ status, errorMessage }: { status: Submissio
               <span
                 aria-hidden="true"
                 className={`grid h-6 w-6 shrink-0 place-items-center rounded-full text-[0.6875rem] font-bold ${
-                  done ? 'bg-fjord-700 text-paper' : current ? 'border-2 border-fjord-700 text-fjord-700' : 'border border-paper-line text-ink-faint'
+                  done
+                    ? 'bg-fjord-700 text-paper'
+                    : current
+                      ? 'border-2 border-fjord-700 text-fjord-700'
+                      : 'border border-paper-line text-ink-faint'
                 }`}
               >
                 {done ? '✓' : index + 1}

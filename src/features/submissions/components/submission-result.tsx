@@ -11,7 +11,15 @@ import { RideConditions } from './ride-conditions';
 import { RideInspector } from './ride-inspector';
 
 /** Everything the analysis found, figures first, then the pictures, then the tables. */
-export function SubmissionResult({ submissionId, result, names }: { submissionId: number; result: RideComparisonView; names: { a: string; b: string } }) {
+export function SubmissionResult({
+  submissionId,
+  result,
+  names,
+}: {
+  submissionId: number;
+  result: RideComparisonView;
+  names: { a: string; b: string };
+}) {
   return (
     <div className="space-y-10">
       <section aria-labelledby="headline-title" className="space-y-4">
@@ -31,19 +39,35 @@ export function SubmissionResult({ submissionId, result, names }: { submissionId
         )}
       </Block>
 
-      <Block id="inspect" title="Inspect the ride" lead="Both meters over each other, second by second. Drag across the chart, or type a start and an end, to read a section.">
+      <Block
+        id="inspect"
+        title="Inspect the ride"
+        lead="Both meters over each other, second by second. Drag across the chart, or type a start and an end, to read a section."
+      >
         <RideInspector submissionId={submissionId} result={result} names={names} />
       </Block>
 
-      <Block id="difference" title="The difference over the ride" lead="A minus B, averaged over short stretches. Shaded bands mark where a meter stopped reporting power.">
+      <Block
+        id="difference"
+        title="The difference over the ride"
+        lead="A minus B, averaged over short stretches. Shaded bands mark where a meter stopped reporting power."
+      >
         <DifferenceChart result={result} />
       </Block>
 
-      <Block id="conditions" title="Drift, temperature and batteries" lead="Does the difference creep during the ride, and does it change with the cold or the heat?">
+      <Block
+        id="conditions"
+        title="Drift, temperature and batteries"
+        lead="Does the difference creep during the ride, and does it change with the cold or the heat?"
+      >
         <RideConditions result={result} names={names} />
       </Block>
 
-      <Block id="agreement" title="Agreement, block by block" lead="A Bland–Altman plot: does the gap between the meters depend on how hard you pushed?">
+      <Block
+        id="agreement"
+        title="Agreement, block by block"
+        lead="A Bland–Altman plot: does the gap between the meters depend on how hard you pushed?"
+      >
         <BlandAltmanChart agreement={result.agreement} />
       </Block>
 

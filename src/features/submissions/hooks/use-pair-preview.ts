@@ -49,7 +49,10 @@ export function usePairPreview(fileA: File | null, fileB: File | null, options: 
       if (!controller.signal.aborted) setState({ status: 'done', answer });
     })().catch(() => {
       if (!controller.signal.aborted) {
-        setState({ status: 'done', answer: { ok: false, error: { code: 'preview_failed', message: 'These files could not be read in the browser.', side: null } } });
+        setState({
+          status: 'done',
+          answer: { ok: false, error: { code: 'preview_failed', message: 'These files could not be read in the browser.', side: null } },
+        });
       }
     });
     return () => controller.abort();

@@ -27,8 +27,14 @@ export const STATUS_LABELS: Record<SubmissionStatus, string> = {
 
 export const LIKE_FOR_LIKE_LABELS: Record<LikeForLikeMode, { title: string; text: string }> = {
   direct: { title: 'Direct', text: 'Both meters measure the same thing, so their totals are compared directly.' },
-  via_balance: { title: 'Via leg balance', text: 'One meter measures a single leg: it is compared with that leg of the other meter, using its balance.' },
-  mixed: { title: 'Mixed', text: 'The meters measure different things and no balance was recorded, so leg imbalance is part of the difference.' },
+  via_balance: {
+    title: 'Via leg balance',
+    text: 'One meter measures a single leg: it is compared with that leg of the other meter, using its balance.',
+  },
+  mixed: {
+    title: 'Mixed',
+    text: 'The meters measure different things and no balance was recorded, so leg imbalance is part of the difference.',
+  },
 };
 
 export const SEVERITY_LABELS: Record<FlagSeverity, string> = { info: 'Note', warning: 'Check', severe: 'Problem' };

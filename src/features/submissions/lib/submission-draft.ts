@@ -1,6 +1,12 @@
 import type { MeasurementPosition, Side } from '@shared/analysis/types';
 import { AFTER_DRIVETRAIN_KINDS, type Catalogue } from '@shared/schemas/catalogue';
-import { createSubmissionInput, type CreateSubmissionInput, type RECORDING_MODES, type Surface, type ZERO_OFFSET_ANSWERS } from '@shared/schemas/submission';
+import {
+  createSubmissionInput,
+  type CreateSubmissionInput,
+  type RECORDING_MODES,
+  type Surface,
+  type ZERO_OFFSET_ANSWERS,
+} from '@shared/schemas/submission';
 import { MAX_FIT_FILE_BYTES } from '@shared/limits';
 
 /** What the form holds for one recording: strings as the controls give them, '' for "not chosen yet". */
@@ -80,7 +86,8 @@ export const FILE_FIELD: Record<Side, 'fileA' | 'fileB'> = { a: 'fileA', b: 'fil
 
 export function checkFile(side: Side, file: File | null): string | undefined {
   if (!file) return side === 'a' ? 'choose the first FIT file (A)' : 'choose the second FIT file (B)';
-  if (file.size > MAX_FIT_FILE_BYTES) return `this file is larger than ${MAX_FIT_FILE_BYTES / (1024 * 1024)} MB, which no ride recording should be`;
+  if (file.size > MAX_FIT_FILE_BYTES)
+    return `this file is larger than ${MAX_FIT_FILE_BYTES / (1024 * 1024)} MB, which no ride recording should be`;
   if (file.size === 0) return 'this file is empty';
   return undefined;
 }

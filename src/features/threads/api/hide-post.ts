@@ -7,5 +7,7 @@ export function setPostVisibility(postId: number, input: PostVisibilityInput): P
 }
 
 export function useSetPostVisibility(threadId: number, modelSlug: string) {
-  return useThreadMutation(threadId, modelSlug, ({ postId, ...input }: PostVisibilityInput & { postId: number }) => setPostVisibility(postId, input));
+  return useThreadMutation(threadId, modelSlug, ({ postId, ...input }: PostVisibilityInput & { postId: number }) =>
+    setPostVisibility(postId, input),
+  );
 }

@@ -7,7 +7,19 @@ export const primaryButtonClass =
 export const quietButtonClass =
   'rounded-full border border-paper-line px-3 py-1 text-caption font-medium text-ink-soft hover:border-fjord-300 hover:text-ink disabled:opacity-60';
 
-export function FormField({ id, label, error, hint, children }: { id: string; label: string; error?: string; hint?: string; children: ReactNode }) {
+export function FormField({
+  id,
+  label,
+  error,
+  hint,
+  children,
+}: {
+  id: string;
+  label: string;
+  error?: string;
+  hint?: string;
+  children: ReactNode;
+}) {
   return (
     <div className="space-y-1">
       <label htmlFor={id} className="block text-caption font-semibold text-ink">

@@ -12,7 +12,11 @@ export function ModelThreadSummary({ modelSlug }: { modelSlug: string }) {
   if (summary.isError) return null;
   const { openCount, totalCount, threads } = summary.data;
   return (
-    <section aria-labelledby="model-discussions" className="space-y-3 rounded-card border border-paper-line bg-white p-5" data-testid="model-thread-summary">
+    <section
+      aria-labelledby="model-discussions"
+      className="space-y-3 rounded-card border border-paper-line bg-white p-5"
+      data-testid="model-thread-summary"
+    >
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id="model-discussions" className="text-lead font-semibold text-ink">
           Discussions

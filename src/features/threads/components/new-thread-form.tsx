@@ -5,7 +5,15 @@ import { fieldErrors } from '../lib/field-errors';
 import { FormError, FormField, inputClass, primaryButtonClass } from './form-field';
 import { SubmissionPicker } from './submission-picker';
 
-export function NewThreadForm({ modelSlug, firmware, onCreated }: { modelSlug: string; firmware: FirmwareRef[]; onCreated: (id: number) => void }) {
+export function NewThreadForm({
+  modelSlug,
+  firmware,
+  onCreated,
+}: {
+  modelSlug: string;
+  firmware: FirmwareRef[];
+  onCreated: (id: number) => void;
+}) {
   const id = useId();
   const [title, setTitle] = useState('');
   const [body, setBody] = useState('');
@@ -28,11 +36,28 @@ export function NewThreadForm({ modelSlug, firmware, onCreated }: { modelSlug: s
         if (parsed.success) create.mutate(input);
       }}
     >
-      <FormField id={`${id}-title`} label="What do you see?" error={errors.title} hint="One line, e.g. “Cadence drops out on gravel since 3.2”.">
-        <input id={`${id}-title`} value={title} maxLength={THREAD_TITLE_MAX} onChange={(e) => setTitle(e.target.value)} aria-invalid={!!errors.title} className={inputClass} />
+      <FormField
+        id={`${id}-title`}
+        label="What do you see?"
+        error={errors.title}
+        hint="One line, e.g. “Cadence drops out on gravel since 3.2”."
+      >
+        <input
+          id={`${id}-title`}
+          value={title}
+          maxLength={THREAD_TITLE_MAX}
+          onChange={(e) => setTitle(e.target.value)}
+          aria-invalid={!!errors.title}
+          className={inputClass}
+        />
       </FormField>
       <FormField id={`${id}-firmware`} label="Firmware (optional)" error={errors.firmwareId}>
-        <select id={`${id}-firmware`} value={firmwareId} onChange={(e) => setFirmwareId(e.target.value ? Number(e.target.value) : '')} className={inputClass}>
+        <select
+          id={`${id}-firmware`}
+          value={firmwareId}
+          onChange={(e) => setFirmwareId(e.target.value ? Number(e.target.value) : '')}
+          className={inputClass}
+        >
           <option value="">Any or unknown</option>
           {firmware.map((f) => (
             <option key={f.id} value={f.id}>
@@ -41,8 +66,21 @@ export function NewThreadForm({ modelSlug, firmware, onCreated }: { modelSlug: s
           ))}
         </select>
       </FormField>
-      <FormField id={`${id}-body`} label="Details" error={errors.body} hint="When it happens, how often, what you ride it with. Markdown works.">
-        <textarea id={`${id}-body`} rows={6} maxLength={POST_BODY_MAX} value={body} onChange={(e) => setBody(e.target.value)} aria-invalid={!!errors.body} className={inputClass} />
+      <FormField
+        id={`${id}-body`}
+        label="Details"
+        error={errors.body}
+        hint="When it happens, how often, what you ride it with. Markdown works."
+      >
+        <textarea
+          id={`${id}-body`}
+          rows={6}
+          maxLength={POST_BODY_MAX}
+          value={body}
+          onChange={(e) => setBody(e.target.value)}
+          aria-invalid={!!errors.body}
+          className={inputClass}
+        />
       </FormField>
       <SubmissionPicker modelSlug={modelSlug} selected={submissionIds} onChange={setSubmissionIds} />
       <FormError message={create.error && Object.keys(fieldErrors(create.error)).length === 0 ? create.error.message : undefined} />

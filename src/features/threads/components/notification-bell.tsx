@@ -47,17 +47,27 @@ export function NotificationBell() {
           <path d="M8.2 16.2a2 2 0 0 0 3.6 0" strokeLinecap="round" />
         </svg>
         {unreadCount > 0 && (
-          <span className="absolute -right-0.5 -top-0.5 min-w-5 rounded-full bg-ember-700 px-1 text-center text-[0.7rem] font-semibold leading-5 text-paper" data-testid="unread-count">
+          <span
+            className="absolute -right-0.5 -top-0.5 min-w-5 rounded-full bg-ember-700 px-1 text-center text-[0.7rem] font-semibold leading-5 text-paper"
+            data-testid="unread-count"
+          >
             {unreadCount > 99 ? '99+' : unreadCount}
           </span>
         )}
       </button>
       {open && (
-        <section className="absolute right-0 z-20 mt-2 w-80 rounded-card border border-paper-line bg-white p-2 shadow-card" aria-label="Notifications">
+        <section
+          className="absolute right-0 z-20 mt-2 w-80 rounded-card border border-paper-line bg-white p-2 shadow-card"
+          aria-label="Notifications"
+        >
           <div className="flex items-center justify-between px-2 py-1">
             <p className="text-caption font-semibold text-ink">Notifications</p>
             {unreadCount > 0 && (
-              <button type="button" className="text-caption font-medium text-fjord-700 underline" onClick={() => markRead.mutate({ all: true })}>
+              <button
+                type="button"
+                className="text-caption font-medium text-fjord-700 underline"
+                onClick={() => markRead.mutate({ all: true })}
+              >
                 Mark all read
               </button>
             )}

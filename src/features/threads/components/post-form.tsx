@@ -17,7 +17,17 @@ interface PostFormProps {
 }
 
 /** Writing a reply or editing a post; checked with the same schema as the server. */
-export function PostForm({ modelSlug, label, submitLabel, initialBody = '', linkSubmissions = true, pending, error, onSubmit, onCancel }: PostFormProps) {
+export function PostForm({
+  modelSlug,
+  label,
+  submitLabel,
+  initialBody = '',
+  linkSubmissions = true,
+  pending,
+  error,
+  onSubmit,
+  onCancel,
+}: PostFormProps) {
   const id = useId();
   const [body, setBody] = useState(initialBody);
   const [submissionIds, setSubmissionIds] = useState<number[]>([]);
@@ -36,7 +46,12 @@ export function PostForm({ modelSlug, label, submitLabel, initialBody = '', link
 
   return (
     <form onSubmit={submit} className="space-y-3" noValidate>
-      <FormField id={`${id}-body`} label={label} error={errors.body} hint="Markdown: *emphasis*, **bold**, `code`, lists, quotes and links.">
+      <FormField
+        id={`${id}-body`}
+        label={label}
+        error={errors.body}
+        hint="Markdown: *emphasis*, **bold**, `code`, lists, quotes and links."
+      >
         <textarea
           id={`${id}-body`}
           value={body}

@@ -4,7 +4,8 @@ import { formatDay } from '@/lib/format-date';
 import { ThreadStatusBadge } from './thread-status-badge';
 
 export function ThreadList({ threads }: { threads: ThreadSummary[] }) {
-  if (threads.length === 0) return <p className="rounded-card bg-paper-deep p-6 text-ink-soft">No threads match. Quiet is good news for a power meter.</p>;
+  if (threads.length === 0)
+    return <p className="rounded-card bg-paper-deep p-6 text-ink-soft">No threads match. Quiet is good news for a power meter.</p>;
   return (
     <ul className="divide-y divide-paper-line rounded-card border border-paper-line bg-white" aria-label="Threads">
       {threads.map((t) => (
@@ -15,11 +16,16 @@ export function ThreadList({ threads }: { threads: ThreadSummary[] }) {
             </Link>
             <p className="text-caption text-ink-faint">
               {t.author.name}
-              {t.firmware && ` · firmware ${t.firmware.version}`} · {t.replyCount} {t.replyCount === 1 ? 'reply' : 'replies'} · active {formatDay(t.lastActivityOn)}
+              {t.firmware && ` · firmware ${t.firmware.version}`} · {t.replyCount} {t.replyCount === 1 ? 'reply' : 'replies'} · active{' '}
+              {formatDay(t.lastActivityOn)}
               {t.locked && ' · locked'}
             </p>
           </div>
-          {t.makerResponded && <span className="text-caption font-semibold text-fjord-700">{t.hasOfficialResponse ? 'Official response' : 'Maker replied'}</span>}
+          {t.makerResponded && (
+            <span className="text-caption font-semibold text-fjord-700">
+              {t.hasOfficialResponse ? 'Official response' : 'Maker replied'}
+            </span>
+          )}
           <ThreadStatusBadge status={t.status} fixedIn={t.fixedIn} />
         </li>
       ))}

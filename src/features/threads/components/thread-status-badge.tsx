@@ -9,7 +9,10 @@ const STYLES: Record<ThreadStatus, string> = {
 
 export function ThreadStatusBadge({ status, fixedIn }: { status: ThreadStatus; fixedIn: FirmwareRef | null }) {
   return (
-    <span className={`inline-flex items-center rounded-full border px-2.5 py-0.5 text-caption font-semibold ${STYLES[status]}`} data-testid="thread-status">
+    <span
+      className={`inline-flex items-center rounded-full border px-2.5 py-0.5 text-caption font-semibold ${STYLES[status]}`}
+      data-testid="thread-status"
+    >
       {status === 'fixed' && fixedIn ? `Fixed in firmware ${fixedIn.version}` : THREAD_STATUS_LABELS[status]}
     </span>
   );

@@ -8,4 +8,3 @@ export function formatAgo(iso: string, now = Date.now()): string {
   if (minutes < 24 * 60) return `${Math.round(minutes / 60)} h ago`;
   return formatDay(iso);
 }
-
