@@ -6,6 +6,7 @@ import { SEND_MAIL_QUEUE } from '../../../server/features/mail/send-mail.job';
 import { SWEEP_ORIGINALS_QUEUE } from '../../../server/features/originals/originals-sweep.job';
 import { REFIT_CONSENSUS_QUEUE } from '../../../server/features/statistics/consensus-refit.job';
 import { ANALYSE_SUBMISSION_QUEUE } from '../../../server/features/submissions/analyse-submission.job';
+import { REANALYSE_SUBMISSION_QUEUE } from '../../../server/features/reanalysis/reanalyse-submission.job';
 import { type Queue, startQueue } from '../../../server/jobs/queue';
 import { createLogger } from '../../../server/lib/logger';
 import { ensureDatabase } from '../../../scripts/lib/postgres-cluster';
@@ -43,7 +44,9 @@ describe('starting the job queue in several processes at once', { timeout: 120_0
           .map((q) => q.name)
           .filter((name) => !name.startsWith('__pgboss'))
           .sort(),
-      ).toEqual([ANALYSE_SUBMISSION_QUEUE, REFIT_CONSENSUS_QUEUE, SEND_MAIL_QUEUE, SWEEP_ORIGINALS_QUEUE].sort());
+      ).toEqual(
+        [ANALYSE_SUBMISSION_QUEUE, REFIT_CONSENSUS_QUEUE, SEND_MAIL_QUEUE, SWEEP_ORIGINALS_QUEUE, REANALYSE_SUBMISSION_QUEUE].sort(),
+      );
     }
   });
 
